@@ -1,0 +1,63 @@
+/**
+ * `npm start`: PostgreSQL (installed when missing), migrations, demo data, local stand-ins for the
+ * hosted services, a production build when out of date, and Tackline at http://localhost:3000.
+ * `npm run dev` does the same with `vite dev` instead of the build. Ctrl-C stops everything.
+ */
+import { join } from 'node:path';
+import { startStandins } from '../docker/standins';
+import {
+	buildIfNeeded,
+	log,
+	migrateAndSeed,
+	persistentSecret,
+	root,
+	startDatabase,
+	startServer
+} from './lib/local';
+
+const dev = process.argv.includes('--dev');
+const dataDir = join(root, '.data');
+const port = Number(process.env.PORT ?? (dev ? 5173 : 3000));
+
+const database = await startDatabase({
+	dataDir: join(dataDir, 'pg', 'data'),
+	port: Number(process.env.TACKLINE_PG_PORT ?? 54329),
+	user: 'tackline',
+	password: persistentSecret(dataDir, 'pg-password'),
+	database: 'tackline'
+});
+await migrateAndSeed(database.url, { seed: true });
+const standins = await startStandins({
+	smtp: Number(process.env.TACKLINE_SMTP_PORT ?? 2525),
+	mailApi: Number(process.env.TACKLINE_MAIL_API_PORT ?? 2526)
+});
+if (!dev) await buildIfNeeded();
+
+const origin = `http://localhost:${port}`;
+const server = startServer(
+	{
+		...standins.env,
+		DATABASE_URL: database.url,
+		AUTH_SECRET: persistentSecret(dataDir, 'auth-secret'),
+		AUTH_TRUST_HOST: 'true',
+		ORIGIN: origin,
+		PORT: String(port)
+	},
+	dev ? join(root, 'node_modules/.bin/vite') : 'node',
+	dev ? ['dev', '--port', String(port), '--strictPort'] : ['build']
+);
+log(`Tackline is starting at ${origin} — demo sign-ins are listed in README.md; Ctrl-C stops it`);
+
+let stopping = false;
+async function shutdown(code: number) {
+	if (stopping) return;
+	stopping = true;
+	log('Stopping…');
+	server.kill('SIGTERM');
+	await standins.stop();
+	database.stop();
+	process.exit(code);
+}
+process.on('SIGINT', () => void shutdown(0));
+process.on('SIGTERM', () => void shutdown(0));
+server.on('exit', (code) => void shutdown(code ?? 0));

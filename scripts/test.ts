@@ -1,0 +1,130 @@
+/**
+ * `npm test`: every suite on a throwaway PostgreSQL cluster and throwaway ports — type check, unit
+ * tests, integration tests against the built server, and browser tests in Debian's Chromium.
+ * Ends with one line `N passed, N failed` (the totals CI reads) and a non-zero exit on any failure.
+ */
+import { execFileSync, spawn } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { startStandins } from '../docker/standins';
+import { buildIfNeeded, freePort, log, migrateAndSeed, root, startDatabase, startServer, waitForHealth } from './lib/local';
+
+type Tally = { suite: string; passed: number; failed: number; note?: string };
+const tallies: Tally[] = [];
+const bin = (name: string) => join(root, 'node_modules/.bin', name);
+const work = mkdtempSync(join(tmpdir(), 'tackline-test-'));
+
+function ensureChromium() {
+	if (existsSync('/usr/bin/chromium')) return;
+	if (process.getuid?.() !== 0) throw new Error('Chromium is missing. Run: sudo apt-get install -y chromium');
+	log('Installing Chromium from Debian packages (first run only)…');
+	execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit' });
+	execFileSync('apt-get', ['install', '-y', '-qq', 'chromium'], {
+		stdio: 'inherit',
+		env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' }
+	});
+}
+
+function run(command: string, args: string[], env: Record<string, string> = {}) {
+	return new Promise<number>((resolve) => {
+		const child = spawn(command, args, { cwd: root, stdio: 'inherit', env: { ...process.env, ...env } });
+		child.once('error', () => resolve(1));
+		child.once('exit', (code) => resolve(code ?? 1));
+	});
+}
+
+function readJson<T>(file: string): T | null {
+	try {
+		return JSON.parse(readFileSync(file, 'utf8')) as T;
+	} catch {
+		return null;
+	}
+}
+
+async function vitestSuite(suite: string, project: string, env: Record<string, string>) {
+	const out = join(work, `${project}.json`);
+	const code = await run(bin('vitest'), ['run', '--project', project, '--reporter=default', '--reporter=json', `--outputFile.json=${out}`], env);
+	const report = readJson<{ numPassedTests: number; numFailedTests: number; numTotalTests: number }>(out);
+	if (!report) return tallies.push({ suite, passed: 0, failed: 1, note: `vitest exited ${code} without a report` });
+	// A crash outside any test (a file that fails to import) still counts as a failure.
+	const failed = report.numFailedTests + (code !== 0 && report.numFailedTests === 0 ? 1 : 0);
+	tallies.push({ suite, passed: report.numPassedTests, failed });
+}
+
+async function playwrightSuite(env: Record<string, string>) {
+	const out = join(work, 'playwright.json');
+	const code = await run(bin('playwright'), ['test', '--reporter=list,json'], { ...env, PLAYWRIGHT_JSON_OUTPUT_NAME: out });
+	const report = readJson<{ stats: { expected: number; unexpected: number; flaky: number } }>(out);
+	if (!report) return tallies.push({ suite: 'browser', passed: 0, failed: 1, note: `playwright exited ${code} without a report` });
+	const failed = report.stats.unexpected + (code !== 0 && report.stats.unexpected === 0 ? 1 : 0);
+	tallies.push({ suite: 'browser', passed: report.stats.expected + report.stats.flaky, failed });
+}
+
+const cleanups: (() => unknown)[] = [];
+async function main() {
+	ensureChromium();
+	const database = await startDatabase({
+		dataDir: join(work, 'pg', 'data'),
+		port: await freePort(),
+		user: 'tackline',
+		password: randomBytes(16).toString('hex'),
+		database: 'tackline_test',
+		throwaway: true
+	});
+	cleanups.push(database.stop);
+	await migrateAndSeed(database.url, { seed: true });
+	const standins = await startStandins({ smtp: await freePort(), mailApi: await freePort() });
+	cleanups.push(standins.stop);
+
+	const port = await freePort();
+	const baseUrl = `http://localhost:${port}`;
+	const env: Record<string, string> = {
+		...standins.env,
+		DATABASE_URL: database.url,
+		AUTH_SECRET: randomBytes(32).toString('base64url'),
+		AUTH_TRUST_HOST: 'true',
+		ORIGIN: baseUrl,
+		PORT: String(port),
+		// Tests present each client as its own address, so per-address sign-in limits stay apart.
+		ADDRESS_HEADER: 'x-forwarded-for',
+		TACKLINE_BASE_URL: baseUrl
+	};
+
+	const checkCode = await run('npm', ['run', '--silent', 'check']);
+	tallies.push({ suite: 'type check', passed: checkCode === 0 ? 1 : 0, failed: checkCode === 0 ? 0 : 1 });
+
+	await vitestSuite('unit', 'unit', env);
+
+	await buildIfNeeded({ force: true });
+	const server = startServer(env);
+	cleanups.unshift(() => server.kill('SIGTERM'));
+	await waitForHealth(baseUrl);
+
+	await vitestSuite('integration', 'integration', env);
+	await playwrightSuite(env);
+}
+
+let crashed = false;
+try {
+	await main();
+} catch (error) {
+	crashed = true;
+	console.error(error);
+} finally {
+	for (const cleanup of cleanups) {
+		try {
+			await cleanup();
+		} catch (error) {
+			console.error('cleanup failed:', error);
+		}
+	}
+	rmSync(work, { recursive: true, force: true });
+}
+
+for (const t of tallies) log(`${t.suite}: ${t.passed} passed, ${t.failed} failed${t.note ? ` (${t.note})` : ''}`);
+const passed = tallies.reduce((sum, t) => sum + t.passed, 0);
+const failed = tallies.reduce((sum, t) => sum + t.failed, 0) + (crashed ? 1 : 0);
+console.log(`${passed} passed, ${failed} failed`);
+process.exit(failed > 0 ? 1 : 0);

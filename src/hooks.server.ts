@@ -1,0 +1,11 @@
+import { sequence } from '@sveltejs/kit/hooks';
+import type { HandleServerError } from '@sveltejs/kit';
+import { handle as authjs } from '$lib/server/auth';
+import { gateAreas, loadUser } from '$lib/server/auth/handle';
+
+export const handle = sequence(authjs, loadUser, gateAreas);
+
+export const handleError: HandleServerError = ({ error, event, status, message }) => {
+	if (status >= 500) console.error(`${event.request.method} ${event.url.pathname}`, error);
+	return { message: status >= 500 ? 'Something went wrong on our side. Please try again.' : message, code: 'internal' };
+};

@@ -1,0 +1,95 @@
+import { eq, sql } from 'drizzle-orm';
+import { db, type Executor } from '../db';
+import { user, type UserRole } from '../db/schema';
+import { hashPassword, verifyPassword } from '../auth/password';
+import * as audit from '../audit';
+import type { SessionUser } from '$lib/types/user';
+
+const sessionColumns = {
+	id: user.id,
+	name: user.name,
+	email: user.email,
+	role: user.role,
+	units: user.units,
+	suspendedAt: user.suspendedAt
+};
+
+export async function getSessionUser({ id }: { id: string }, tx: Executor = db) {
+	const [row] = await tx.select(sessionColumns).from(user).where(eq(user.id, id)).limit(1);
+	if (!row) return null;
+	const { suspendedAt, ...rest } = row;
+	return { user: rest satisfies SessionUser, suspended: suspendedAt !== null };
+}
+
+export async function findByEmail({ email }: { email: string }, tx: Executor = db) {
+	const [row] = await tx
+		.select({ ...sessionColumns, passwordHash: user.passwordHash })
+		.from(user)
+		.where(sql`lower(${user.email}) = ${email.toLowerCase()}`)
+		.limit(1);
+	return row ?? null;
+}
+
+export class EmailTaken extends Error {
+	constructor() {
+		super('An account with this email address already exists.');
+	}
+}
+
+export async function register(input: { name: string; email: string; password: string; role: UserRole }) {
+	const passwordHash = await hashPassword(input.password);
+	return db.transaction(async (tx) => {
+		if (await findByEmail({ email: input.email }, tx)) throw new EmailTaken();
+		const [created] = await tx
+			.insert(user)
+			.values({ name: input.name, email: input.email.toLowerCase(), passwordHash, role: input.role })
+			.onConflictDoNothing({ target: user.email })
+			.returning({ id: user.id, role: user.role });
+		if (!created) throw new EmailTaken();
+		await audit.record(tx, { actorId: created.id, action: 'account.registered', subjectType: 'user', subjectId: created.id, data: { role: input.role } });
+		return created;
+	});
+}
+
+export type CredentialCheck =
+	| { ok: true; user: { id: string; email: string; name: string | null; role: UserRole } }
+	| { ok: false; reason: 'invalid' | 'suspended' };
+
+/** Suspension is revealed only to someone who knows the password. */
+export async function verifyCredentials({ email, password }: { email: string; password: string }): Promise<CredentialCheck> {
+	const found = await findByEmail({ email });
+	if (!found?.passwordHash || !(await verifyPassword(found.passwordHash, password))) {
+		return { ok: false, reason: 'invalid' };
+	}
+	if (found.suspendedAt) return { ok: false, reason: 'suspended' };
+	return { ok: true, user: { id: found.id, email: found.email, name: found.name, role: found.role } };
+}
+
+export async function suspend({ userId, reason, actorId }: { userId: string; reason: string; actorId: string | null }) {
+	await db.transaction(async (tx) => {
+		const [changed] = await tx
+			.update(user)
+			.set({ suspendedAt: new Date(), suspendedReason: reason })
+			.where(sql`${user.id} = ${userId} and ${user.suspendedAt} is null`)
+			.returning({ id: user.id });
+		if (changed) await audit.record(tx, { actorId, action: 'account.suspended', subjectType: 'user', subjectId: userId, data: { reason } });
+	});
+}
+
+export async function reinstate({ userId, actorId }: { userId: string; actorId: string | null }) {
+	await db.transaction(async (tx) => {
+		const [changed] = await tx
+			.update(user)
+			.set({ suspendedAt: null, suspendedReason: null })
+			.where(sql`${user.id} = ${userId} and ${user.suspendedAt} is not null`)
+			.returning({ id: user.id });
+		if (changed) await audit.record(tx, { actorId, action: 'account.reinstated', subjectType: 'user', subjectId: userId });
+	});
+}
+
+export async function countByRole() {
+	const rows = await db.select({ role: user.role, count: sql<number>`count(*)::int` }).from(user).groupBy(user.role);
+	const counts: Record<UserRole, number> = { customer: 0, tailor: 0, admin: 0 };
+	for (const row of rows) counts[row.role] = row.count;
+	return counts;
+}

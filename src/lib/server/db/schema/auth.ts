@@ -1,0 +1,104 @@
+import { sql } from 'drizzle-orm';
+import {
+	boolean,
+	index,
+	integer,
+	pgEnum,
+	pgTable,
+	primaryKey,
+	text,
+	timestamp,
+	uuid
+} from 'drizzle-orm/pg-core';
+
+export const userRole = pgEnum('user_role', ['customer', 'tailor', 'admin']);
+export const lengthUnit = pgEnum('length_unit', ['in', 'cm']);
+
+export const user = pgTable(
+	'user',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		name: text('name'),
+		email: text('email').notNull().unique(),
+		emailVerified: timestamp('email_verified', { withTimezone: true, mode: 'date' }),
+		image: text('image'),
+		passwordHash: text('password_hash'),
+		role: userRole('role').notNull().default('customer'),
+		units: lengthUnit('units').notNull().default('cm'),
+		timeZone: text('time_zone').notNull().default('UTC'),
+		suspendedAt: timestamp('suspended_at', { withTimezone: true, mode: 'date' }),
+		suspendedReason: text('suspended_reason'),
+		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+		updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' })
+			.notNull()
+			.defaultNow()
+			.$onUpdate(() => new Date())
+	},
+	(t) => [index('user_role_idx').on(t.role), index('user_email_lower_idx').on(sql`lower(${t.email})`)]
+);
+export type User = typeof user.$inferSelect;
+export type NewUser = typeof user.$inferInsert;
+export type UserRole = (typeof userRole.enumValues)[number];
+export type LengthUnit = (typeof lengthUnit.enumValues)[number];
+
+// The next three tables follow the shape @auth/drizzle-adapter expects.
+export const account = pgTable(
+	'account',
+	{
+		userId: uuid('user_id')
+			.notNull()
+			.references(() => user.id, { onDelete: 'cascade' }),
+		type: text('type').$type<'email' | 'oauth' | 'oidc' | 'webauthn'>().notNull(),
+		provider: text('provider').notNull(),
+		providerAccountId: text('provider_account_id').notNull(),
+		refresh_token: text('refresh_token'),
+		access_token: text('access_token'),
+		expires_at: integer('expires_at'),
+		token_type: text('token_type'),
+		scope: text('scope'),
+		id_token: text('id_token'),
+		session_state: text('session_state')
+	},
+	(t) => [
+		primaryKey({ columns: [t.provider, t.providerAccountId] }),
+		index('account_user_idx').on(t.userId)
+	]
+);
+
+export const session = pgTable(
+	'session',
+	{
+		sessionToken: text('session_token').primaryKey(),
+		userId: uuid('user_id')
+			.notNull()
+			.references(() => user.id, { onDelete: 'cascade' }),
+		expires: timestamp('expires', { withTimezone: true, mode: 'date' }).notNull()
+	},
+	(t) => [index('session_user_idx').on(t.userId)]
+);
+
+export const verificationToken = pgTable(
+	'verification_token',
+	{
+		identifier: text('identifier').notNull(),
+		token: text('token').notNull(),
+		expires: timestamp('expires', { withTimezone: true, mode: 'date' }).notNull()
+	},
+	(t) => [primaryKey({ columns: [t.identifier, t.token] })]
+);
+
+/** One row per password sign-in attempt; failures in a recent window drive the rate limit. */
+export const signInAttempt = pgTable(
+	'sign_in_attempt',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		email: text('email').notNull(),
+		ip: text('ip').notNull(),
+		succeeded: boolean('succeeded').notNull(),
+		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow()
+	},
+	(t) => [
+		index('sign_in_attempt_email_idx').on(t.email, t.createdAt),
+		index('sign_in_attempt_ip_idx').on(t.ip, t.createdAt)
+	]
+);

@@ -1,0 +1,49 @@
+import { sql } from 'drizzle-orm';
+import {
+	check,
+	jsonb,
+	pgEnum,
+	pgTable,
+	text,
+	timestamp,
+	unique,
+	uuid
+} from 'drizzle-orm/pg-core';
+import { user } from './auth';
+
+/** Who took the measurements: the wearer alone, someone helping them, or a tailor. */
+export const measurementTaker = pgEnum('measurement_taker', ['self', 'companion', 'tailor']);
+
+/**
+ * Body measurements in whole millimetres, keyed by measurement code (`waist_girth`, …).
+ * The vocabulary lives in the drafting module; the database only stores what it is given.
+ */
+export type MeasurementValuesMm = Record<string, number>;
+
+export const measurementProfile = pgTable(
+	'measurement_profile',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		// Measurements are personal data: they go when the account goes.
+		ownerId: uuid('owner_id')
+			.notNull()
+			.references(() => user.id, { onDelete: 'cascade' }),
+		label: text('label').notNull(),
+		valuesMm: jsonb('values_mm').$type<MeasurementValuesMm>().notNull().default({}),
+		takenBy: measurementTaker('taken_by').notNull().default('self'),
+		takenAt: timestamp('taken_at', { withTimezone: true, mode: 'date' }),
+		notes: text('notes').notNull().default(''),
+		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+		updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' })
+			.notNull()
+			.defaultNow()
+			.$onUpdate(() => new Date())
+	},
+	(t) => [
+		unique('measurement_profile_owner_label_uq').on(t.ownerId, t.label),
+		check('measurement_profile_values_object', sql`jsonb_typeof(${t.valuesMm}) = 'object'`)
+	]
+);
+export type MeasurementProfile = typeof measurementProfile.$inferSelect;
+export type NewMeasurementProfile = typeof measurementProfile.$inferInsert;
+export type MeasurementTaker = (typeof measurementTaker.enumValues)[number];

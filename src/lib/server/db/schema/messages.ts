@@ -1,0 +1,66 @@
+import { sql } from 'drizzle-orm';
+import { check, index, integer, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import { user } from './auth';
+import { commission } from './commissions';
+import { tailorProfile } from './tailors';
+
+/** One conversation per commission and tailor; the customer is the commission's owner. */
+export const messageThread = pgTable(
+	'message_thread',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		commissionId: uuid('commission_id')
+			.notNull()
+			.references(() => commission.id, { onDelete: 'cascade' }),
+		tailorId: uuid('tailor_id')
+			.notNull()
+			.references(() => tailorProfile.userId, { onDelete: 'cascade' }),
+		lastMessageAt: timestamp('last_message_at', { withTimezone: true, mode: 'date' }),
+		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow()
+	},
+	(t) => [
+		unique('message_thread_commission_tailor_uq').on(t.commissionId, t.tailorId),
+		index('message_thread_tailor_idx').on(t.tailorId, t.lastMessageAt)
+	]
+);
+export type MessageThread = typeof messageThread.$inferSelect;
+export type NewMessageThread = typeof messageThread.$inferInsert;
+
+export const message = pgTable(
+	'message',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		threadId: uuid('thread_id')
+			.notNull()
+			.references(() => messageThread.id, { onDelete: 'cascade' }),
+		// The other party keeps the conversation (and a dispute its evidence) if the author's account goes.
+		authorId: uuid('author_id').references(() => user.id, { onDelete: 'set null' }),
+		body: text('body').notNull(),
+		readAt: timestamp('read_at', { withTimezone: true, mode: 'date' }),
+		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow()
+	},
+	(t) => [index('message_thread_created_idx').on(t.threadId, t.createdAt)]
+);
+export type Message = typeof message.$inferSelect;
+export type NewMessage = typeof message.$inferInsert;
+
+export const messageAttachment = pgTable(
+	'message_attachment',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		messageId: uuid('message_id')
+			.notNull()
+			.references(() => message.id, { onDelete: 'cascade' }),
+		storageKey: text('storage_key').notNull().unique(),
+		fileName: text('file_name').notNull(),
+		contentType: text('content_type').notNull(),
+		bytes: integer('bytes').notNull(),
+		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow()
+	},
+	(t) => [
+		index('message_attachment_message_idx').on(t.messageId),
+		check('message_attachment_bytes_positive', sql`${t.bytes} > 0`)
+	]
+);
+export type MessageAttachment = typeof messageAttachment.$inferSelect;
+export type NewMessageAttachment = typeof messageAttachment.$inferInsert;

@@ -1,0 +1,149 @@
+import { sql } from 'drizzle-orm';
+import {
+	char,
+	check,
+	date,
+	index,
+	integer,
+	pgEnum,
+	pgTable,
+	text,
+	timestamp,
+	uuid
+} from 'drizzle-orm/pg-core';
+import { user } from './auth';
+import { commission } from './commissions';
+import { quote } from './quotes';
+import { tailorProfile } from './tailors';
+
+export const orderStatus = pgEnum('order_status', [
+	'awaiting_payment',
+	'funded',
+	'in_work',
+	'ready',
+	'delivered',
+	'released',
+	'cancelled',
+	'refunded',
+	'disputed',
+	'settled'
+]);
+
+// Orders carry money and its history: every reference into and out of them restricts deletes.
+export const order = pgTable(
+	'order',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		commissionId: uuid('commission_id')
+			.notNull()
+			.unique()
+			.references(() => commission.id, { onDelete: 'restrict' }),
+		quoteId: uuid('quote_id')
+			.notNull()
+			.unique()
+			.references(() => quote.id, { onDelete: 'restrict' }),
+		customerId: uuid('customer_id')
+			.notNull()
+			.references(() => user.id, { onDelete: 'restrict' }),
+		tailorId: uuid('tailor_id')
+			.notNull()
+			.references(() => tailorProfile.userId, { onDelete: 'restrict' }),
+		priceMinor: integer('price_minor').notNull(),
+		platformFeeMinor: integer('platform_fee_minor').notNull(),
+		tailorPayoutMinor: integer('tailor_payout_minor').notNull(),
+		currency: char('currency', { length: 3 }).notNull(),
+		/** The delivery date agreed in the quote. */
+		dueDate: date('due_date', { mode: 'string' }).notNull(),
+		checkoutSessionId: text('checkout_session_id').unique(),
+		paymentIntentId: text('payment_intent_id').unique(),
+		chargeId: text('charge_id').unique(),
+		transferId: text('transfer_id').unique(),
+		status: orderStatus('status').notNull().default('awaiting_payment'),
+		fundedAt: timestamp('funded_at', { withTimezone: true, mode: 'date' }),
+		deliveredAt: timestamp('delivered_at', { withTimezone: true, mode: 'date' }),
+		releasedAt: timestamp('released_at', { withTimezone: true, mode: 'date' }),
+		autoReleaseAt: timestamp('auto_release_at', { withTimezone: true, mode: 'date' }),
+		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+		updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' })
+			.notNull()
+			.defaultNow()
+			.$onUpdate(() => new Date())
+	},
+	(t) => [
+		index('order_tailor_status_due_idx').on(t.tailorId, t.status, t.dueDate),
+		index('order_customer_idx').on(t.customerId, t.createdAt),
+		index('order_auto_release_idx')
+			.on(t.autoReleaseAt)
+			.where(sql`${t.status} = 'delivered'`),
+		check('order_currency_iso', sql`${t.currency} ~ '^[A-Z]{3}$'`),
+		check('order_price_positive', sql`${t.priceMinor} > 0`),
+		check('order_fee_nonnegative', sql`${t.platformFeeMinor} >= 0`),
+		check('order_payout_nonnegative', sql`${t.tailorPayoutMinor} >= 0`),
+		check('order_split_adds_up', sql`${t.platformFeeMinor} + ${t.tailorPayoutMinor} = ${t.priceMinor}`)
+	]
+);
+export type Order = typeof order.$inferSelect;
+export type NewOrder = typeof order.$inferInsert;
+export type OrderStatus = (typeof orderStatus.enumValues)[number];
+
+export const progressStepKind = pgEnum('progress_step_kind', [
+	'fabric_sourced',
+	'pattern_drafted',
+	'cutting',
+	'first_fitting',
+	'sewing',
+	'final_fitting',
+	'finishing',
+	'ready'
+]);
+
+export const progressStep = pgTable(
+	'progress_step',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		orderId: uuid('order_id')
+			.notNull()
+			.references(() => order.id, { onDelete: 'cascade' }),
+		kind: progressStepKind('kind').notNull(),
+		note: text('note').notNull().default(''),
+		photoKey: text('photo_key'),
+		recordedAt: timestamp('recorded_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow()
+	},
+	(t) => [index('progress_step_order_idx').on(t.orderId, t.recordedAt)]
+);
+export type ProgressStep = typeof progressStep.$inferSelect;
+export type NewProgressStep = typeof progressStep.$inferInsert;
+export type ProgressStepKind = (typeof progressStepKind.enumValues)[number];
+
+export const fittingPlace = pgEnum('fitting_place', ['workroom', 'public_place', 'customer_home']);
+export const fittingStatus = pgEnum('fitting_status', ['proposed', 'confirmed', 'done', 'cancelled']);
+
+export const fitting = pgTable(
+	'fitting',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		orderId: uuid('order_id')
+			.notNull()
+			.references(() => order.id, { onDelete: 'cascade' }),
+		proposedById: uuid('proposed_by_id').references(() => user.id, { onDelete: 'set null' }),
+		startsAt: timestamp('starts_at', { withTimezone: true, mode: 'date' }).notNull(),
+		endsAt: timestamp('ends_at', { withTimezone: true, mode: 'date' }).notNull(),
+		placeKind: fittingPlace('place_kind').notNull().default('workroom'),
+		address: text('address').notNull().default(''),
+		status: fittingStatus('status').notNull().default('proposed'),
+		notes: text('notes').notNull().default(''),
+		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+		updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' })
+			.notNull()
+			.defaultNow()
+			.$onUpdate(() => new Date())
+	},
+	(t) => [
+		index('fitting_order_idx').on(t.orderId, t.startsAt),
+		check('fitting_ends_after_start', sql`${t.endsAt} > ${t.startsAt}`)
+	]
+);
+export type Fitting = typeof fitting.$inferSelect;
+export type NewFitting = typeof fitting.$inferInsert;
+export type FittingPlace = (typeof fittingPlace.enumValues)[number];
+export type FittingStatus = (typeof fittingStatus.enumValues)[number];

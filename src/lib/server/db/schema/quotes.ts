@@ -1,0 +1,62 @@
+import { sql } from 'drizzle-orm';
+import {
+	boolean,
+	char,
+	check,
+	date,
+	index,
+	integer,
+	pgEnum,
+	pgTable,
+	text,
+	timestamp,
+	uniqueIndex,
+	uuid
+} from 'drizzle-orm/pg-core';
+import { commission } from './commissions';
+import { tailorProfile } from './tailors';
+
+export const quoteStatus = pgEnum('quote_status', ['sent', 'accepted', 'declined', 'withdrawn', 'lapsed']);
+
+export const quote = pgTable(
+	'quote',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		commissionId: uuid('commission_id')
+			.notNull()
+			.references(() => commission.id, { onDelete: 'cascade' }),
+		tailorId: uuid('tailor_id')
+			.notNull()
+			.references(() => tailorProfile.userId, { onDelete: 'cascade' }),
+		priceMinor: integer('price_minor').notNull(),
+		currency: char('currency', { length: 3 }).notNull(),
+		deliveryDate: date('delivery_date', { mode: 'string' }).notNull(),
+		fittingsIncluded: integer('fittings_included').notNull().default(1),
+		fabricIncluded: boolean('fabric_included').notNull(),
+		message: text('message').notNull().default(''),
+		validUntil: timestamp('valid_until', { withTimezone: true, mode: 'date' }).notNull(),
+		status: quoteStatus('status').notNull().default('sent'),
+		/** When it left `sent`: accepted, declined, withdrawn or lapsed. */
+		decidedAt: timestamp('decided_at', { withTimezone: true, mode: 'date' }),
+		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+		updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' })
+			.notNull()
+			.defaultNow()
+			.$onUpdate(() => new Date())
+	},
+	(t) => [
+		// One live quote per tailor and commission; withdrawn, declined and lapsed ones stay as
+		// history, so a tailor may quote again after withdrawing.
+		uniqueIndex('quote_live_uq')
+			.on(t.commissionId, t.tailorId)
+			.where(sql`${t.status} in ('sent', 'accepted')`),
+		index('quote_commission_status_idx').on(t.commissionId, t.status),
+		index('quote_tailor_status_idx').on(t.tailorId, t.status, t.createdAt),
+		check('quote_currency_iso', sql`${t.currency} ~ '^[A-Z]{3}$'`),
+		check('quote_price_positive', sql`${t.priceMinor} > 0`),
+		check('quote_fittings_nonnegative', sql`${t.fittingsIncluded} >= 0`)
+	]
+);
+export type Quote = typeof quote.$inferSelect;
+export type NewQuote = typeof quote.$inferInsert;
+export type QuoteStatus = (typeof quoteStatus.enumValues)[number];

@@ -1,0 +1,135 @@
+import { eq } from 'drizzle-orm';
+import { afterAll, describe, expect, it } from 'vitest';
+import { user } from '../../src/lib/server/db/schema';
+import { testDb } from './db';
+import { newClient, signIn, signUp, uniqueEmail } from './http';
+
+const { db, pool } = testDb();
+afterAll(() => pool.end());
+
+describe('sign-up', () => {
+	it('creates a customer, signs them in and opens their area', async () => {
+		const client = newClient();
+		const email = uniqueEmail('ada');
+		const response = await signUp(client, { name: 'Ada Quill', email, role: 'customer' });
+		expect(response.status).toBe(303);
+		expect(response.headers.get('location')).toBe('/commissions?welcome=1');
+
+		const area = await client.get('/commissions');
+		expect(area.status).toBe(200);
+		expect(await area.text()).toContain('Ada Quill');
+
+		const [row] = await db.select({ role: user.role, hash: user.passwordHash }).from(user).where(eq(user.email, email));
+		expect(row.role).toBe('customer');
+		expect(row.hash).toMatch(/^\$argon2id\$/);
+	});
+
+	it('refuses a second account with the same email, whatever its case, and keeps what was typed', async () => {
+		const email = uniqueEmail('twice');
+		expect((await signUp(newClient(), { email, role: 'customer' })).status).toBe(303);
+		const again = await signUp(newClient(), { name: 'Second Try', email: email.toUpperCase(), role: 'tailor' });
+		expect(again.status).toBe(400);
+		const page = await again.text();
+		expect(page).toContain('already exists');
+		expect(page).toContain('Second Try');
+	});
+
+	it('rejects a short password with a clear message', async () => {
+		const response = await signUp(newClient(), { name: 'Short Pw', email: uniqueEmail('short'), password: 'abc12345', role: 'customer' });
+		expect(response.status).toBe(400);
+		expect(await response.text()).toContain('at least 10 characters');
+	});
+
+	it('never creates an admin from the sign-up form', async () => {
+		const email = uniqueEmail('sneaky');
+		const response = await signUp(newClient(), { email, role: 'admin' as 'customer' });
+		expect(response.status).toBe(400);
+		expect(await db.select().from(user).where(eq(user.email, email))).toHaveLength(0);
+	});
+});
+
+describe('password sign-in', () => {
+	it('rejects a wrong password with one generic message', async () => {
+		const email = uniqueEmail('wrong');
+		await signUp(newClient(), { email, role: 'customer' });
+		const response = await signIn(newClient(), email, 'not the password');
+		expect(response.status).toBe(400);
+		expect(await response.text()).toContain('Incorrect email or password');
+		const unknown = await signIn(newClient(), uniqueEmail('nobody'), 'whatever-password');
+		expect(await unknown.text()).toContain('Incorrect email or password');
+	});
+
+	it('locks an account after five failures, even from other addresses and with the right password', async () => {
+		const email = uniqueEmail('locked');
+		await signUp(newClient(), { email, role: 'customer', password: 'the right password' });
+		for (let i = 0; i < 5; i++) expect((await signIn(newClient(), email, `wrong ${i}`)).status).toBe(400);
+		const blocked = await signIn(newClient(), email, 'the right password');
+		expect(blocked.status).toBe(429);
+		expect(await blocked.text()).toMatch(/Too many failed sign-in attempts\. Try again in \d+ minute/);
+	});
+
+	it('blocks an address after twenty failures across accounts', async () => {
+		const attacker = newClient();
+		for (let i = 0; i < 20; i++) await signIn(attacker, uniqueEmail(`spray${i}`), 'guessing-password');
+		const email = uniqueEmail('bystander');
+		await signUp(newClient(), { email, role: 'customer', password: 'bystander password' });
+		expect((await signIn(attacker, email, 'bystander password')).status).toBe(429);
+		expect((await signIn(newClient(), email, 'bystander password')).status).toBe(303);
+	});
+});
+
+describe('suspension', () => {
+	it('ends a live session at once and refuses sign-in', async () => {
+		const client = newClient();
+		const email = uniqueEmail('suspended');
+		await signUp(client, { email, role: 'customer', password: 'suspend me please' });
+		expect((await client.get('/commissions')).status).toBe(200);
+
+		await db.update(user).set({ suspendedAt: new Date(), suspendedReason: 'test' }).where(eq(user.email, email));
+
+		const after = await client.get('/commissions');
+		expect(after.status).toBe(303);
+		expect(after.headers.get('location')).toBe('/sign-in?suspended=1');
+		const again = await signIn(newClient(), email, 'suspend me please');
+		expect(again.status).toBe(403);
+		expect(await again.text()).toContain('This account is suspended');
+	});
+});
+
+describe('areas by role', () => {
+	const areas = { customer: '/commissions', tailor: '/workroom', admin: '/desk' } as const;
+
+	it('sends signed-out visitors to sign in, remembering where they were going', async () => {
+		for (const path of Object.values(areas)) {
+			const response = await newClient().get(path);
+			expect(response.status).toBe(303);
+			expect(response.headers.get('location')).toBe(`/sign-in?redirectTo=${encodeURIComponent(path)}`);
+		}
+	});
+
+	it.each([
+		['customer', 'customer@tackline.test'],
+		['tailor', 'tailor@tackline.test'],
+		['admin', 'admin@tackline.test']
+	] as const)('lets the demo %s into their own area only', async (role, email) => {
+		const client = newClient();
+		const response = await signIn(client, email, 'tackline-demo');
+		expect(response.status).toBe(303);
+		expect(response.headers.get('location')).toBe(areas[role]);
+		for (const [otherRole, path] of Object.entries(areas)) {
+			expect((await client.get(path)).status, `${role} → ${path}`).toBe(otherRole === role ? 200 : 403);
+		}
+	});
+});
+
+describe('sign-out', () => {
+	it('happens only on POST', async () => {
+		const client = newClient();
+		await signUp(client, { email: uniqueEmail('leaver'), role: 'tailor' });
+		expect((await client.get('/sign-out')).status).toBe(303);
+		expect((await client.get('/workroom')).status).toBe(200);
+		const out = await client.post('/sign-out');
+		expect(out.status).toBe(303);
+		expect((await client.get('/workroom')).status).toBe(303);
+	});
+});

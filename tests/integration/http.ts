@@ -1,0 +1,59 @@
+/** A tiny HTTP client for integration tests: form posts with the Origin header and a cookie jar. */
+import { randomInt } from 'node:crypto';
+
+export const baseUrl = process.env.TACKLINE_BASE_URL ?? 'http://localhost:3000';
+
+/** Each client has its own documentation-range address, so per-address limits do not leak between tests. */
+export function newClient(address = `198.18.${randomInt(0, 255)}.${randomInt(1, 255)}`) {
+	const jar = new Map<string, string>();
+
+	function remember(response: Response) {
+		for (const header of response.headers.getSetCookie()) {
+			const [pair] = header.split(';');
+			const index = pair.indexOf('=');
+			const name = pair.slice(0, index).trim();
+			const value = pair.slice(index + 1).trim();
+			if (value === '' || /max-age=0|expires=thu, 01 jan 1970/i.test(header)) jar.delete(name);
+			else jar.set(name, value);
+		}
+	}
+
+	function headers(extra: Record<string, string> = {}) {
+		const cookie = [...jar].map(([name, value]) => `${name}=${value}`).join('; ');
+		return { origin: baseUrl, 'x-forwarded-for': address, ...(cookie ? { cookie } : {}), ...extra };
+	}
+
+	return {
+		address,
+		jar,
+		async get(path: string) {
+			const response = await fetch(baseUrl + path, { headers: headers(), redirect: 'manual' });
+			remember(response);
+			return response;
+		},
+		async post(path: string, fields: Record<string, string> = {}) {
+			const response = await fetch(baseUrl + path, {
+				method: 'POST',
+				headers: headers({ 'content-type': 'application/x-www-form-urlencoded' }),
+				body: new URLSearchParams(fields),
+				redirect: 'manual'
+			});
+			remember(response);
+			return response;
+		}
+	};
+}
+
+export type Client = ReturnType<typeof newClient>;
+
+export function uniqueEmail(prefix: string) {
+	return `${prefix}.${Date.now().toString(36)}${randomInt(1000, 9999)}@example.test`;
+}
+
+export async function signUp(client: Client, fields: { name?: string; email: string; password?: string; role: 'customer' | 'tailor' }) {
+	return client.post('/sign-up', { name: fields.name ?? 'Test Person', password: fields.password ?? 'correct horse staple', ...fields });
+}
+
+export async function signIn(client: Client, email: string, password: string) {
+	return client.post('/sign-in?/password', { email, password });
+}
