@@ -1,6 +1,7 @@
 import type { MeasurementValuesMm, NewMeasurementProfile } from '../../src/lib/server/db/schema';
 import { demoId } from './ids';
 import { personId } from './people';
+import { daysFrom } from './time';
 
 const rosalind: MeasurementValuesMm = {
 	stature: 1650,
@@ -149,7 +150,7 @@ export function demoMeasurementProfiles(now: Date): Record<ProfileKey, DemoProfi
 			...rest,
 			id: demoId('measurementProfile', n),
 			ownerId: personId(owner),
-			takenAt: new Date(now.getTime() - takenDaysAgo * 86_400_000)
+			takenAt: daysFrom(now, -takenDaysAgo)
 		}
 	]);
 	return Object.fromEntries(rows);

@@ -1,0 +1,32 @@
+/** The demo scenario: tailors, customers and open commissions in Merrowgate, a city of our own invention. */
+import { eq } from 'drizzle-orm';
+import { hashPassword } from '../../src/lib/server/auth/password';
+import type { Database } from '../../src/lib/server/db/client';
+import { commission, measurementProfile, quote, tailorProfile, user } from '../../src/lib/server/db/schema';
+import { demoCommissions } from './commissions';
+import { demoMeasurementProfiles } from './measurements';
+import { adminEmail, demoPassword, demoUsers } from './people';
+import { demoQuotes } from './quotes';
+import { demoTailorProfiles } from './tailors';
+
+export type SeedResult = 'seeded' | 'already-seeded';
+
+/** Idempotent: fixed ids and `on conflict do nothing`, and a quick exit once the demo admin exists. */
+export async function seedDemo(db: Database): Promise<SeedResult> {
+	const [marker] = await db.select({ id: user.id }).from(user).where(eq(user.email, adminEmail)).limit(1);
+	if (marker) return 'already-seeded';
+
+	// Hashed once for every demo login: argon2 is slow on purpose.
+	const passwordHash = await hashPassword(demoPassword);
+	const now = new Date();
+	const profiles = demoMeasurementProfiles(now);
+
+	await db.transaction(async (tx) => {
+		await tx.insert(user).values(demoUsers(passwordHash, now)).onConflictDoNothing();
+		await tx.insert(tailorProfile).values(demoTailorProfiles()).onConflictDoNothing();
+		await tx.insert(measurementProfile).values(Object.values(profiles)).onConflictDoNothing();
+		await tx.insert(commission).values(demoCommissions(profiles, now)).onConflictDoNothing();
+		await tx.insert(quote).values(demoQuotes(now)).onConflictDoNothing();
+	});
+	return 'seeded';
+}
