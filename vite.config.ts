@@ -8,6 +8,7 @@ const devTools = process.env.TACKLINE_DEV_TOOLS === '1' || process.env.NODE_ENV 
 
 export default defineConfig({
 	plugins: [tailwindcss(), sveltekit()],
+	build: { rolldownOptions: { checks: { pluginTimings: false } } },
 	define: { __TACKLINE_DEV_TOOLS__: JSON.stringify(devTools) },
 	test: {
 		expect: { requireAssertions: true },

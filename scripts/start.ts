@@ -12,7 +12,8 @@ import {
 	persistentSecret,
 	root,
 	startDatabase,
-	startServer
+	startServer,
+	stopProcess
 } from './lib/local';
 
 const dev = process.argv.includes('--dev');
@@ -53,7 +54,7 @@ async function shutdown(code: number) {
 	if (stopping) return;
 	stopping = true;
 	log('Stopping…');
-	server.kill('SIGTERM');
+	await stopProcess(server);
 	await standins.stop();
 	database.stop();
 	process.exit(code);

@@ -5,16 +5,17 @@
  */
 import { execFileSync, spawn } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
-import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { chmodSync, existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { startStandins } from '../docker/standins';
-import { buildIfNeeded, freePort, log, migrateAndSeed, root, startDatabase, startServer, waitForHealth } from './lib/local';
+import { buildIfNeeded, freePort, log, migrateAndSeed, root, startDatabase, startServer, stopProcess, waitForHealth } from './lib/local';
 
 type Tally = { suite: string; passed: number; failed: number; note?: string };
 const tallies: Tally[] = [];
 const bin = (name: string) => join(root, 'node_modules/.bin', name);
 const work = mkdtempSync(join(tmpdir(), 'tackline-test-'));
+chmodSync(work, 0o755); // the postgres user must be able to enter it
 
 function ensureChromium() {
 	if (existsSync('/usr/bin/chromium')) return;
@@ -99,7 +100,7 @@ async function main() {
 
 	await buildIfNeeded({ force: true });
 	const server = startServer(env);
-	cleanups.unshift(() => server.kill('SIGTERM'));
+	cleanups.unshift(() => stopProcess(server));
 	await waitForHealth(baseUrl);
 
 	await vitestSuite('integration', 'integration', env);

@@ -21,7 +21,7 @@ type DemoCommission = Pick<
 	postedDaysAgo?: number;
 };
 
-export const demoCommissionList: DemoCommission[] = [
+const demoCommissionList: DemoCommission[] = [
 	{
 		n: 1,
 		customer: 'customer@tackline.test',
@@ -149,7 +149,8 @@ function snapshotOf(profile: Profiles[ProfileKey]): MeasurementSnapshot {
 }
 
 export function demoCommissions(profiles: Profiles, now: Date): NewCommission[] {
-	return demoCommissionList.map(({ n, customer, profile, district, budget, neededInDays, postedDaysAgo, ...rest }) => {
+	return demoCommissionList.map((c) => {
+		const { n, customer, profile, district, budget, neededInDays, postedDaysAgo, ...rest } = c;
 		const place = districts[district];
 		const posted = postedDaysAgo !== undefined;
 		return {

@@ -125,7 +125,14 @@ type DemoProfile = Pick<NewMeasurementProfile, 'label' | 'valuesMm' | 'takenBy' 
 };
 
 const profiles = {
-	rosalind: { n: 1, owner: 'customer@tackline.test', label: 'Me', valuesMm: rosalind, takenBy: 'companion', takenDaysAgo: 20 },
+	rosalind: {
+		n: 1,
+		owner: 'customer@tackline.test',
+		label: 'Me',
+		valuesMm: rosalind,
+		takenBy: 'companion',
+		takenDaysAgo: 20
+	},
 	rosalindsSon: {
 		n: 2,
 		owner: 'customer@tackline.test',
@@ -135,13 +142,35 @@ const profiles = {
 		takenDaysAgo: 6,
 		notes: 'Measured over a T-shirt. Growing fast: leave hems and side seams generous.'
 	},
-	tamsin: { n: 3, owner: 'tamsin.oyelaran@tackline.test', label: 'Me', valuesMm: tamsin, takenBy: 'tailor', takenDaysAgo: 40 },
-	felix: { n: 4, owner: 'felix.garrow@tackline.test', label: 'Me', valuesMm: felix, takenBy: 'self', takenDaysAgo: 12 },
-	nadia: { n: 5, owner: 'nadia.kestrel@tackline.test', label: 'Me', valuesMm: nadia, takenBy: 'companion', takenDaysAgo: 9 }
+	tamsin: {
+		n: 3,
+		owner: 'tamsin.oyelaran@tackline.test',
+		label: 'Me',
+		valuesMm: tamsin,
+		takenBy: 'tailor',
+		takenDaysAgo: 40
+	},
+	felix: {
+		n: 4,
+		owner: 'felix.garrow@tackline.test',
+		label: 'Me',
+		valuesMm: felix,
+		takenBy: 'self',
+		takenDaysAgo: 12
+	},
+	nadia: {
+		n: 5,
+		owner: 'nadia.kestrel@tackline.test',
+		label: 'Me',
+		valuesMm: nadia,
+		takenBy: 'companion',
+		takenDaysAgo: 9
+	}
 } satisfies Record<string, DemoProfile>;
 
 export type ProfileKey = keyof typeof profiles;
-type DemoProfileRow = NewMeasurementProfile & Required<Pick<NewMeasurementProfile, 'id' | 'takenBy' | 'takenAt'>>;
+type DemoProfileRow = NewMeasurementProfile &
+	Required<Pick<NewMeasurementProfile, 'id' | 'takenBy' | 'takenAt'>>;
 
 export function demoMeasurementProfiles(now: Date): Record<ProfileKey, DemoProfileRow> {
 	const rows = Object.entries(profiles).map(([key, { n, owner, takenDaysAgo, ...rest }]) => [

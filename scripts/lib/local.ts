@@ -116,3 +116,11 @@ export async function waitForHealth(baseUrl: string, timeoutMs = 60_000) {
 	}
 	throw new Error(`Tackline did not become healthy at ${baseUrl} within ${timeoutMs / 1000} s`);
 }
+
+/** Asks a child to stop and waits (up to five seconds) until it has. */
+export async function stopProcess(child: ChildProcess) {
+	if (child.exitCode !== null || child.signalCode !== null) return;
+	const exited = new Promise((resolveExit) => child.once('exit', resolveExit));
+	child.kill('SIGTERM');
+	await Promise.race([exited, new Promise((resolveWait) => setTimeout(resolveWait, 5000))]);
+}

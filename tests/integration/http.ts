@@ -34,7 +34,7 @@ export function newClient(address = `198.18.${randomInt(0, 255)}.${randomInt(1, 
 		async post(path: string, fields: Record<string, string> = {}) {
 			const response = await fetch(baseUrl + path, {
 				method: 'POST',
-				headers: headers({ 'content-type': 'application/x-www-form-urlencoded' }),
+				headers: headers({ 'content-type': 'application/x-www-form-urlencoded', accept: 'text/html' }),
 				body: new URLSearchParams(fields),
 				redirect: 'manual'
 			});

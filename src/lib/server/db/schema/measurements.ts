@@ -1,14 +1,5 @@
 import { sql } from 'drizzle-orm';
-import {
-	check,
-	jsonb,
-	pgEnum,
-	pgTable,
-	text,
-	timestamp,
-	unique,
-	uuid
-} from 'drizzle-orm/pg-core';
+import { check, jsonb, pgEnum, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
 import { user } from './auth';
 
 /** Who took the measurements: the wearer alone, someone helping them, or a tailor. */

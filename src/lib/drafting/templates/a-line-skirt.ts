@@ -1,0 +1,59 @@
+import { wearingEase } from '../ease';
+import { fitOf, fitOption, homeSeamAllowance, inch, lengthOption, need, num } from './common';
+import { skirtPiece, skirtShaping, skirtWaistband, type SkirtInput } from './skirt-common';
+import type { GarmentTemplate } from './types';
+
+export const aLineSkirt: GarmentTemplate = {
+	id: 'a-line-skirt',
+	name: 'A-line skirt',
+	summary: 'Flared from the hip: front on the fold, back in two with a centre-back zip, one dart a side, waistband.',
+	category: 'skirt',
+	requiredMeasurements: ['waist_girth', 'hip_girth', 'waist_to_hip'],
+	optionalMeasurements: [],
+	options: [
+		fitOption,
+		lengthOption('length', 'Finished length (waist seam to hem)', 600, [300, 1100]),
+		lengthOption('flare', 'Flare at each side seam', inch(2.5), [0, inch(8)], { help: 'Extra width at the hem on each side seam.' }),
+		lengthOption('seamAllowance', 'Seam allowance', homeSeamAllowance, [inch(0.25), inch(1.25)]),
+		lengthOption('hem', 'Hem allowance', inch(1), [inch(0.5), inch(3)]),
+		lengthOption('waistbandDepth', 'Finished waistband depth', inch(1.25), [inch(0.75), inch(3)]),
+		lengthOption('zipLength', 'Zip opening', inch(7), [inch(5), inch(10)])
+	],
+	defaultLabourHours: 4,
+	method: 'Quarter-hip skirt block with flare added at the side seam from the hip line (common practice); ease from CWU “Ease in Clothing”.',
+	draft(body, options) {
+		const ease = wearingEase[fitOf(options)];
+		const input: SkirtInput = {
+			waist: need(body, 'waist_girth'),
+			hip: need(body, 'hip_girth'),
+			waistToHip: need(body, 'waist_to_hip'),
+			length: num(options, 'length'),
+			waistEase: ease.skirtWaist,
+			hipEase: ease.hip,
+			seam: num(options, 'seamAllowance'),
+			// A curved hem turns up less cloth than a straight one: a narrower hem (common practice).
+			hem: num(options, 'hem'),
+			flare: num(options, 'flare'),
+			maxDartsPerQuarter: 1
+		};
+		const shaping = skirtShaping(input);
+		const extra = { zipLength: num(options, 'zipLength'), centreBackSeam: inch(1), slitLength: 0 };
+		return {
+			pieces: [
+				skirtPiece('front', input, shaping, extra),
+				skirtPiece('back', input, shaping, extra),
+				skirtWaistband(input.waist + input.waistEase, num(options, 'waistbandDepth'), input.seam, inch(1.5))
+			],
+			allowances: [
+				{ id: 'seam', label: 'Seam allowance', mm: input.seam },
+				{ id: 'centre_back', label: 'Centre back seam allowance (zip)', mm: extra.centreBackSeam },
+				{ id: 'hem', label: 'Hem allowance', mm: input.hem },
+				{ id: 'hip_ease', label: 'Hip ease (total)', mm: input.hipEase },
+				{ id: 'waist_ease', label: 'Waist ease (total)', mm: input.waistEase }
+			],
+			notes: ['Cut the front on the fold and the back as a pair.', 'The hem curves up at the side so the side seam and centre are the same length.'],
+			cautions: [],
+			warnings: []
+		};
+	}
+};

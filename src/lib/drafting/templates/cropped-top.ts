@@ -1,0 +1,215 @@
+import type { Finding } from '../checks';
+import { pt, quadCurve, type Point } from '../geometry';
+import type { DraftPiece, PieceLine, PieceMark } from '../pieces';
+import { fitOf, fitOption, inch, lengthOption, need, num } from './common';
+import type { Fit, GarmentTemplate } from './types';
+
+/*
+ * A working dressmaker's method for a cropped top with cut-in-one short sleeves and bust darts (common
+ * practice), in inches on the quarter bust. The fabric is folded in four, so one cut on the fold gives the
+ * front and another the back; the neckline is the same front and back and must pass over the head.
+ */
+
+/** Bust ease per quarter: "regular" is the method (4 in in all, McCunn's fitting ease with sleeves);
+ * "fitted" is 2 in in all, the top of the CWU "Ease in Clothing" bodice range; "relaxed" is common practice. */
+const bustEasePerQuarter: Record<Fit, number> = { fitted: inch(0.5), regular: inch(1), relaxed: inch(1.5) };
+
+const foldRoom = inch(7);
+const sleeveDrop = inch(1);
+const waistShaping = inch(1.5);
+const dartWidth = inch(1);
+const dartLength = inch(5);
+const sleeveHem = inch(1);
+/** Adult head girth is commonly 54–58 cm (from memory); an opening smaller than this will not go over. */
+const smallestHeadOpening = 560;
+
+export interface TopFigures {
+	quarterBust: number;
+	foldWidth: number;
+	neckWidth: number;
+	neckDepth: number;
+	shoulderPoint: number;
+	sleeveLength: number;
+	sleeveEnd: number;
+	sleeveOpening: number;
+	bustLineDepth: number;
+	bustWidth: number;
+	pieceLength: number;
+	finishedLength: number;
+	waistShapingDepth: number;
+	dartPosition: number;
+}
+
+export function topFigures(
+	body: { bust: number; shoulder: number; shoulderToBust: number; bustSpan: number },
+	o: { length: number; hem: number; seamAllowance: number; sleeveLength: number; sleeveOpening: number; neckWidth: number; neckDepth: number; fit: Fit }
+): TopFigures {
+	const quarterBust = body.bust / 4;
+	const shoulderPoint = body.shoulder / 2;
+	const bustWidth = quarterBust + bustEasePerQuarter[o.fit] + o.seamAllowance;
+	const sleeveLength = o.sleeveLength + o.seamAllowance;
+	return {
+		quarterBust,
+		foldWidth: quarterBust + foldRoom,
+		neckWidth: o.neckWidth,
+		neckDepth: o.neckDepth,
+		shoulderPoint,
+		sleeveLength,
+		sleeveEnd: shoulderPoint + sleeveLength,
+		sleeveOpening: o.sleeveOpening,
+		bustLineDepth: body.shoulderToBust,
+		bustWidth,
+		pieceLength: o.length + o.hem,
+		finishedLength: o.length,
+		waistShapingDepth: (body.shoulderToBust + o.length) / 2,
+		dartPosition: body.bustSpan / 2
+	};
+}
+
+function outlineOf(f: TopFigures): Point[] {
+	const neckPoint = pt(f.neckWidth, 0);
+	const centreNeck = pt(0, f.neckDepth);
+	const sleeveTop = pt(f.sleeveEnd, sleeveDrop);
+	const sleeveBottom = pt(f.sleeveEnd, sleeveDrop + f.sleeveOpening);
+	const underarmY = Math.max(f.bustLineDepth, sleeveBottom.y + inch(0.5));
+	const side = pt(f.bustWidth, underarmY);
+	return [
+		centreNeck,
+		...quadCurve(centreNeck, pt(f.neckWidth * 0.9, f.neckDepth * 0.95), neckPoint),
+		pt(f.shoulderPoint, 0),
+		sleeveTop,
+		sleeveBottom,
+		...quadCurve(sleeveBottom, pt(f.bustWidth, sleeveBottom.y), side),
+		pt(f.bustWidth - waistShaping, Math.max(f.waistShapingDepth, underarmY)),
+		pt(f.bustWidth, f.pieceLength),
+		pt(0, f.pieceLength)
+	];
+}
+
+function sharedLines(f: TopFigures): PieceLine[] {
+	return [
+		{ id: 'fold_width', label: 'Fold width needed', mm: f.foldWidth },
+		{ id: 'neck_width', label: 'Neck width from the fold', mm: f.neckWidth, dimension: { from: pt(0, -inch(0.6)), to: pt(f.neckWidth, -inch(0.6)) } },
+		{ id: 'neck_depth', label: 'Neck depth from the top', mm: f.neckDepth, dimension: { from: pt(inch(0.6), 0), to: pt(inch(0.6), f.neckDepth) } },
+		{ id: 'shoulder_point', label: 'Shoulder point from the fold', mm: f.shoulderPoint, dimension: { from: pt(0, -inch(1.4)), to: pt(f.shoulderPoint, -inch(1.4)) } },
+		{ id: 'sleeve_length', label: 'Sleeve beyond the shoulder point (with seam allowance)', mm: f.sleeveLength, dimension: { from: pt(f.shoulderPoint, -inch(0.6)), to: pt(f.sleeveEnd, -inch(0.6)) } },
+		{ id: 'sleeve_drop', label: 'Sleeve end drop (shoulder slope)', mm: sleeveDrop },
+		{ id: 'sleeve_opening', label: 'Sleeve opening', mm: f.sleeveOpening, dimension: { from: pt(f.sleeveEnd + inch(0.6), sleeveDrop), to: pt(f.sleeveEnd + inch(0.6), sleeveDrop + f.sleeveOpening) } },
+		{ id: 'sleeve_hem', label: 'Sleeve hem, turned twice', mm: sleeveHem },
+		{ id: 'bust_line_depth', label: 'Bust line depth', mm: f.bustLineDepth, dimension: { from: pt(-inch(0.8), 0), to: pt(-inch(0.8), f.bustLineDepth) } },
+		{ id: 'bust_width', label: 'Width at bust line', mm: f.bustWidth, dimension: { from: pt(0, f.bustLineDepth), to: pt(f.bustWidth, f.bustLineDepth) } },
+		{ id: 'hem_width', label: 'Width at hem', mm: f.bustWidth },
+		{ id: 'waist_shaping', label: 'Waist shaping in at the side', mm: waistShaping },
+		{ id: 'piece_length', label: 'Piece length with hem', mm: f.pieceLength, dimension: { from: pt(-inch(1.6), 0), to: pt(-inch(1.6), f.pieceLength) } }
+	];
+}
+
+function dartOf(f: TopFigures): { mark: PieceMark; lines: PieceLine[] } {
+	const apex = pt(f.dartPosition, f.finishedLength - dartLength);
+	return {
+		mark: {
+			kind: 'dart',
+			label: 'bust dart',
+			points: [pt(f.dartPosition - dartWidth / 2, f.pieceLength), apex, pt(f.dartPosition + dartWidth / 2, f.pieceLength)]
+		},
+		lines: [
+			{ id: 'dart_position', label: 'Dart centre from the fold', mm: f.dartPosition, dimension: { from: pt(0, f.pieceLength + inch(0.6)), to: pt(f.dartPosition, f.pieceLength + inch(0.6)) } },
+			{ id: 'dart_length', label: 'Dart length (up from the hemline)', mm: dartLength },
+			{ id: 'dart_width', label: 'Dart width (half each side of its centre)', mm: dartWidth }
+		]
+	};
+}
+
+function piece(id: 'front' | 'back', f: TopFigures): DraftPiece {
+	const dart = id === 'front' ? dartOf(f) : null;
+	return {
+		id,
+		label: id === 'front' ? 'Front' : 'Back',
+		cut: { quantity: 1, onFold: true, pair: false, grain: 'lengthwise' },
+		outline: outlineOf(f),
+		marks: [
+			{ kind: 'guide', points: [pt(0, f.bustLineDepth), pt(f.bustWidth, f.bustLineDepth)], label: 'bust line' },
+			{ kind: 'guide', points: [pt(0, f.finishedLength), pt(f.bustWidth, f.finishedLength)], label: 'hemline' },
+			...(dart ? [dart.mark] : [])
+		],
+		lines: [...sharedLines(f), ...(dart ? dart.lines : [])],
+		grainline: [pt(f.bustWidth * 0.6, f.bustLineDepth + inch(1)), pt(f.bustWidth * 0.6, f.pieceLength - inch(1.5))]
+	};
+}
+
+function topWarnings(f: TopFigures): Finding[] {
+	const warnings: Finding[] = [];
+	// Front and back necklines together make an ellipse with semi-axes neck width and neck depth.
+	const opening = 2 * Math.PI * Math.sqrt((f.neckWidth ** 2 + f.neckDepth ** 2) / 2);
+	if (opening < smallestHeadOpening) {
+		warnings.push({
+			code: 'option_out_of_range',
+			fields: ['neckWidth', 'neckDepth'],
+			message: 'The neckline may be too small to pass over the head; there is no fastening. Widen or deepen it.'
+		});
+	}
+	if (f.sleeveEnd < f.bustWidth + inch(1)) {
+		warnings.push({
+			code: 'unusual_relation',
+			fields: ['shoulder_width', 'bust_girth'],
+			message: 'The shoulders are narrow for this bust: the cut-in-one sleeve barely clears the body. Consider a longer sleeve.'
+		});
+	}
+	return warnings;
+}
+
+export const croppedTop: GarmentTemplate = {
+	id: 'cropped-top',
+	name: 'Cropped top with cut-in-one sleeves',
+	summary: 'Front and back cut on the fold from fabric folded in four; short cut-in-one sleeves and bust darts.',
+	category: 'top',
+	requiredMeasurements: ['bust_girth', 'shoulder_width', 'shoulder_to_bust_point', 'bust_point_span'],
+	optionalMeasurements: [],
+	options: [
+		fitOption,
+		lengthOption('length', 'Finished length (shoulder to hem)', inch(18), [inch(12), inch(30)]),
+		lengthOption('sleeveLength', 'Sleeve beyond the shoulder point', inch(6), [inch(2), inch(12)]),
+		lengthOption('sleeveOpening', 'Sleeve opening', inch(6), [inch(4), inch(10)], { help: 'More for a looser sleeve.' }),
+		lengthOption('neckWidth', 'Neck width from the fold', inch(4), [inch(2.5), inch(6)]),
+		lengthOption('neckDepth', 'Neck depth', inch(4), [inch(2), inch(8)]),
+		lengthOption('seamAllowance', 'Seam allowance', inch(1), [inch(0.25), inch(1.5)]),
+		lengthOption('hem', 'Hem allowance', inch(1), [inch(0.5), inch(3)])
+	],
+	defaultLabourHours: 4,
+	method: 'A working dressmaker’s quarter-bust method (common practice), as taught in inches.',
+	draft(body, options) {
+		const f = topFigures(
+			{
+				bust: need(body, 'bust_girth'),
+				shoulder: need(body, 'shoulder_width'),
+				shoulderToBust: need(body, 'shoulder_to_bust_point'),
+				bustSpan: need(body, 'bust_point_span')
+			},
+			{
+				fit: fitOf(options),
+				length: num(options, 'length'),
+				hem: num(options, 'hem'),
+				seamAllowance: num(options, 'seamAllowance'),
+				sleeveLength: num(options, 'sleeveLength'),
+				sleeveOpening: num(options, 'sleeveOpening'),
+				neckWidth: num(options, 'neckWidth'),
+				neckDepth: num(options, 'neckDepth')
+			}
+		);
+		return {
+			pieces: [piece('front', f), piece('back', f)],
+			allowances: [
+				{ id: 'seam', label: 'Seam allowance (included in widths)', mm: num(options, 'seamAllowance') },
+				{ id: 'hem', label: 'Hem allowance', mm: num(options, 'hem') },
+				{ id: 'sleeve_hem', label: 'Sleeve hem, turned twice', mm: sleeveHem }
+			],
+			notes: [
+				'Fold the fabric in four; cut front and back each with the centre on a fold.',
+				'Mark the bust darts on the front only.',
+				'No fastening: check the neckline passes over the head before cutting.'
+			],
+			cautions: [],
+			warnings: topWarnings(f)
+		};
+	}
+};

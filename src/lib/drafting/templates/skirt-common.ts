@@ -1,0 +1,140 @@
+import { pt, quadCurve, type Point } from '../geometry';
+import type { DraftPiece, PieceLine, PieceMark } from '../pieces';
+import { inch } from './common';
+
+/*
+ * A skirt drafted on quarters of hip and waist, the usual block construction (common practice): a rectangle
+ * a quarter hip wide, waist suppression shared between the side seam and darts, the side waist raised
+ * ½ in over the hip curve. The A-line adds flare at the side seam from the hip line down.
+ */
+
+/** Most a single dart should take in; more than this puckers (common practice, 1.5–3 cm darts). */
+const maxDartIntake = 30;
+const sideRaise = inch(0.5);
+export const frontDartLength = inch(3.5);
+export const backDartLength = inch(5.5);
+
+export interface SkirtInput {
+	waist: number;
+	hip: number;
+	waistToHip: number;
+	length: number;
+	waistEase: number;
+	hipEase: number;
+	seam: number;
+	hem: number;
+	/** Extra width at the hem on each side seam (0 for a straight skirt). */
+	flare: number;
+	maxDartsPerQuarter: 1 | 2;
+}
+
+export interface SkirtShaping {
+	quarterHip: number;
+	quarterWaist: number;
+	sideShaping: number;
+	dartCount: number;
+	dartIntake: number;
+}
+
+/** Side seam takes up to half the suppression (at most 1 in); darts the rest; any excess back to the side. */
+export function skirtShaping(input: Pick<SkirtInput, 'waist' | 'hip' | 'waistEase' | 'hipEase' | 'maxDartsPerQuarter'>): SkirtShaping {
+	const quarterHip = (input.hip + input.hipEase) / 4;
+	const quarterWaist = (input.waist + input.waistEase) / 4;
+	const suppression = Math.max(quarterHip - quarterWaist, 0);
+	let sideShaping = Math.min(suppression / 2, inch(1));
+	let rest = suppression - sideShaping;
+	const dartCount = rest <= 0.5 ? 0 : rest <= maxDartIntake ? 1 : input.maxDartsPerQuarter;
+	let dartIntake = dartCount ? rest / dartCount : 0;
+	if (dartIntake > maxDartIntake) {
+		sideShaping += (dartIntake - maxDartIntake) * dartCount;
+		dartIntake = maxDartIntake;
+		rest = dartIntake * dartCount;
+	}
+	return { quarterHip, quarterWaist, sideShaping, dartCount, dartIntake };
+}
+
+export function skirtPiece(which: 'front' | 'back', input: SkirtInput, shaping: SkirtShaping, extra: { zipLength: number; centreBackSeam: number; slitLength: number }): DraftPiece {
+	const { quarterHip: q, sideShaping, dartCount, dartIntake } = shaping;
+	const s = input.seam;
+	const hemY = input.length + input.hem;
+	const d = input.length - input.waistToHip;
+	const flareRaise = input.flare > 0 ? Math.hypot(d, input.flare) - d : 0;
+	const sideWaist = pt(q - sideShaping + s, -sideRaise - s);
+	const sideHip = pt(q + s, input.waistToHip);
+	const sideHem = pt(q + s + input.flare, hemY - flareRaise);
+	const centreX = which === 'back' ? -extra.centreBackSeam : 0;
+	const outline: Point[] = [
+		pt(centreX, -s),
+		sideWaist,
+		...quadCurve(sideWaist, pt(q + s, input.waistToHip * 0.35), sideHip),
+		sideHem,
+		...quadCurve(sideHem, pt((q + s + input.flare) * 0.5, hemY), pt(0, hemY)).slice(0, -1),
+		pt(centreX, hemY)
+	];
+	const dartLength = which === 'front' ? frontDartLength : backDartLength;
+	const darts = dartPositions(q - sideShaping, dartCount).map<PieceMark>((x) => ({
+		kind: 'dart',
+		label: 'dart',
+		points: [pt(x - dartIntake / 2, 0), pt(x, dartLength), pt(x + dartIntake / 2, 0)]
+	}));
+	const marks: PieceMark[] = [{ kind: 'guide', points: [pt(0, input.waistToHip), pt(q + s, input.waistToHip)], label: 'hip line' }, ...darts];
+	if (which === 'back') {
+		marks.push({ kind: 'zip', points: [pt(0, 0), pt(0, extra.zipLength)], label: 'zip' });
+		if (extra.slitLength > 0) marks.push({ kind: 'slit', points: [pt(0, input.length - extra.slitLength), pt(0, input.length)], label: 'slit' });
+	}
+	const lines: PieceLine[] = [
+		{ id: 'hip_width', label: 'Width at hip line (with side seam)', mm: q + s, dimension: { from: pt(0, input.waistToHip), to: sideHip } },
+		{ id: 'waist_width', label: 'Finished quarter waist', mm: shaping.quarterWaist },
+		{ id: 'hip_depth', label: 'Waist to hip line', mm: input.waistToHip, dimension: { from: pt(q + s + inch(0.8) + input.flare, 0), to: pt(q + s + inch(0.8) + input.flare, input.waistToHip) } },
+		{ id: 'side_shaping', label: 'Side seam shaping at waist', mm: sideShaping },
+		{ id: 'side_raise', label: 'Side waist raised', mm: sideRaise },
+		{ id: 'dart_intake', label: dartCount === 2 ? 'Intake per dart (two darts)' : 'Intake per dart', mm: dartIntake },
+		{ id: 'dart_length', label: 'Dart length', mm: dartCount ? dartLength : 0 },
+		{ id: 'length', label: 'Finished length (waist seam to hem)', mm: input.length },
+		{ id: 'piece_length', label: 'Piece length with seam and hem', mm: hemY + s, dimension: { from: pt(-inch(0.8) + centreX, -s), to: pt(-inch(0.8) + centreX, hemY) } }
+	];
+	if (input.flare > 0) {
+		lines.push({ id: 'hem_width', label: 'Width at hem', mm: q + s + input.flare, dimension: { from: pt(0, hemY), to: sideHem } });
+		lines.push({ id: 'flare', label: 'Flare at side seam', mm: input.flare });
+	}
+	if (which === 'back') {
+		lines.push({ id: 'zip_length', label: 'Zip opening', mm: extra.zipLength });
+		lines.push({ id: 'centre_back_seam', label: 'Centre back seam allowance', mm: extra.centreBackSeam });
+		if (extra.slitLength > 0) lines.push({ id: 'slit_length', label: 'Walking slit', mm: extra.slitLength });
+	}
+	const grainX = (q + s) * 0.55;
+	return {
+		id: which,
+		label: which === 'front' ? 'Front' : 'Back',
+		cut: which === 'front' ? { quantity: 1, onFold: true, pair: false, grain: 'lengthwise' } : { quantity: 2, onFold: false, pair: true, grain: 'lengthwise' },
+		outline,
+		marks,
+		lines,
+		grainline: [pt(grainX, input.waistToHip + inch(1)), pt(grainX, input.length - inch(2))]
+	};
+}
+
+function dartPositions(waistToSide: number, count: number): number[] {
+	if (count === 0) return [];
+	if (count === 1) return [waistToSide * 0.45];
+	return [waistToSide * 0.35, waistToSide * 0.65];
+}
+
+export function skirtWaistband(finishedWaist: number, depth: number, seam: number, overlap: number): DraftPiece {
+	const w = 2 * depth + 2 * seam;
+	const h = finishedWaist + overlap + 2 * seam;
+	return {
+		id: 'waistband',
+		label: 'Waistband',
+		cut: { quantity: 1, onFold: false, pair: false, grain: 'lengthwise' },
+		outline: [pt(0, 0), pt(w, 0), pt(w, h), pt(0, h)],
+		marks: [{ kind: 'fold', points: [pt(w / 2, 0), pt(w / 2, h)], label: 'fold' }],
+		lines: [
+			{ id: 'cut_width', label: 'Cut width', mm: w, dimension: { from: pt(0, h), to: pt(w, h) } },
+			{ id: 'finished_depth', label: 'Finished depth', mm: depth },
+			{ id: 'length', label: 'Cut length (waist + ease + overlap + seams)', mm: h, dimension: { from: pt(-inch(0.6), 0), to: pt(-inch(0.6), h) } },
+			{ id: 'overlap', label: 'Overlap', mm: overlap }
+		],
+		grainline: [pt(w * 0.7, inch(2)), pt(w * 0.7, h - inch(2))]
+	};
+}

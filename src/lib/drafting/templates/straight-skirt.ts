@@ -1,0 +1,61 @@
+import { wearingEase } from '../ease';
+import { fitOf, fitOption, homeSeamAllowance, inch, lengthOption, need, num } from './common';
+import { skirtPiece, skirtShaping, skirtWaistband, type SkirtInput } from './skirt-common';
+import type { GarmentTemplate } from './types';
+
+export const straightSkirt: GarmentTemplate = {
+	id: 'straight-skirt',
+	name: 'Straight skirt',
+	summary: 'Front on the fold, back in two with a centre-back zip and walking slit, waist darts and a waistband.',
+	category: 'skirt',
+	requiredMeasurements: ['waist_girth', 'hip_girth', 'waist_to_hip'],
+	optionalMeasurements: [],
+	options: [
+		fitOption,
+		lengthOption('length', 'Finished length (waist seam to hem)', 600, [300, 1100]),
+		lengthOption('seamAllowance', 'Seam allowance', homeSeamAllowance, [inch(0.25), inch(1.25)]),
+		lengthOption('hem', 'Hem allowance', inch(1.5), [inch(0.5), inch(3)]),
+		lengthOption('waistbandDepth', 'Finished waistband depth', inch(1.25), [inch(0.75), inch(3)]),
+		lengthOption('zipLength', 'Zip opening', inch(7), [inch(5), inch(10)]),
+		lengthOption('slitLength', 'Walking slit at centre back', inch(6), [0, inch(12)])
+	],
+	defaultLabourHours: 5,
+	method: 'Quarter-hip skirt block with waist darts (common practice); wearing ease from CWU “Ease in Clothing” (hip 2–2¾ in, skirt waist ½–¾ in).',
+	draft(body, options) {
+		const ease = wearingEase[fitOf(options)];
+		const input: SkirtInput = {
+			waist: need(body, 'waist_girth'),
+			hip: need(body, 'hip_girth'),
+			waistToHip: need(body, 'waist_to_hip'),
+			length: num(options, 'length'),
+			waistEase: ease.skirtWaist,
+			hipEase: ease.hip,
+			seam: num(options, 'seamAllowance'),
+			hem: num(options, 'hem'),
+			flare: 0,
+			maxDartsPerQuarter: 2
+		};
+		const shaping = skirtShaping(input);
+		// Centre back carries a wider allowance for the zip: up to 1 in where fitting room is needed (industry practice).
+		const extra = { zipLength: num(options, 'zipLength'), centreBackSeam: inch(1), slitLength: num(options, 'slitLength') };
+		const overlap = inch(1.5);
+		return {
+			pieces: [
+				skirtPiece('front', input, shaping, extra),
+				skirtPiece('back', input, shaping, extra),
+				skirtWaistband(input.waist + input.waistEase, num(options, 'waistbandDepth'), input.seam, overlap)
+			],
+			allowances: [
+				{ id: 'seam', label: 'Seam allowance', mm: input.seam },
+				{ id: 'centre_back', label: 'Centre back seam allowance (zip)', mm: extra.centreBackSeam },
+				{ id: 'hem', label: 'Hem allowance', mm: input.hem },
+				{ id: 'hip_ease', label: 'Hip ease (total)', mm: input.hipEase },
+				{ id: 'waist_ease', label: 'Waist ease (total)', mm: input.waistEase },
+				{ id: 'waistband_depth', label: 'Finished waistband depth', mm: num(options, 'waistbandDepth') }
+			],
+			notes: ['Cut the front on the fold and the back as a pair.', 'Leave the centre back open for the zip at the top and the slit at the hem.'],
+			cautions: [],
+			warnings: []
+		};
+	}
+};

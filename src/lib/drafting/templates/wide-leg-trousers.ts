@@ -1,0 +1,253 @@
+import { distance, offsetSegment, pt, quadCurve, type Point } from '../geometry';
+import type { DraftPiece } from '../pieces';
+import { fitOf, fitOption, inch, lengthOption, need, num } from './common';
+import type { Fit, GarmentTemplate } from './types';
+
+/*
+ * A working dressmaker's method for high-waisted wide-leg trousers (common practice), worked in inches on
+ * quarters of the girth. Every depth is measured down from the waist seam, after the finished waistband
+ * depth has been taken off the top. Widths include one seam allowance, as the method does.
+ */
+
+/** Ease added to each quarter. "regular" is the method itself; the other fits are common-practice variations. */
+const easePerQuarter: Record<Fit, { waist: number; hip: number }> = {
+	fitted: { waist: inch(0.5), hip: 0 },
+	regular: { waist: inch(1), hip: 0 },
+	relaxed: { waist: inch(1.5), hip: inch(0.5) }
+};
+
+const hipToCrotch = inch(1);
+const crotchToThigh = inch(2.5);
+const foldRoom = inch(6);
+const centreFrontDrop = inch(1);
+const backExtensionExtra = inch(2);
+const backWaistIn = inch(1);
+const backWaistRaise = inch(1.5);
+
+export interface TrouserFigures {
+	quarterHip: number;
+	hipLineDepth: number;
+	crotchDepth: number;
+	thighLineDepth: number;
+	hipWidth: number;
+	frontCrotchExtension: number;
+	backCrotchExtension: number;
+	waistWidth: number;
+	thighWidth: number;
+	legLength: number;
+	foldWidth: number;
+	waistbandCutWidth: number;
+	waistbandLength: number;
+}
+
+export function trouserFigures(
+	body: { hip: number; waist: number; thigh: number },
+	o: { length: number; waistbandDepth: number; seamAllowance: number; hem: number; crotchEase: number; waistbandSeam: number; overlap: number; fit: Fit }
+): TrouserFigures {
+	const ease = easePerQuarter[o.fit];
+	const quarterHip = body.hip / 4;
+	const hipLineDepth = quarterHip;
+	const crotchDepth = hipLineDepth + hipToCrotch + o.crotchEase;
+	const frontCrotchExtension = quarterHip / 4;
+	return {
+		quarterHip,
+		hipLineDepth,
+		crotchDepth,
+		thighLineDepth: crotchDepth + crotchToThigh,
+		hipWidth: quarterHip + ease.hip + o.seamAllowance,
+		frontCrotchExtension,
+		backCrotchExtension: frontCrotchExtension + backExtensionExtra,
+		waistWidth: body.waist / 4 + ease.waist + o.seamAllowance,
+		thighWidth: (body.thigh + o.seamAllowance) / 2,
+		legLength: o.length - o.waistbandDepth + o.hem,
+		foldWidth: quarterHip + ease.hip + foldRoom,
+		waistbandCutWidth: 2 * o.waistbandDepth + 2 * o.waistbandSeam,
+		waistbandLength: body.waist + o.overlap + 2 * o.waistbandSeam
+	};
+}
+
+function frontPiece(f: TrouserFigures): DraftPiece {
+	const sideWaist = pt(f.hipWidth - f.waistWidth, 0);
+	const centreWaist = pt(f.hipWidth, centreFrontDrop);
+	const centreHip = pt(f.hipWidth, f.hipLineDepth);
+	const crotchPoint = pt(f.hipWidth + f.frontCrotchExtension, f.crotchDepth);
+	const legCentre = crotchPoint.x / 2;
+	const inThigh = pt(legCentre + f.thighWidth / 2, f.thighLineDepth);
+	const outThigh = pt(legCentre - f.thighWidth / 2, f.thighLineDepth);
+	const sideHip = pt(0, f.hipLineDepth);
+	const outline: Point[] = [
+		sideWaist,
+		centreWaist,
+		centreHip,
+		...quadCurve(centreHip, pt(f.hipWidth, f.crotchDepth), crotchPoint),
+		inThigh,
+		pt(inThigh.x, f.legLength),
+		pt(outThigh.x, f.legLength),
+		outThigh,
+		pt(0, f.crotchDepth),
+		sideHip,
+		...quadCurve(sideHip, pt(0, f.hipLineDepth * 0.35), sideWaist)
+	];
+	const depthAt = (step: number) => -inch(0.9) * step;
+	return {
+		id: 'front',
+		label: 'Front',
+		cut: { quantity: 2, onFold: false, pair: true, grain: 'lengthwise' },
+		outline,
+		marks: [
+			guide('hip line', 0, f.hipWidth, f.hipLineDepth),
+			guide('crotch line', 0, crotchPoint.x, f.crotchDepth),
+			guide('thigh line', outThigh.x, inThigh.x, f.thighLineDepth)
+		],
+		lines: [
+			{ id: 'fold_width', label: 'Fold width needed (fabric folded double)', mm: f.foldWidth },
+			{ id: 'hip_line_depth', label: 'Hip line depth', mm: f.hipLineDepth, dimension: { from: pt(depthAt(1), 0), to: pt(depthAt(1), f.hipLineDepth) } },
+			{ id: 'crotch_depth', label: 'Crotch depth', mm: f.crotchDepth, dimension: { from: pt(depthAt(2), 0), to: pt(depthAt(2), f.crotchDepth) } },
+			{ id: 'thigh_line_depth', label: 'Thigh line depth', mm: f.thighLineDepth, dimension: { from: pt(depthAt(3), 0), to: pt(depthAt(3), f.thighLineDepth) } },
+			{ id: 'hip_width', label: 'Width at hip line', mm: f.hipWidth, dimension: { from: sideHip, to: centreHip } },
+			{ id: 'crotch_extension', label: 'Crotch extension', mm: f.frontCrotchExtension, dimension: { from: pt(f.hipWidth, f.crotchDepth), to: crotchPoint } },
+			{ id: 'waist_width', label: 'Waist width', mm: f.waistWidth, dimension: { from: sideWaist, to: pt(f.hipWidth, 0) } },
+			{ id: 'centre_front_drop', label: 'Centre front lowered', mm: centreFrontDrop },
+			{ id: 'thigh_width', label: 'Thigh width (half each side of the centre line)', mm: f.thighWidth, dimension: { from: outThigh, to: inThigh } },
+			{ id: 'leg_length', label: 'Leg length with hem', mm: f.legLength, dimension: { from: pt(depthAt(4), 0), to: pt(depthAt(4), f.legLength) } }
+		],
+		grainline: [pt(legCentre, f.thighLineDepth + inch(2)), pt(legCentre, f.legLength - inch(4))]
+	};
+}
+
+function backPiece(f: TrouserFigures, zip: { length: number; width: number }): DraftPiece {
+	const centreWaist = pt(f.hipWidth - backWaistIn, -backWaistRaise);
+	const run = Math.sqrt(Math.max(f.waistWidth ** 2 - backWaistRaise ** 2, 0));
+	const sideWaist = pt(centreWaist.x - run, 0);
+	const centreHip = pt(f.hipWidth, f.hipLineDepth);
+	const crotchPoint = pt(f.hipWidth + f.backCrotchExtension, f.crotchDepth);
+	const legCentre = crotchPoint.x / 2;
+	const inThigh = pt(legCentre + f.thighWidth / 2, f.thighLineDepth);
+	const outThigh = pt(legCentre - f.thighWidth / 2, f.thighLineDepth);
+	const sideHip = pt(0, f.hipLineDepth);
+	const zipEnd = alongSegment(centreWaist, centreHip, zip.length);
+	const [zipTop, zipBottom] = offsetSegment(centreWaist, zipEnd, zip.width);
+	const outline: Point[] = [
+		sideWaist,
+		centreWaist,
+		zipTop,
+		zipBottom,
+		zipEnd,
+		centreHip,
+		...quadCurve(centreHip, pt(f.hipWidth, f.crotchDepth), crotchPoint),
+		inThigh,
+		pt(inThigh.x, f.legLength),
+		pt(outThigh.x, f.legLength),
+		outThigh,
+		pt(0, f.crotchDepth),
+		sideHip,
+		...quadCurve(sideHip, pt(0, f.hipLineDepth * 0.35), sideWaist)
+	];
+	return {
+		id: 'back',
+		label: 'Back',
+		cut: { quantity: 2, onFold: false, pair: true, grain: 'lengthwise' },
+		outline,
+		marks: [
+			guide('hip line', 0, f.hipWidth, f.hipLineDepth),
+			guide('crotch line', 0, crotchPoint.x, f.crotchDepth),
+			{ kind: 'zip', points: [centreWaist, zipEnd], label: 'zip' }
+		],
+		lines: [
+			{ id: 'hip_width', label: 'Width at hip line', mm: f.hipWidth, dimension: { from: sideHip, to: centreHip } },
+			{ id: 'crotch_depth', label: 'Crotch depth', mm: f.crotchDepth },
+			{ id: 'crotch_extension', label: 'Crotch extension', mm: f.backCrotchExtension, dimension: { from: pt(f.hipWidth, f.crotchDepth), to: crotchPoint } },
+			{ id: 'waist_in', label: 'Centre back waist in from centre back', mm: backWaistIn },
+			{ id: 'waist_raise', label: 'Back waist raised', mm: backWaistRaise },
+			{ id: 'waist_width', label: 'Waist width (on the slant)', mm: distance(sideWaist, centreWaist), dimension: { from: sideWaist, to: centreWaist } },
+			{ id: 'thigh_width', label: 'Thigh width', mm: f.thighWidth, dimension: { from: outThigh, to: inThigh } },
+			{ id: 'leg_length', label: 'Leg length with hem (from the waist line)', mm: f.legLength },
+			{ id: 'zip_allowance_length', label: 'Zip allowance length', mm: zip.length },
+			{ id: 'zip_allowance_width', label: 'Zip allowance width', mm: zip.width }
+		],
+		grainline: [pt(legCentre, f.thighLineDepth + inch(2)), pt(legCentre, f.legLength - inch(4))]
+	};
+}
+
+function waistbandPiece(f: TrouserFigures, depth: number, seam: number, overlap: number): DraftPiece {
+	const w = f.waistbandCutWidth;
+	const h = f.waistbandLength;
+	return {
+		id: 'waistband',
+		label: 'Waistband',
+		cut: { quantity: 1, onFold: false, pair: false, grain: 'lengthwise' },
+		outline: [pt(0, 0), pt(w, 0), pt(w, h), pt(0, h)],
+		marks: [{ kind: 'fold', points: [pt(w / 2, 0), pt(w / 2, h)], label: 'fold' }],
+		lines: [
+			{ id: 'cut_width', label: 'Cut width', mm: w, dimension: { from: pt(0, h), to: pt(w, h) } },
+			{ id: 'finished_depth', label: 'Finished depth', mm: depth },
+			{ id: 'length', label: 'Cut length (waist + overlap + seams)', mm: h, dimension: { from: pt(-inch(0.6), 0), to: pt(-inch(0.6), h) } },
+			{ id: 'overlap', label: 'Overlap', mm: overlap },
+			{ id: 'seam_allowance', label: 'Seam allowance', mm: seam }
+		],
+		grainline: [pt(w / 2 + w / 5, inch(2)), pt(w / 2 + w / 5, h - inch(2))]
+	};
+}
+
+function guide(label: string, x0: number, x1: number, y: number) {
+	return { kind: 'guide' as const, points: [pt(x0, y), pt(x1, y)], label };
+}
+
+function alongSegment(a: Point, b: Point, length: number): Point {
+	const t = Math.min(length / distance(a, b), 1);
+	return pt(a.x + (b.x - a.x) * t, a.y + (b.y - a.y) * t);
+}
+
+export const wideLegTrousers: GarmentTemplate = {
+	id: 'wide-leg-trousers',
+	name: 'Wide-leg high-waisted trousers',
+	summary: 'Front, back and a separate waistband, with a centre-back zip.',
+	category: 'trousers',
+	requiredMeasurements: ['hip_girth', 'waist_girth', 'thigh_girth'],
+	optionalMeasurements: ['waist_to_floor'],
+	options: [
+		fitOption,
+		lengthOption('length', 'Finished length (top of waistband to hem)', null, [inch(20), inch(60)], { defaultFrom: 'waist_to_floor' }),
+		lengthOption('waistbandDepth', 'Finished waistband depth', inch(1.5), [inch(0.75), inch(4)]),
+		lengthOption('crotchEase', 'Crotch ease', inch(0.5), [inch(0.5), inch(1)]),
+		lengthOption('seamAllowance', 'Seam allowance', inch(1), [inch(0.25), inch(1.5)]),
+		lengthOption('hem', 'Hem allowance', inch(2), [inch(0.5), inch(4)]),
+		lengthOption('waistbandSeam', 'Waistband seam allowance', inch(0.5), [inch(0.25), inch(1)]),
+		lengthOption('overlap', 'Waistband overlap', inch(1.5), [0, inch(3)]),
+		lengthOption('zipLength', 'Zip allowance length', inch(10), [inch(6), inch(14)])
+	],
+	defaultLabourHours: 8,
+	method: 'A working dressmaker’s quarter-hip method (common practice), as taught in inches.',
+	draft(body, options) {
+		const o = {
+			fit: fitOf(options),
+			length: num(options, 'length'),
+			waistbandDepth: num(options, 'waistbandDepth'),
+			seamAllowance: num(options, 'seamAllowance'),
+			hem: num(options, 'hem'),
+			crotchEase: num(options, 'crotchEase'),
+			waistbandSeam: num(options, 'waistbandSeam'),
+			overlap: num(options, 'overlap')
+		};
+		const f = trouserFigures({ hip: need(body, 'hip_girth'), waist: need(body, 'waist_girth'), thigh: need(body, 'thigh_girth') }, o);
+		const zip = { length: num(options, 'zipLength'), width: inch(1) };
+		return {
+			pieces: [frontPiece(f), backPiece(f, zip), waistbandPiece(f, o.waistbandDepth, o.waistbandSeam, o.overlap)],
+			allowances: [
+				{ id: 'seam', label: 'Seam allowance (included in widths)', mm: o.seamAllowance },
+				{ id: 'hem', label: 'Hem allowance', mm: o.hem },
+				{ id: 'waistband_depth', label: 'Finished waistband depth', mm: o.waistbandDepth },
+				{ id: 'waistband_seam', label: 'Waistband seam allowance', mm: o.waistbandSeam },
+				{ id: 'crotch_ease', label: 'Crotch ease', mm: o.crotchEase },
+				{ id: 'zip', label: 'Centre-back zip allowance (length)', mm: zip.length }
+			],
+			notes: [
+				'Fold the fabric double and cut front and back as pairs.',
+				'Mark the hip, crotch and thigh lines; the wide leg keeps the thigh width down to the hem.',
+				'Widths include one seam allowance at the side seam, as the method does.'
+			],
+			cautions: [],
+			warnings: []
+		};
+	}
+};

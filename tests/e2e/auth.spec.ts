@@ -1,0 +1,74 @@
+import { expect, test, type Page } from '@playwright/test';
+
+function uniqueEmail(prefix: string) {
+	return `${prefix}.${Date.now().toString(36)}${Math.floor(Math.random() * 1e4)}@example.test`;
+}
+
+async function signInWithPassword(page: Page, email: string, password: string) {
+	await page.goto('/sign-in');
+	const form = page.getByRole('region', { name: 'With your password' });
+	await form.getByLabel('Email address').fill(email);
+	await form.getByLabel('Password').fill(password);
+	await form.getByRole('button', { name: 'Sign in' }).click();
+}
+
+async function signOut(page: Page) {
+	const button = page.getByRole('button', { name: 'Sign out' });
+	if (!(await button.isVisible())) await page.getByRole('button', { name: /account|menu/i }).first().click();
+	await page.getByRole('button', { name: 'Sign out' }).click();
+	await expect(page.getByRole('link', { name: 'Sign in' }).first()).toBeVisible();
+}
+
+test('a customer signs up, signs out and signs back in', async ({ page }) => {
+	const email = uniqueEmail('mira');
+	await page.goto('/sign-up?role=customer');
+	await page.getByLabel('Your name').fill('Mira Vantongeren');
+	await page.getByLabel('Email address').fill('customer@tackline.test');
+	await page.getByLabel('Password').fill('a long enough password');
+	await page.getByRole('button', { name: /create account/i }).click();
+	await expect(page.getByText(/An account with this email address already exists/)).toBeVisible();
+	await expect(page.getByLabel('Your name')).toHaveValue('Mira Vantongeren');
+	await expect(page.getByLabel('Email address')).toHaveAttribute('aria-invalid', 'true');
+
+	await page.getByLabel('Email address').fill(email);
+	await page.getByLabel('Password').fill('a long enough password');
+	await page.getByRole('button', { name: /create account/i }).click();
+	await expect(page).toHaveURL(/\/commissions/);
+	await expect(page.getByRole('heading', { level: 1 })).toHaveText('My commissions');
+	await expect(page.getByRole('main')).toContainText('Mira');
+
+	await signOut(page);
+	await signInWithPassword(page, email, 'a long enough password');
+	await expect(page).toHaveURL(/\/commissions$/);
+});
+
+test('an emailed sign-in link from the dev inbox signs the customer in', async ({ page }) => {
+	await page.goto('/sign-in');
+	const linkForm = page.getByRole('region', { name: 'With a link, no password' });
+	await linkForm.getByLabel('Email address').fill('customer@tackline.test');
+	await linkForm.getByRole('button', { name: /email me/i }).click();
+	await expect(page.getByText('Check your inbox')).toBeVisible();
+
+	await page.goto('/dev/inbox');
+	await page.getByRole('link', { name: /Your Tackline sign-in link/ }).first().click();
+	await expect(page).toHaveURL(/\/dev\/inbox\/[a-z0-9-]+$/);
+	await expect(page.getByRole('definition').filter({ hasText: 'customer@tackline.test' })).toBeVisible();
+	await page.getByRole('link', { name: /\/auth\/callback\/nodemailer/ }).click();
+	await expect(page).toHaveURL(/\/commissions$/);
+});
+
+test('a customer is kept out of the tailor workroom', async ({ page }) => {
+	await signInWithPassword(page, 'customer@tackline.test', 'tackline-demo');
+	await expect(page).toHaveURL(/\/commissions$/);
+	const response = await page.goto('/workroom');
+	expect(response?.status()).toBe(403);
+	await expect(page.getByRole('heading', { level: 1 })).toBeVisible();
+	await expect(page.getByText('This area is not part of your account.')).toBeVisible();
+});
+
+test('the admin reaches the resolution desk', async ({ page }) => {
+	await signInWithPassword(page, 'admin@tackline.test', 'tackline-demo');
+	await expect(page).toHaveURL(/\/desk$/);
+	await expect(page.getByRole('heading', { level: 1 })).toBeVisible();
+	expect((await page.goto('/commissions'))?.status()).toBe(403);
+});
