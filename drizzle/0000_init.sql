@@ -66,7 +66,7 @@ CREATE TABLE "user" (
 	"time_zone" text DEFAULT 'UTC' NOT NULL,
 	"suspended_at" timestamp with time zone,
 	"suspended_reason" text,
-	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
+	"created_at" timestamp (3) with time zone DEFAULT now() NOT NULL,
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL,
 	CONSTRAINT "user_email_unique" UNIQUE("email")
 );
@@ -405,6 +405,7 @@ CREATE INDEX "sign_in_attempt_email_idx" ON "sign_in_attempt" USING btree ("emai
 CREATE INDEX "sign_in_attempt_ip_idx" ON "sign_in_attempt" USING btree ("ip","created_at");--> statement-breakpoint
 CREATE INDEX "user_role_idx" ON "user" USING btree ("role");--> statement-breakpoint
 CREATE INDEX "user_email_lower_idx" ON "user" USING btree (lower("email"));--> statement-breakpoint
+CREATE INDEX "user_created_idx" ON "user" USING btree ("created_at","id");--> statement-breakpoint
 CREATE INDEX "commission_status_published_idx" ON "commission" USING btree ("status","published_at","id");--> statement-breakpoint
 CREATE INDEX "commission_garment_status_idx" ON "commission" USING btree ("garment_type","status","published_at");--> statement-breakpoint
 CREATE INDEX "commission_city_status_idx" ON "commission" USING btree ("city","district","status");--> statement-breakpoint

@@ -13,8 +13,7 @@ async function signInWithPassword(page: Page, email: string, password: string) {
 }
 
 async function signOut(page: Page) {
-	const button = page.getByRole('button', { name: 'Sign out' });
-	if (!(await button.isVisible())) await page.getByRole('button', { name: /account|menu/i }).first().click();
+	await page.locator('summary', { hasText: 'account menu' }).click();
 	await page.getByRole('button', { name: 'Sign out' }).click();
 	await expect(page.getByRole('link', { name: 'Sign in' }).first()).toBeVisible();
 }

@@ -1,6 +1,6 @@
 import { eq } from 'drizzle-orm';
 import { afterAll, describe, expect, it } from 'vitest';
-import { user } from '../../src/lib/server/db/schema';
+import { auditEvent, user } from '../../src/lib/server/db/schema';
 import { testDb } from './db';
 import { newClient, signIn, signUp, uniqueEmail } from './http';
 
@@ -93,6 +93,40 @@ describe('suspension', () => {
 		const again = await signIn(newClient(), email, 'suspend me please');
 		expect(again.status).toBe(403);
 		expect(await again.text()).toContain('This account is suspended');
+	});
+});
+
+describe('suspension from the resolution desk', () => {
+	it('lets an admin suspend and reinstate an account, with a reason and an audit trail', async () => {
+		const email = uniqueEmail('rulebreaker');
+		const member = newClient();
+		await signUp(member, { email, role: 'tailor', password: 'rule breaker pw' });
+		const [target] = await db.select({ id: user.id }).from(user).where(eq(user.email, email));
+
+		const admin = newClient();
+		await signIn(admin, 'admin@tackline.test', 'tackline-demo');
+		const missingReason = await admin.post('/desk/users?/suspend', { userId: target.id, reason: '' });
+		expect(missingReason.status).toBe(400);
+		expect(await missingReason.text()).toContain('Say briefly why');
+
+		expect((await admin.post('/desk/users?/suspend', { userId: target.id, reason: 'Asked customers to pay outside Tackline' })).status).toBe(200);
+		expect((await member.get('/workroom')).headers.get('location')).toBe('/sign-in?suspended=1');
+		expect((await signIn(newClient(), email, 'rule breaker pw')).status).toBe(403);
+		const events = await db.select({ action: auditEvent.action, actorId: auditEvent.actorId }).from(auditEvent).where(eq(auditEvent.subjectId, target.id));
+		expect(events.map((e) => e.action)).toEqual(expect.arrayContaining(['account.registered', 'account.suspended']));
+
+		expect((await admin.post('/desk/users?/reinstate', { userId: target.id })).status).toBe(200);
+		expect((await signIn(newClient(), email, 'rule breaker pw')).status).toBe(303);
+	});
+
+	it('is closed to everyone but admins', async () => {
+		const customer = newClient();
+		await signIn(customer, 'customer@tackline.test', 'tackline-demo');
+		const [someone] = await db.select({ id: user.id }).from(user).where(eq(user.email, 'tailor@tackline.test'));
+		const response = await customer.post('/desk/users?/suspend', { userId: someone.id, reason: 'not allowed' });
+		expect(response.status).toBe(403);
+		const [still] = await db.select({ suspendedAt: user.suspendedAt }).from(user).where(eq(user.id, someone.id));
+		expect(still.suspendedAt).toBeNull();
 	});
 });
 

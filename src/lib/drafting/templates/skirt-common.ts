@@ -23,8 +23,8 @@ export interface SkirtInput {
 	hipEase: number;
 	seam: number;
 	hem: number;
-	/** Extra width at the hem on each side seam (0 for a straight skirt). */
-	flare: number;
+	/** Extra width at the hem on each side seam; null for a straight skirt. */
+	flare: number | null;
 	maxDartsPerQuarter: 1 | 2;
 }
 
@@ -56,19 +56,21 @@ export function skirtShaping(input: Pick<SkirtInput, 'waist' | 'hip' | 'waistEas
 export function skirtPiece(which: 'front' | 'back', input: SkirtInput, shaping: SkirtShaping, extra: { zipLength: number; centreBackSeam: number; slitLength: number }): DraftPiece {
 	const { quarterHip: q, sideShaping, dartCount, dartIntake } = shaping;
 	const s = input.seam;
+	const flare = input.flare ?? 0;
 	const hemY = input.length + input.hem;
-	const d = input.length - input.waistToHip;
-	const flareRaise = input.flare > 0 ? Math.hypot(d, input.flare) - d : 0;
+	// Raise the side hem so the flared side seam below the hip line is as long as the centre line.
+	const d = hemY - input.waistToHip;
+	const flareRaise = d - Math.sqrt(Math.max(d * d - flare * flare, 0));
 	const sideWaist = pt(q - sideShaping + s, -sideRaise - s);
 	const sideHip = pt(q + s, input.waistToHip);
-	const sideHem = pt(q + s + input.flare, hemY - flareRaise);
+	const sideHem = pt(q + s + flare, hemY - flareRaise);
 	const centreX = which === 'back' ? -extra.centreBackSeam : 0;
 	const outline: Point[] = [
 		pt(centreX, -s),
 		sideWaist,
 		...quadCurve(sideWaist, pt(q + s, input.waistToHip * 0.35), sideHip),
 		sideHem,
-		...quadCurve(sideHem, pt((q + s + input.flare) * 0.5, hemY), pt(0, hemY)).slice(0, -1),
+		...quadCurve(sideHem, pt((q + s + flare) * 0.5, hemY), pt(0, hemY)).slice(0, -1),
 		pt(centreX, hemY)
 	];
 	const dartLength = which === 'front' ? frontDartLength : backDartLength;
@@ -85,7 +87,7 @@ export function skirtPiece(which: 'front' | 'back', input: SkirtInput, shaping: 
 	const lines: PieceLine[] = [
 		{ id: 'hip_width', label: 'Width at hip line (with side seam)', mm: q + s, dimension: { from: pt(0, input.waistToHip), to: sideHip } },
 		{ id: 'waist_width', label: 'Finished quarter waist', mm: shaping.quarterWaist },
-		{ id: 'hip_depth', label: 'Waist to hip line', mm: input.waistToHip, dimension: { from: pt(q + s + inch(0.8) + input.flare, 0), to: pt(q + s + inch(0.8) + input.flare, input.waistToHip) } },
+		{ id: 'hip_depth', label: 'Waist to hip line', mm: input.waistToHip, dimension: { from: pt(q + s + inch(0.8) + flare, 0), to: pt(q + s + inch(0.8) + flare, input.waistToHip) } },
 		{ id: 'side_shaping', label: 'Side seam shaping at waist', mm: sideShaping },
 		{ id: 'side_raise', label: 'Side waist raised', mm: sideRaise },
 		{ id: 'dart_intake', label: dartCount === 2 ? 'Intake per dart (two darts)' : 'Intake per dart', mm: dartIntake },
@@ -93,10 +95,8 @@ export function skirtPiece(which: 'front' | 'back', input: SkirtInput, shaping: 
 		{ id: 'length', label: 'Finished length (waist seam to hem)', mm: input.length },
 		{ id: 'piece_length', label: 'Piece length with seam and hem', mm: hemY + s, dimension: { from: pt(-inch(0.8) + centreX, -s), to: pt(-inch(0.8) + centreX, hemY) } }
 	];
-	if (input.flare > 0) {
-		lines.push({ id: 'hem_width', label: 'Width at hem', mm: q + s + input.flare, dimension: { from: pt(0, hemY), to: sideHem } });
-		lines.push({ id: 'flare', label: 'Flare at side seam', mm: input.flare });
-	}
+	lines.push({ id: 'hem_width', label: 'Width at hem (with side seam)', mm: q + s + flare, dimension: input.flare === null ? undefined : { from: pt(0, hemY), to: sideHem } });
+	if (input.flare !== null) lines.push({ id: 'flare', label: 'Flare at side seam', mm: flare });
 	if (which === 'back') {
 		lines.push({ id: 'zip_length', label: 'Zip opening', mm: extra.zipLength });
 		lines.push({ id: 'centre_back_seam', label: 'Centre back seam allowance', mm: extra.centreBackSeam });

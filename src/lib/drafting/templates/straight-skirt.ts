@@ -32,7 +32,7 @@ export const straightSkirt: GarmentTemplate = {
 			hipEase: ease.hip,
 			seam: num(options, 'seamAllowance'),
 			hem: num(options, 'hem'),
-			flare: 0,
+			flare: null,
 			maxDartsPerQuarter: 2
 		};
 		const shaping = skirtShaping(input);

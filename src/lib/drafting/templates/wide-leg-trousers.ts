@@ -88,7 +88,7 @@ function frontPiece(f: TrouserFigures): DraftPiece {
 		sideHip,
 		...quadCurve(sideHip, pt(0, f.hipLineDepth * 0.35), sideWaist)
 	];
-	const depthAt = (step: number) => -inch(0.9) * step;
+	const depthAt = (step: number) => -inch(1.1) * step;
 	return {
 		id: 'front',
 		label: 'Front',
@@ -111,7 +111,7 @@ function frontPiece(f: TrouserFigures): DraftPiece {
 			{ id: 'thigh_width', label: 'Thigh width (half each side of the centre line)', mm: f.thighWidth, dimension: { from: outThigh, to: inThigh } },
 			{ id: 'leg_length', label: 'Leg length with hem', mm: f.legLength, dimension: { from: pt(depthAt(4), 0), to: pt(depthAt(4), f.legLength) } }
 		],
-		grainline: [pt(legCentre, f.thighLineDepth + inch(2)), pt(legCentre, f.legLength - inch(4))]
+		grainline: [pt(legCentre, f.thighLineDepth + inch(8)), pt(legCentre, f.legLength - inch(3))]
 	};
 }
 
@@ -165,7 +165,7 @@ function backPiece(f: TrouserFigures, zip: { length: number; width: number }): D
 			{ id: 'zip_allowance_length', label: 'Zip allowance length', mm: zip.length },
 			{ id: 'zip_allowance_width', label: 'Zip allowance width', mm: zip.width }
 		],
-		grainline: [pt(legCentre, f.thighLineDepth + inch(2)), pt(legCentre, f.legLength - inch(4))]
+		grainline: [pt(legCentre, f.thighLineDepth + inch(8)), pt(legCentre, f.legLength - inch(3))]
 	};
 }
 

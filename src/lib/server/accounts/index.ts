@@ -1,4 +1,4 @@
-import { eq, sql } from 'drizzle-orm';
+import { and, desc, eq, ilike, lt, or, sql, type SQL } from 'drizzle-orm';
 import { db, type Executor } from '../db';
 import { user, type UserRole } from '../db/schema';
 import { hashPassword, verifyPassword } from '../auth/password';
@@ -92,4 +92,54 @@ export async function countByRole() {
 	const counts: Record<UserRole, number> = { customer: 0, tailor: 0, admin: 0 };
 	for (const row of rows) counts[row.role] = row.count;
 	return counts;
+}
+
+export type UserListItem = {
+	id: string;
+	name: string | null;
+	email: string;
+	role: UserRole;
+	suspended: boolean;
+	suspendedReason: string | null;
+	createdAt: Date;
+};
+
+/** Newest first, with keyset paging on (created at, id): `after` is the last row of the previous page. */
+export async function list({
+	search,
+	role,
+	after,
+	limit = 25
+}: {
+	search?: string;
+	role?: UserRole;
+	after?: { createdAt: Date; id: string };
+	limit?: number;
+}): Promise<{ users: UserListItem[]; next: { createdAt: Date; id: string } | null }> {
+	const filters: SQL[] = [];
+	if (search) {
+		const pattern = `%${search.replace(/[\\%_]/g, (c) => '\\' + c)}%`;
+		filters.push(or(ilike(user.email, pattern), ilike(user.name, pattern))!);
+	}
+	if (role) filters.push(eq(user.role, role));
+	if (after) {
+		filters.push(or(lt(user.createdAt, after.createdAt), and(eq(user.createdAt, after.createdAt), lt(user.id, after.id)))!);
+	}
+	const rows = await db
+		.select({
+			id: user.id,
+			name: user.name,
+			email: user.email,
+			role: user.role,
+			suspendedAt: user.suspendedAt,
+			suspendedReason: user.suspendedReason,
+			createdAt: user.createdAt
+		})
+		.from(user)
+		.where(filters.length ? and(...filters) : undefined)
+		.orderBy(desc(user.createdAt), desc(user.id))
+		.limit(limit + 1);
+	const page = rows.slice(0, limit).map(({ suspendedAt, ...row }) => ({ ...row, suspended: suspendedAt !== null }));
+	const last = page.at(-1);
+	return { users: page, next: rows.length > limit && last ? { createdAt: last.createdAt, id: last.id } : null };
 }

@@ -28,13 +28,18 @@ export const user = pgTable(
 		timeZone: text('time_zone').notNull().default('UTC'),
 		suspendedAt: timestamp('suspended_at', { withTimezone: true, mode: 'date' }),
 		suspendedReason: text('suspended_reason'),
-		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+		// Millisecond precision, so a JavaScript Date round-trips exactly as a keyset-paging cursor.
+		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date', precision: 3 }).notNull().defaultNow(),
 		updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' })
 			.notNull()
 			.defaultNow()
 			.$onUpdate(() => new Date())
 	},
-	(t) => [index('user_role_idx').on(t.role), index('user_email_lower_idx').on(sql`lower(${t.email})`)]
+	(t) => [
+		index('user_role_idx').on(t.role),
+		index('user_email_lower_idx').on(sql`lower(${t.email})`),
+		index('user_created_idx').on(t.createdAt, t.id)
+	]
 );
 export type User = typeof user.$inferSelect;
 export type NewUser = typeof user.$inferInsert;

@@ -1,0 +1,97 @@
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { estimateFabric, fabricWidthPresets, type FabricSpec } from './fabric';
+import { pt } from './geometry';
+import type { DraftPiece } from './pieces';
+import { templates } from './templates/index';
+import { draftIn, standardBodyCm } from './templates/test-support';
+import { toMm } from './units';
+
+function rect(id: string, w: number, h: number, cut: Partial<DraftPiece['cut']> = {}): DraftPiece {
+	return {
+		id,
+		label: id,
+		cut: { quantity: 1, onFold: false, pair: false, grain: 'lengthwise', ...cut },
+		outline: [pt(0, 0), pt(w, 0), pt(w, h), pt(0, h)],
+		marks: [],
+		lines: [],
+		grainline: [pt(w / 2, 0), pt(w / 2, h)]
+	};
+}
+
+const spec = (widthMm: number, extra: Partial<FabricSpec> = {}): FabricSpec => ({ widthMm, folded: true, directional: false, shrinkagePercent: 0, repeatMm: 0, ...extra });
+
+describe('fabric estimate', () => {
+	it('cuts a pair from one placement on folded cloth and fills it exactly', () => {
+		const { estimate } = estimateFabric([rect('leg', 500, 1000, { quantity: 2, pair: true })], spec(1000), 'cm');
+		expect(estimate!.placements).toHaveLength(1);
+		expect(estimate!.packedMm).toBe(1000);
+		expect(estimate!.efficiency).toBeCloseTo(1, 12);
+		expect(estimate!.rounded).toMatchObject({ value: 1, buyUnit: 'm' });
+	});
+
+	it('keeps cut-on-fold pieces against the fold, and opens them out on open cloth', () => {
+		const pieces = [rect('front', 300, 600, { onFold: true }), rect('back', 300, 600, { onFold: true })];
+		const folded = estimateFabric(pieces, spec(1000), 'cm').estimate!;
+		expect(folded.placements.every((p) => p.x === 0)).toBe(true);
+		expect(folded.packedMm).toBe(1200);
+		const open = estimateFabric(pieces, spec(1000, { folded: false }), 'cm').estimate!;
+		expect(open.placements.every((p) => p.w === 600 && p.unfolded)).toBe(true);
+		expect(open.packedMm).toBe(1200);
+	});
+
+	it('opens the cloth when a piece is too wide for it folded, and gives up when it is too wide open', () => {
+		const wide = [rect('panel', 600, 500)];
+		const opened = estimateFabric(wide, spec(1000), 'cm');
+		expect(opened.estimate!.folded).toBe(false);
+		expect(opened.warnings[0].code).toBe('fabric_too_narrow');
+		const refused = estimateFabric([rect('panel', 1100, 500)], spec(1000), 'cm');
+		expect(refused.estimate).toBeNull();
+		expect(refused.warnings.some((w) => w.message.includes('panel (110 cm)'))).toBe(true);
+	});
+
+	it('adds shrinkage to the length and takes it off the width (common practice)', () => {
+		const { estimate } = estimateFabric([rect('leg', 475, 1000, { quantity: 2, pair: true })], spec(1000, { shrinkagePercent: 5 }), 'cm');
+		expect(estimate!.layWidthMm).toBeCloseTo(475, 9);
+		expect(estimate!.lengthMm).toBeCloseTo(1000 / 0.95, 9);
+		expect(estimate!.rounded.value).toBe(1.1);
+	});
+
+	it('starts every piece on a pattern repeat', () => {
+		const { estimate } = estimateFabric([rect('a', 400, 250), rect('b', 400, 250), rect('c', 400, 250)], spec(800), 'in');
+		const repeated = estimateFabric([rect('a', 400, 250), rect('b', 400, 250), rect('c', 400, 250)], spec(800, { repeatMm: 320 }), 'in').estimate!;
+		for (const p of repeated.placements) expect(p.y % 320).toBeCloseTo(0, 9);
+		expect(repeated.packedMm).toBeGreaterThan(estimate!.packedMm);
+	});
+
+	it('rounds up to 1/8 yd when the person works in inches', () => {
+		const { estimate } = estimateFabric([rect('leg', 500, 1000)], spec(1100), 'in');
+		expect(estimate!.rounded).toMatchObject({ value: 1.125, buyUnit: 'yd', display: '1 1/8 yd' });
+	});
+});
+
+describe('every garment on every preset width (property)', () => {
+	it('keeps every placement inside the cloth and never below the longest piece', () => {
+		const unitArb = fc.constantFrom('in' as const, 'cm' as const);
+		fc.assert(
+			fc.property(fc.constantFrom(...Object.values(templates)), fc.double({ min: 0.85, max: 1.35, noNaN: true }), unitArb, fc.boolean(), (template, scale, unit, folded) => {
+				const body = Object.fromEntries(Object.entries(standardBodyCm).map(([k, v]) => [k, k.endsWith('girth') ? v * scale : v]));
+				const draft = draftIn(template, 'cm', body);
+				for (const width of fabricWidthPresets[unit]) {
+					const { estimate } = estimateFabric(draft.pieces, spec(toMm(width, unit), { folded }), unit);
+					if (!estimate) continue;
+					for (const p of estimate.placements) {
+						expect(p.x).toBeGreaterThanOrEqual(0);
+						expect(p.x + p.w).toBeLessThanOrEqual(estimate.layWidthMm + 1e-6);
+					}
+					const longest = Math.max(...estimate.placements.map((p) => p.h));
+					expect(estimate.packedMm).toBeGreaterThanOrEqual(longest);
+					expect(estimate.efficiency).toBeGreaterThan(0);
+					expect(estimate.efficiency).toBeLessThanOrEqual(1);
+					expect(estimate.rounded.mm).toBeGreaterThanOrEqual(estimate.lengthMm - 1e-9);
+				}
+			}),
+			{ numRuns: 40 }
+		);
+	});
+});

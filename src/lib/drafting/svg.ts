@@ -1,0 +1,199 @@
+import type { FabricEstimate } from './fabric';
+import { boundingBox, mirrorX, translate, type Box, type Point } from './geometry';
+import type { DraftPiece, PieceMark } from './pieces';
+import { formatLength, mmPerMetre, mmPerYard, type Unit } from './units';
+
+/* Pattern drawings in millimetre user units; strokes keep their screen width at any zoom. */
+
+const ink = '#242733';
+const madder = '#a93c25';
+const woad = '#24495a';
+
+export function escapeXml(text: string): string {
+	return text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&apos;' })[c]!);
+}
+
+const n = (value: number) => (Math.round(value * 10) / 10).toString();
+const points = (list: readonly Point[]) => list.map((p) => `${n(p.x)},${n(p.y)}`).join(' ');
+
+function stroke(colour: string, width: number, dash?: string): string {
+	return `stroke="${colour}" stroke-width="${width}" vector-effect="non-scaling-stroke"${dash ? ` stroke-dasharray="${dash}"` : ''} fill="none"`;
+}
+
+function text(at: Point, content: string, size: number, options: { anchor?: 'start' | 'middle' | 'end'; rotate?: number; weight?: number; colour?: string } = {}): string {
+	const rotate = options.rotate ? ` transform="rotate(${options.rotate} ${n(at.x)} ${n(at.y)})"` : '';
+	const weight = options.weight ? ` font-weight="${options.weight}"` : '';
+	return `<text x="${n(at.x)}" y="${n(at.y)}" font-size="${n(size)}" text-anchor="${options.anchor ?? 'middle'}" dominant-baseline="middle" fill="${options.colour ?? ink}"${weight}${rotate} paint-order="stroke" stroke="#fff" stroke-width="${n(size / 4)}">${escapeXml(content)}</text>`;
+}
+
+/** A small filled arrowhead at `tip`, pointing away from `from`. */
+function arrowHead(from: Point, tip: Point, size: number, colour: string): string {
+	const angle = Math.atan2(tip.y - from.y, tip.x - from.x);
+	const a = { x: tip.x - size * Math.cos(angle - 0.4), y: tip.y - size * Math.sin(angle - 0.4) };
+	const b = { x: tip.x - size * Math.cos(angle + 0.4), y: tip.y - size * Math.sin(angle + 0.4) };
+	return `<polygon points="${points([tip, a, b])}" fill="${colour}"/>`;
+}
+
+function dimension(from: Point, to: Point, label: string, size: number): string {
+	const vertical = Math.abs(to.y - from.y) > Math.abs(to.x - from.x);
+	const mid = { x: (from.x + to.x) / 2, y: (from.y + to.y) / 2 };
+	const angle = (Math.atan2(to.y - from.y, to.x - from.x) * 180) / Math.PI;
+	const readable = vertical ? -90 : Math.abs(angle) > 90 ? angle - 180 : angle;
+	const offset = vertical ? { x: -size * 0.7, y: 0 } : { x: 0, y: -size * 0.7 };
+	return [
+		`<line x1="${n(from.x)}" y1="${n(from.y)}" x2="${n(to.x)}" y2="${n(to.y)}" ${stroke(woad, 1)}/>`,
+		arrowHead(to, from, size * 0.6, woad),
+		arrowHead(from, to, size * 0.6, woad),
+		text({ x: mid.x + offset.x, y: mid.y + offset.y }, label, size * 0.85, { rotate: readable, colour: woad })
+	].join('');
+}
+
+function mark(m: PieceMark, size: number): string {
+	const line = `points="${points(m.points)}"`;
+	switch (m.kind) {
+		case 'dart':
+			return `<polyline ${line} ${stroke(madder, 1.5)}/>`;
+		case 'zip':
+			return `<polyline ${line} ${stroke(madder, 3, '6 3')}/>${text({ x: m.points[0].x + size, y: (m.points[0].y + m.points[1].y) / 2 }, m.label ?? 'zip', size * 0.75, { rotate: -90, colour: madder })}`;
+		case 'slit':
+			return `<polyline ${line} ${stroke(madder, 2.5, '2 3')}/>`;
+		case 'fold':
+			return `<polyline ${line} ${stroke(ink, 1, '10 3 2 3')}/>`;
+		default: {
+			const label = m.label ? text({ x: m.points[0].x + size * 0.3, y: m.points[0].y - size * 0.45 }, m.label, size * 0.65, { anchor: 'start', colour: '#5d6170' }) : '';
+			return `<polyline ${line} ${stroke('#7b7f8c', 1, '4 3')}/>${label}`;
+		}
+	}
+}
+
+function grainline([a, b]: [Point, Point], size: number): string {
+	return [
+		`<line x1="${n(a.x)}" y1="${n(a.y)}" x2="${n(b.x)}" y2="${n(b.y)}" ${stroke(ink, 1.5)}/>`,
+		arrowHead(b, a, size * 0.8, ink),
+		arrowHead(a, b, size * 0.8, ink),
+		text({ x: a.x + size * 0.7, y: (a.y + b.y) / 2 }, 'grain', size * 0.75, { rotate: -90 })
+	].join('');
+}
+
+/** The usual "place on fold" bracket, drawn just inside the fold edge with arrows pointing at it. */
+function foldMarker(box: Box, size: number): string {
+	const x = box.x + size * 1.1;
+	const top = box.y + box.height * 0.2;
+	const bottom = box.y + box.height * 0.8;
+	return [
+		`<polyline points="${points([{ x: box.x, y: top }, { x, y: top }, { x, y: bottom }, { x: box.x, y: bottom }])}" ${stroke(madder, 1.5)}/>`,
+		arrowHead({ x, y: top }, { x: box.x, y: top }, size * 0.6, madder),
+		arrowHead({ x, y: bottom }, { x: box.x, y: bottom }, size * 0.6, madder),
+		text({ x: x + size * 0.7, y: box.y + box.height / 2 }, 'place on fold', size * 0.75, { rotate: -90, colour: madder, weight: 600 })
+	].join('');
+}
+
+export function cutText(cut: DraftPiece['cut']): string {
+	if (cut.onFold) return `Cut ${cut.quantity} on fold`;
+	if (cut.pair) return `Cut ${cut.quantity} (${cut.quantity / 2 === 1 ? 'a pair' : `${cut.quantity / 2} pairs`})`;
+	return `Cut ${cut.quantity}`;
+}
+
+/** Piece name and cut instruction where no dimension, guide or grainline runs through them. */
+function pieceLabel(piece: DraftPiece, box: Box, size: number): string {
+	const name = piece.label.toUpperCase();
+	const cut = cutText(piece.cut);
+	if (box.height > 2.5 * box.width && box.width < size * 9) {
+		const at = { x: box.x + box.width * 0.32, y: box.y + box.height / 2 };
+		const small = Math.min(size * 1.2, box.width / 4);
+		return text(at, name, small, { weight: 700, rotate: -90 }) + text({ x: at.x + small * 1.3, y: at.y }, cut, small * 0.7, { rotate: -90 });
+	}
+	const halfWidth = (Math.max(name.length * 1.2, cut.length * 0.85) * size * 0.62) / 2;
+	const centreX = box.x + box.width / 2;
+	const busyYs = [
+		...piece.lines.flatMap((l) => (l.dimension && Math.abs(l.dimension.from.y - l.dimension.to.y) < size ? [l.dimension.from.y] : [])),
+		...piece.marks.filter((m) => m.kind === 'guide').map((m) => m.points[0].y)
+	];
+	const [g0, g1] = piece.grainline;
+	const grainCrosses = Math.abs(g0.x - centreX) < halfWidth + size;
+	const clear = (y: number) => {
+		const top = y - size * 1.1;
+		const bottom = y + size * 2.3;
+		if (busyYs.some((busy) => busy > top - size * 0.5 && busy < bottom + size * 0.5)) return false;
+		return !(grainCrosses && Math.max(g0.y, g1.y) > top - size && Math.min(g0.y, g1.y) < bottom + size);
+	};
+	const fractions = [0.42, 0.32, 0.52, 0.25, 0.62, 0.72, 0.18, 0.82];
+	const y = box.y + box.height * (fractions.find((f) => clear(box.y + box.height * f)) ?? 0.42);
+	return text({ x: centreX, y }, name, size * 1.2, { weight: 700 }) + text({ x: centreX, y: y + size * 1.5 }, cut, size * 0.85);
+}
+
+/** One pattern piece: outline, construction marks, grainline, fold marker and dimensions in `unit`. */
+export function pieceSvg(piece: DraftPiece, unit: Unit): string {
+	const outlineBox = boundingBox(piece.outline);
+	const everything = [...piece.outline, ...piece.lines.flatMap((l) => (l.dimension ? [l.dimension.from, l.dimension.to] : [])), ...piece.marks.flatMap((m) => m.points)];
+	const box = boundingBox(everything);
+	const size = Math.max(Math.max(box.width, box.height) / 36, 6);
+	const margin = size * 2.2;
+	const view = { x: box.x - margin, y: box.y - margin, width: box.width + 2 * margin, height: box.height + 2 * margin };
+	const title = `${piece.label}: ${cutText(piece.cut)}, ${piece.cut.grain} grain`;
+	return [
+		`<svg xmlns="http://www.w3.org/2000/svg" viewBox="${n(view.x)} ${n(view.y)} ${n(view.width)} ${n(view.height)}" role="img" font-family="Poppins, ui-sans-serif, sans-serif" data-piece="${escapeXml(piece.id)}">`,
+		`<title>${escapeXml(title)}</title>`,
+		`<polygon points="${points(piece.outline)}" fill="#f7f2e9" stroke="${ink}" stroke-width="2" vector-effect="non-scaling-stroke" stroke-linejoin="round"/>`,
+		...piece.marks.map((m) => mark(m, size)),
+		grainline(piece.grainline, size),
+		piece.cut.onFold ? foldMarker(outlineBox, size) : '',
+		pieceLabel(piece, outlineBox, size),
+		...piece.lines.filter((l) => l.dimension).map((l) => dimension(l.dimension!.from, l.dimension!.to, formatLength(l.mm, unit, { withUnit: true }), size)),
+		'</svg>'
+	].join('');
+}
+
+function placementLabel(p: FabricEstimate['placements'][number], size: number): string {
+	const label = p.yields > 1 ? `${p.label} ×${p.yields}` : p.label;
+	const upright = p.h > 2.5 * p.w && p.w < size * label.length * 0.6;
+	const fit = Math.min(size, (upright ? p.h : p.w) / (label.length * 0.65));
+	return text({ x: p.w / 2, y: p.h / 2 }, label, fit, { weight: 600, rotate: upright ? -90 : 0 });
+}
+
+/** The cloth with every piece placed, fold on the left when folded, length marks every yard or metre. */
+export function layoutSvg(estimate: FabricEstimate, pieces: readonly DraftPiece[], unit: Unit): string {
+	const width = estimate.layWidthMm;
+	const length = estimate.packedMm;
+	const size = Math.max(width, length) / 40;
+	const margin = size * 3;
+	const step = unit === 'in' ? mmPerYard : mmPerMetre;
+	const stepLabel = unit === 'in' ? 'yd' : 'm';
+	const byId = new Map(pieces.map((p) => [p.id, p]));
+	const ticks: string[] = [];
+	for (let i = 1; i * step <= length + 1e-6; i++) {
+		ticks.push(`<line x1="0" y1="${n(i * step)}" x2="${n(width)}" y2="${n(i * step)}" ${stroke('#c4b293', 1, '3 4')}/>`);
+		ticks.push(text({ x: width - size * 0.3, y: i * step - size * 0.6 }, `${i} ${stepLabel}`, size * 0.8, { anchor: 'end', colour: '#5d6170' }));
+	}
+	const placed = estimate.placements.map((p) => {
+		const piece = byId.get(p.pieceId);
+		const shape = piece ? translate(piece.outline, -p.origin.x, -p.origin.y) : [];
+		const outlines = p.unfolded ? [translate(shape, p.w / 2, 0), translate(mirrorX(shape), p.w / 2, 0)] : [shape];
+		const drawn = piece ? outlines : [];
+		return [
+			`<g transform="translate(${n(p.x)} ${n(p.y)})">`,
+			`<rect width="${n(p.w)}" height="${n(p.h)}" ${stroke('#7b7f8c', 1, '4 3')}/>`,
+			...drawn.map((o) => `<polygon points="${points(o)}" fill="#fae2da" stroke="${madder}" stroke-width="1.5" vector-effect="non-scaling-stroke"/>`),
+			placementLabel(p, size),
+			'</g>'
+		].join('');
+	});
+	const foldSide = estimate.folded
+		? [
+				`<line x1="0" y1="0" x2="0" y2="${n(length)}" ${stroke(madder, 2.5, '10 4')}/>`,
+				text({ x: -size * 0.9, y: length / 2 }, 'fold', size, { rotate: -90, colour: madder, weight: 600 }),
+				text({ x: width + size * 0.9, y: length / 2 }, 'selvedges', size * 0.8, { rotate: 90, colour: '#5d6170' })
+			]
+		: [text({ x: -size * 0.9, y: length / 2 }, 'selvedge', size * 0.8, { rotate: -90, colour: '#5d6170' })];
+	const title = `Layout on ${formatLength(estimate.widthMm, unit, { withUnit: true })} cloth${estimate.folded ? ', folded' : ''}: ${estimate.rounded.display}`;
+	return [
+		`<svg xmlns="http://www.w3.org/2000/svg" viewBox="${n(-margin)} ${n(-size)} ${n(width + 2 * margin + size * 2)} ${n(length + size * 3)}" role="img" font-family="Poppins, ui-sans-serif, sans-serif">`,
+		`<title>${escapeXml(title)}</title>`,
+		`<rect x="0" y="0" width="${n(width)}" height="${n(length)}" fill="#fcfaf6" stroke="${ink}" stroke-width="1.5" vector-effect="non-scaling-stroke"/>`,
+		...ticks,
+		...placed,
+		...foldSide,
+		text({ x: width / 2, y: length + size * 1.2 }, `${formatLength(length, unit, { withUnit: true })} laid out`, size * 0.9),
+		'</svg>'
+	].join('');
+}

@@ -1,0 +1,61 @@
+import { fail } from '@sveltejs/kit';
+import { z } from 'zod';
+import * as accounts from '$lib/server/accounts';
+import { requireRole } from '$lib/server/auth/guard';
+import { keepValues, parseForm } from '$lib/server/forms';
+import type { Actions, PageServerLoad } from './$types';
+
+const filters = z.object({
+	q: z.string().trim().max(100).optional().catch(undefined),
+	role: z.enum(['customer', 'tailor', 'admin']).optional().catch(undefined),
+	after: z
+		.string()
+		.regex(/^\d+_[0-9a-f-]{36}$/)
+		.transform((value) => {
+			const [ms, id] = value.split('_');
+			return { createdAt: new Date(Number(ms)), id };
+		})
+		.optional()
+		.catch(undefined)
+});
+
+export const load: PageServerLoad = async ({ url }) => {
+	const admin = requireRole('admin');
+	const { q, role, after } = filters.parse(Object.fromEntries(url.searchParams));
+	const { users, next } = await accounts.list({ search: q || undefined, role, after });
+	return {
+		adminId: admin.id,
+		filters: { q: q ?? '', role: role ?? '' },
+		users,
+		nextCursor: next ? `${next.createdAt.getTime()}_${next.id}` : null,
+		isFirstPage: !after
+	};
+};
+
+const suspension = z.object({
+	userId: z.uuid(),
+	reason: z.string().trim().min(3, 'Say briefly why (at least 3 characters).').max(500, 'Keep it under 500 characters.')
+});
+const reinstatement = z.object({ userId: z.uuid() });
+
+export const actions: Actions = {
+	suspend: async ({ request }) => {
+		const admin = requireRole('admin');
+		const formData = await request.formData();
+		const parsed = parseForm(suspension, formData);
+		const userId = String(formData.get('userId') ?? '');
+		if (!parsed.ok) return fail(400, { userId, values: keepValues(formData, ['reason']), errors: parsed.errors });
+		if (parsed.data.userId === admin.id) {
+			return fail(400, { userId, values: keepValues(formData, ['reason']), errors: { form: ['You cannot suspend your own account.'] } });
+		}
+		await accounts.suspend({ userId: parsed.data.userId, reason: parsed.data.reason, actorId: admin.id });
+		return { userId, done: 'suspended' as const };
+	},
+	reinstate: async ({ request }) => {
+		const admin = requireRole('admin');
+		const parsed = parseForm(reinstatement, await request.formData());
+		if (!parsed.ok) return fail(400, { userId: '', values: {}, errors: parsed.errors });
+		await accounts.reinstate({ userId: parsed.data.userId, actorId: admin.id });
+		return { userId: parsed.data.userId, done: 'reinstated' as const };
+	}
+};
