@@ -1,7 +1,8 @@
 import { requireRole } from '$lib/server/auth/guard';
+import * as commissions from '$lib/server/commissions';
 import type { PageServerLoad } from './$types';
 
-export const load: PageServerLoad = () => {
+export const load: PageServerLoad = async () => {
 	const user = requireRole('customer');
-	return { user, commissions: [] as { id: string; title: string; status: string; quoteCount: number }[] };
+	return { user, commissions: await commissions.listForCustomer({ customerId: user.id }) };
 };

@@ -1,10 +1,8 @@
 import { requireRole } from '$lib/server/auth/guard';
+import * as commissions from '$lib/server/commissions';
 import type { PageServerLoad } from './$types';
 
-export const load: PageServerLoad = () => {
+export const load: PageServerLoad = async () => {
 	const user = requireRole('tailor');
-	return {
-		user,
-		openCommissions: [] as { id: string; title: string; garmentType: string; sizeBand: string | null; city: string | null }[]
-	};
+	return { user, openCommissions: await commissions.listOpen() };
 };

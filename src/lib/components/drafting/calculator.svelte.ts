@@ -1,0 +1,135 @@
+import {
+	draftGarmentMm,
+	fabricWidthPresets,
+	formatForInput,
+	getTemplate,
+	parseLength,
+	toMm,
+	type DraftResponse,
+	type GarmentId,
+	type MeasurementCode,
+	type Measurements,
+	type Unit
+} from '$lib/drafting';
+
+type Texts = Record<string, string>;
+
+/** Worked examples: the dressmaker's method in inches for templates 1 and 2, the 88-72-96 body in cm otherwise. */
+const examples: Record<GarmentId, { unit: Unit; measurements: Texts; options?: Texts }> = {
+	'wide-leg-trousers': { unit: 'in', measurements: { hip_girth: '40', waist_girth: '28', thigh_girth: '25' }, options: { length: '45 1/2' } },
+	'cropped-top': { unit: 'in', measurements: { bust_girth: '36', shoulder_width: '15', shoulder_to_bust_point: '9 1/2', bust_point_span: '7' }, options: { length: '18' } },
+	'straight-skirt': { unit: 'cm', measurements: { waist_girth: '72', hip_girth: '96', waist_to_hip: '20.6' } },
+	'a-line-skirt': { unit: 'cm', measurements: { waist_girth: '72', hip_girth: '96', waist_to_hip: '20.6' } },
+	'shift-dress': {
+		unit: 'cm',
+		measurements: { bust_girth: '88', under_bust_girth: '73', waist_girth: '72', hip_girth: '96', shoulder_width: '38', nape_to_waist: '41', waist_to_hip: '20.6', shoulder_to_bust_point: '25', bust_point_span: '18' }
+	},
+	tunic: { unit: 'cm', measurements: { bust_girth: '88', hip_girth: '96', shoulder_width: '38' } }
+};
+
+export interface ParsedFields {
+	mm: Record<string, number>;
+	problems: Record<string, string>;
+}
+
+function parseAll(texts: Texts, unit: Unit): ParsedFields {
+	const mm: Record<string, number> = {};
+	const problems: Record<string, string> = {};
+	for (const [key, text] of Object.entries(texts)) {
+		if (!text.trim()) continue;
+		const parsed = parseLength(text, unit);
+		if (parsed.ok) mm[key] = parsed.mm;
+		else problems[key] = parsed.message;
+	}
+	return { mm, problems };
+}
+
+/** Everything the draft calculator page knows, computed in the browser from what has been typed. */
+export class DraftCalculator {
+	garment = $state<GarmentId>('wide-leg-trousers');
+	unit = $state<Unit>('cm');
+	measurementTexts = $state<Texts>({});
+	optionTexts = $state<Texts>({});
+	fit = $state('regular');
+	switches = $state<Record<string, boolean>>({});
+	widthIndex = $state(1);
+	folded = $state(true);
+	directional = $state(false);
+	shrinkage = $state('0');
+	repeatText = $state('');
+
+	template = $derived(getTemplate(this.garment));
+	fields = $derived<MeasurementCode[]>([...this.template.requiredMeasurements, ...this.template.optionalMeasurements]);
+	measurements = $derived(parseAll(this.measurementTexts, this.unit));
+	options = $derived(parseAll(this.optionTexts, this.unit));
+	repeat = $derived(parseAll({ repeat: this.repeatText }, this.unit));
+	widthPresets = $derived(fabricWidthPresets[this.unit]);
+
+	result: DraftResponse = $derived.by(() => {
+		const bodyMm: Measurements = {};
+		for (const code of this.fields) {
+			const value = this.measurements.mm[code];
+			if (value !== undefined) bodyMm[code] = value;
+		}
+		const shrinkage = Number(this.shrinkage.replace(',', '.'));
+		return draftGarmentMm({
+			garment: this.garment,
+			unit: this.unit,
+			bodyMm,
+			optionsMm: { ...this.options.mm, fit: this.fit, ...this.switches },
+			fabric: {
+				widthMm: toMm(this.widthPresets[this.widthIndex], this.unit),
+				folded: this.folded,
+				directional: this.directional,
+				shrinkagePercent: Number.isFinite(shrinkage) ? Math.min(Math.max(shrinkage, 0), 20) : 0,
+				repeatMm: this.repeat.mm.repeat ?? 0
+			}
+		});
+	});
+
+	/** How many required measurements are still empty or unreadable. */
+	missingCount = $derived(this.template.requiredMeasurements.filter((code) => this.measurements.mm[code] === undefined).length);
+
+	constructor(garment?: GarmentId, unit?: Unit) {
+		if (garment) this.garment = garment;
+		if (unit) this.unit = unit;
+	}
+
+	/** Switch units, rewriting every readable entry in the new unit so nothing changes size. */
+	setUnit(next: Unit) {
+		if (next === this.unit) return;
+		const convert = (texts: Texts, parsed: ParsedFields) =>
+			Object.fromEntries(Object.entries(texts).map(([key, text]) => [key, parsed.mm[key] !== undefined ? formatForInput(parsed.mm[key], next) : text]));
+		this.measurementTexts = convert(this.measurementTexts, this.measurements);
+		this.optionTexts = convert(this.optionTexts, this.options);
+		this.repeatText = convert({ repeat: this.repeatText }, this.repeat).repeat;
+		this.unit = next;
+	}
+
+	chooseGarment(next: GarmentId) {
+		this.garment = next;
+		this.optionTexts = {};
+		this.switches = {};
+	}
+
+	fillExample() {
+		const example = examples[this.garment];
+		this.unit = example.unit;
+		this.measurementTexts = { ...example.measurements };
+		this.optionTexts = { ...(example.options ?? {}) };
+		this.fit = 'regular';
+	}
+
+	clear() {
+		this.measurementTexts = {};
+		this.optionTexts = {};
+	}
+
+	/** Warnings and errors from the draft that name this field. */
+	findingsFor(field: string) {
+		return {
+			errors: this.result.errors.filter((f) => f.fields.includes(field) && f.code !== 'missing_measurements'),
+			warnings: this.result.warnings.filter((f) => f.fields.includes(field))
+		};
+	}
+}

@@ -1,0 +1,115 @@
+import { z } from 'zod';
+import { garmentIds, measurementCodes } from './measurements';
+import { isCurrencyCode } from './quote';
+import { templates } from './templates/index';
+import { formatLength, toMm, units } from './units';
+
+/* Request schemas for the drafting API. Lengths are in the request's unit. */
+
+const unit = z.enum(units);
+const positiveLength = z.number().finite().positive().max(100_000);
+
+export const measurementsSchema = z.partialRecord(z.enum(measurementCodes), positiveLength);
+
+const fabricSchema = z
+	.object({
+		width: positiveLength,
+		folded: z.boolean().default(true),
+		directional: z.boolean().default(false),
+		shrinkage: z.number().min(0).max(20).default(0),
+		repeat: z.number().min(0).max(10_000).default(0)
+	})
+	.strict();
+
+export const draftRequestSchema = z
+	.object({
+		garment: z.enum(garmentIds),
+		unit,
+		measurements: measurementsSchema,
+		options: z.record(z.string(), z.union([z.number().finite(), z.string(), z.boolean()])).default({}),
+		fabric: fabricSchema.optional()
+	})
+	.strict()
+	.superRefine((request, ctx) => {
+		const template = templates[request.garment];
+		for (const [id, value] of Object.entries(request.options)) {
+			const spec = template.options.find((o) => o.id === id);
+			const path = ['options', id];
+			if (!spec) {
+				ctx.addIssue({ code: 'custom', path, message: `Not an option of ${request.garment}; expected one of ${template.options.map((o) => o.id).join(', ')}.` });
+			} else if (spec.kind === 'length') {
+				const ok = typeof value === 'number' && toMm(value, request.unit) >= spec.minMm - 1e-6 && toMm(value, request.unit) <= spec.maxMm + 1e-6;
+				if (!ok) {
+					const range = `${formatLength(spec.minMm, request.unit)}–${formatLength(spec.maxMm, request.unit, { withUnit: true })}`;
+					ctx.addIssue({ code: 'custom', path, message: `${spec.label} must be a number between ${range}.` });
+				}
+			} else if (spec.kind === 'choice' && !spec.choices.some((c) => c.value === value)) {
+				ctx.addIssue({ code: 'custom', path, message: `Must be one of ${spec.choices.map((c) => c.value).join(', ')}.` });
+			} else if (spec.kind === 'boolean' && typeof value !== 'boolean') {
+				ctx.addIssue({ code: 'custom', path, message: 'Must be true or false.' });
+			}
+		}
+	});
+
+export type DraftRequest = z.input<typeof draftRequestSchema>;
+
+const maxLayoutPieces = 1000;
+
+export const layoutRequestSchema = z
+	.object({
+		width: positiveLength,
+		unit,
+		pieces: z
+			.array(
+				z
+					.object({
+						w: positiveLength,
+						h: positiveLength,
+						quantity: z.number().int().min(1).max(maxLayoutPieces).default(1),
+						rotate: z.enum(['none', '180', 'any']).default('none')
+					})
+					.strict()
+			)
+			.min(1)
+			.max(maxLayoutPieces)
+	})
+	.strict()
+	.superRefine((request, ctx) => {
+		const total = request.pieces.reduce((sum, p) => sum + p.quantity, 0);
+		if (total > maxLayoutPieces) ctx.addIssue({ code: 'custom', path: ['pieces'], message: `At most ${maxLayoutPieces} pieces in all (quantities included).` });
+		request.pieces.forEach((piece, i) => {
+			const fits = piece.w <= request.width || (piece.rotate === 'any' && piece.h <= request.width);
+			if (!fits) ctx.addIssue({ code: 'custom', path: ['pieces', i, 'w'], message: `Wider than the fabric (${request.width} ${request.unit}).` });
+		});
+	});
+
+export type LayoutRequest = z.input<typeof layoutRequestSchema>;
+
+const minor = z.number().int().min(0).max(1_000_000_000);
+const pricedItem = z.object({ label: z.string().trim().min(1).max(80), amountMinor: minor }).strict();
+
+export const quoteRequestSchema = z
+	.object({
+		currency: z.string().refine(isCurrencyCode, 'An ISO 4217 currency code such as USD, EUR or KES.'),
+		garment: z.enum(garmentIds).optional(),
+		fabric: z.discriminatedUnion('supply', [
+			z.object({ supply: z.literal('customer') }).strict(),
+			z
+				.object({
+					supply: z.literal('tailor'),
+					pricePerUnitMinor: minor,
+					per: z.enum(['yd', 'm']),
+					length: z.number().positive().max(100),
+					lengthUnit: z.enum(['yd', 'm']).optional()
+				})
+				.strict()
+		]),
+		labourHours: z.number().min(0).max(1000).optional(),
+		hourlyRateMinor: minor,
+		notions: z.array(pricedItem).max(50).default([]),
+		extras: z.array(pricedItem).max(50).default([])
+	})
+	.strict()
+	.refine((q) => q.labourHours !== undefined || q.garment !== undefined, { path: ['labourHours'], message: 'Give labour hours, or a garment to use its default.' });
+
+export type QuoteRequest = z.input<typeof quoteRequestSchema>;

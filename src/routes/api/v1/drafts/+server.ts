@@ -1,0 +1,12 @@
+import { json } from '@sveltejs/kit';
+import { draftGarment, draftRequestSchema } from '$lib/drafting';
+import { invalidInput, readJson } from '$lib/server/api/respond';
+import type { RequestHandler } from './$types';
+
+export const POST: RequestHandler = async ({ request }) => {
+	const body = await readJson(request);
+	if (!body.ok) return body.response;
+	const parsed = draftRequestSchema.safeParse(body.body);
+	if (!parsed.success) return invalidInput(parsed.error);
+	return json(draftGarment(parsed.data));
+};
