@@ -1,11 +1,12 @@
-import { index, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { index, jsonb, pgTable, text, uuid } from 'drizzle-orm/pg-core';
+import { id, createdAt } from './columns';
 import { user } from './auth';
 
 /** Who did what to what, for admin and money actions. */
 export const auditEvent = pgTable(
 	'audit_event',
 	{
-		id: uuid('id').primaryKey().defaultRandom(),
+		id: id(),
 		// Null for system actions (jobs, webhooks), and the trail survives the actor's account.
 		actorId: uuid('actor_id').references(() => user.id, { onDelete: 'set null' }),
 		/** Dotted verb, e.g. 'order.release' or 'user.suspend'. */
@@ -15,7 +16,7 @@ export const auditEvent = pgTable(
 		subjectId: text('subject_id').notNull(),
 		data: jsonb('data').$type<Record<string, unknown>>().notNull().default({}),
 		ip: text('ip'),
-		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow()
+		createdAt: createdAt()
 	},
 	(t) => [
 		index('audit_event_subject_idx').on(t.subjectType, t.subjectId, t.createdAt),

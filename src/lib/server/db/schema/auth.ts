@@ -10,6 +10,7 @@ import {
 	timestamp,
 	uuid
 } from 'drizzle-orm/pg-core';
+import { id, createdAt, updatedAt, instant } from './columns';
 
 export const userRole = pgEnum('user_role', ['customer', 'tailor', 'admin']);
 export const lengthUnit = pgEnum('length_unit', ['in', 'cm']);
@@ -17,23 +18,20 @@ export const lengthUnit = pgEnum('length_unit', ['in', 'cm']);
 export const user = pgTable(
 	'user',
 	{
-		id: uuid('id').primaryKey().defaultRandom(),
+		id: id(),
 		name: text('name'),
 		email: text('email').notNull().unique(),
-		emailVerified: timestamp('email_verified', { withTimezone: true, mode: 'date' }),
+		emailVerified: instant('email_verified'),
 		image: text('image'),
 		passwordHash: text('password_hash'),
 		role: userRole('role').notNull().default('customer'),
 		units: lengthUnit('units').notNull().default('cm'),
 		timeZone: text('time_zone').notNull().default('UTC'),
-		suspendedAt: timestamp('suspended_at', { withTimezone: true, mode: 'date' }),
+		suspendedAt: instant('suspended_at'),
 		suspendedReason: text('suspended_reason'),
 		// Millisecond precision, so a JavaScript Date round-trips exactly as a keyset-paging cursor.
 		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date', precision: 3 }).notNull().defaultNow(),
-		updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' })
-			.notNull()
-			.defaultNow()
-			.$onUpdate(() => new Date())
+		updatedAt: updatedAt()
 	},
 	(t) => [
 		index('user_role_idx').on(t.role),
@@ -77,7 +75,7 @@ export const session = pgTable(
 		userId: uuid('user_id')
 			.notNull()
 			.references(() => user.id, { onDelete: 'cascade' }),
-		expires: timestamp('expires', { withTimezone: true, mode: 'date' }).notNull()
+		expires: instant('expires').notNull()
 	},
 	(t) => [index('session_user_idx').on(t.userId)]
 );
@@ -87,7 +85,7 @@ export const verificationToken = pgTable(
 	{
 		identifier: text('identifier').notNull(),
 		token: text('token').notNull(),
-		expires: timestamp('expires', { withTimezone: true, mode: 'date' }).notNull()
+		expires: instant('expires').notNull()
 	},
 	(t) => [primaryKey({ columns: [t.identifier, t.token] })]
 );
@@ -96,11 +94,11 @@ export const verificationToken = pgTable(
 export const signInAttempt = pgTable(
 	'sign_in_attempt',
 	{
-		id: uuid('id').primaryKey().defaultRandom(),
+		id: id(),
 		email: text('email').notNull(),
 		ip: text('ip').notNull(),
 		succeeded: boolean('succeeded').notNull(),
-		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow()
+		createdAt: createdAt()
 	},
 	(t) => [
 		index('sign_in_attempt_email_idx').on(t.email, t.createdAt),

@@ -10,9 +10,9 @@ import {
 	pgEnum,
 	pgTable,
 	text,
-	timestamp,
 	uuid
 } from 'drizzle-orm/pg-core';
+import { id, createdAt, updatedAt, instant } from './columns';
 import { user } from './auth';
 import type { MeasurementTaker, MeasurementValuesMm } from './measurements';
 
@@ -40,7 +40,7 @@ export type MeasurementSnapshot = {
 export const commission = pgTable(
 	'commission',
 	{
-		id: uuid('id').primaryKey().defaultRandom(),
+		id: id(),
 		// An awarded commission cannot go this way: its order restricts the delete.
 		customerId: uuid('customer_id')
 			.notNull()
@@ -65,12 +65,9 @@ export const commission = pgTable(
 		approxLng: doublePrecision('approx_lng'),
 		handover: handover('handover').notNull().default('pickup'),
 		status: commissionStatus('status').notNull().default('draft'),
-		publishedAt: timestamp('published_at', { withTimezone: true, mode: 'date' }),
-		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
-		updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' })
-			.notNull()
-			.defaultNow()
-			.$onUpdate(() => new Date())
+		publishedAt: instant('published_at'),
+		createdAt: createdAt(),
+		updatedAt: updatedAt()
 	},
 	(t) => [
 		// Ascending on purpose: a backward scan serves `order by published_at desc, id desc` exactly,
@@ -100,7 +97,7 @@ export type Handover = (typeof handover.enumValues)[number];
 export const commissionPhoto = pgTable(
 	'commission_photo',
 	{
-		id: uuid('id').primaryKey().defaultRandom(),
+		id: id(),
 		commissionId: uuid('commission_id')
 			.notNull()
 			.references(() => commission.id, { onDelete: 'cascade' }),
@@ -110,7 +107,7 @@ export const commissionPhoto = pgTable(
 		width: integer('width').notNull(),
 		height: integer('height').notNull(),
 		sortOrder: integer('sort_order').notNull().default(0),
-		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow()
+		createdAt: createdAt()
 	},
 	(t) => [
 		index('commission_photo_commission_idx').on(t.commissionId, t.sortOrder),

@@ -7,10 +7,10 @@ import {
 	pgEnum,
 	pgTable,
 	text,
-	timestamp,
 	uniqueIndex,
 	uuid
 } from 'drizzle-orm/pg-core';
+import { id, createdAt, updatedAt, instant } from './columns';
 import { user } from './auth';
 import { order } from './orders';
 
@@ -28,7 +28,7 @@ export const disputeStatus = pgEnum('dispute_status', ['open', 'settled', 'withd
 export const dispute = pgTable(
 	'dispute',
 	{
-		id: uuid('id').primaryKey().defaultRandom(),
+		id: id(),
 		orderId: uuid('order_id')
 			.notNull()
 			.references(() => order.id, { onDelete: 'restrict' }),
@@ -46,12 +46,9 @@ export const dispute = pgTable(
 		// Who settled stays readable in the audit log; the row outlives an admin's account.
 		settledById: uuid('settled_by_id').references(() => user.id, { onDelete: 'set null' }),
 		settlementNote: text('settlement_note'),
-		settledAt: timestamp('settled_at', { withTimezone: true, mode: 'date' }),
-		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
-		updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' })
-			.notNull()
-			.defaultNow()
-			.$onUpdate(() => new Date())
+		settledAt: instant('settled_at'),
+		createdAt: createdAt(),
+		updatedAt: updatedAt()
 	},
 	(t) => [
 		uniqueIndex('dispute_one_open_per_order_uq')
@@ -77,7 +74,7 @@ export type DisputeStatus = (typeof disputeStatus.enumValues)[number];
 export const disputeEvidence = pgTable(
 	'dispute_evidence',
 	{
-		id: uuid('id').primaryKey().defaultRandom(),
+		id: id(),
 		disputeId: uuid('dispute_id')
 			.notNull()
 			.references(() => dispute.id, { onDelete: 'cascade' }),
@@ -85,7 +82,7 @@ export const disputeEvidence = pgTable(
 		statement: text('statement').notNull().default(''),
 		storageKey: text('storage_key').unique(),
 		contentType: text('content_type'),
-		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow()
+		createdAt: createdAt()
 	},
 	(t) => [
 		index('dispute_evidence_dispute_idx').on(t.disputeId, t.createdAt),

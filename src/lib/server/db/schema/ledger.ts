@@ -7,10 +7,10 @@ import {
 	pgEnum,
 	pgTable,
 	text,
-	timestamp,
 	uniqueIndex,
 	uuid
 } from 'drizzle-orm/pg-core';
+import { id, createdAt, instant } from './columns';
 import { order } from './orders';
 
 /**
@@ -32,7 +32,7 @@ export const ledgerAccount = pgEnum('ledger_account', [
 export const ledgerEntry = pgTable(
 	'ledger_entry',
 	{
-		id: uuid('id').primaryKey().defaultRandom(),
+		id: id(),
 		/** Groups the entries of one money movement; they sum to zero. */
 		transactionId: uuid('transaction_id').notNull(),
 		orderId: uuid('order_id')
@@ -45,7 +45,7 @@ export const ledgerEntry = pgTable(
 		kind: text('kind').notNull(),
 		/** Derived from the business action (`release:<order>`), shared by a transaction's entries. */
 		idempotencyKey: text('idempotency_key').notNull(),
-		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow()
+		createdAt: createdAt()
 	},
 	(t) => [
 		// A retried action cannot post the same account twice, whatever transaction id it drew.
@@ -65,7 +65,7 @@ export type LedgerAccount = (typeof ledgerAccount.enumValues)[number];
 export const processedWebhookEvent = pgTable('processed_webhook_event', {
 	eventId: text('event_id').primaryKey(),
 	type: text('type').notNull(),
-	receivedAt: timestamp('received_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow()
+	receivedAt: instant('received_at').notNull().defaultNow()
 });
 export type ProcessedWebhookEvent = typeof processedWebhookEvent.$inferSelect;
 export type NewProcessedWebhookEvent = typeof processedWebhookEvent.$inferInsert;

@@ -1,5 +1,6 @@
 import { sql } from 'drizzle-orm';
-import { check, jsonb, pgEnum, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import { check, jsonb, pgEnum, pgTable, text, unique, uuid } from 'drizzle-orm/pg-core';
+import { id, createdAt, updatedAt, instant } from './columns';
 import { user } from './auth';
 
 /** Who took the measurements: the wearer alone, someone helping them, or a tailor. */
@@ -14,7 +15,7 @@ export type MeasurementValuesMm = Record<string, number>;
 export const measurementProfile = pgTable(
 	'measurement_profile',
 	{
-		id: uuid('id').primaryKey().defaultRandom(),
+		id: id(),
 		// Measurements are personal data: they go when the account goes.
 		ownerId: uuid('owner_id')
 			.notNull()
@@ -22,13 +23,10 @@ export const measurementProfile = pgTable(
 		label: text('label').notNull(),
 		valuesMm: jsonb('values_mm').$type<MeasurementValuesMm>().notNull().default({}),
 		takenBy: measurementTaker('taken_by').notNull().default('self'),
-		takenAt: timestamp('taken_at', { withTimezone: true, mode: 'date' }),
+		takenAt: instant('taken_at'),
 		notes: text('notes').notNull().default(''),
-		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
-		updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' })
-			.notNull()
-			.defaultNow()
-			.$onUpdate(() => new Date())
+		createdAt: createdAt(),
+		updatedAt: updatedAt()
 	},
 	(t) => [
 		unique('measurement_profile_owner_label_uq').on(t.ownerId, t.label),

@@ -1,5 +1,6 @@
 import { sql } from 'drizzle-orm';
-import { check, index, integer, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import { check, index, integer, pgTable, text, unique, uuid } from 'drizzle-orm/pg-core';
+import { id, createdAt, instant } from './columns';
 import { user } from './auth';
 import { commission } from './commissions';
 import { tailorProfile } from './tailors';
@@ -8,15 +9,15 @@ import { tailorProfile } from './tailors';
 export const messageThread = pgTable(
 	'message_thread',
 	{
-		id: uuid('id').primaryKey().defaultRandom(),
+		id: id(),
 		commissionId: uuid('commission_id')
 			.notNull()
 			.references(() => commission.id, { onDelete: 'cascade' }),
 		tailorId: uuid('tailor_id')
 			.notNull()
 			.references(() => tailorProfile.userId, { onDelete: 'cascade' }),
-		lastMessageAt: timestamp('last_message_at', { withTimezone: true, mode: 'date' }),
-		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow()
+		lastMessageAt: instant('last_message_at'),
+		createdAt: createdAt()
 	},
 	(t) => [
 		unique('message_thread_commission_tailor_uq').on(t.commissionId, t.tailorId),
@@ -29,15 +30,15 @@ export type NewMessageThread = typeof messageThread.$inferInsert;
 export const message = pgTable(
 	'message',
 	{
-		id: uuid('id').primaryKey().defaultRandom(),
+		id: id(),
 		threadId: uuid('thread_id')
 			.notNull()
 			.references(() => messageThread.id, { onDelete: 'cascade' }),
 		// The other party keeps the conversation (and a dispute its evidence) if the author's account goes.
 		authorId: uuid('author_id').references(() => user.id, { onDelete: 'set null' }),
 		body: text('body').notNull(),
-		readAt: timestamp('read_at', { withTimezone: true, mode: 'date' }),
-		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow()
+		readAt: instant('read_at'),
+		createdAt: createdAt()
 	},
 	(t) => [index('message_thread_created_idx').on(t.threadId, t.createdAt)]
 );
@@ -47,7 +48,7 @@ export type NewMessage = typeof message.$inferInsert;
 export const messageAttachment = pgTable(
 	'message_attachment',
 	{
-		id: uuid('id').primaryKey().defaultRandom(),
+		id: id(),
 		messageId: uuid('message_id')
 			.notNull()
 			.references(() => message.id, { onDelete: 'cascade' }),
@@ -55,7 +56,7 @@ export const messageAttachment = pgTable(
 		fileName: text('file_name').notNull(),
 		contentType: text('content_type').notNull(),
 		bytes: integer('bytes').notNull(),
-		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow()
+		createdAt: createdAt()
 	},
 	(t) => [
 		index('message_attachment_message_idx').on(t.messageId),

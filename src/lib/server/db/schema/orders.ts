@@ -8,9 +8,9 @@ import {
 	pgEnum,
 	pgTable,
 	text,
-	timestamp,
 	uuid
 } from 'drizzle-orm/pg-core';
+import { id, createdAt, updatedAt, instant } from './columns';
 import { user } from './auth';
 import { commission } from './commissions';
 import { quote } from './quotes';
@@ -33,7 +33,7 @@ export const orderStatus = pgEnum('order_status', [
 export const order = pgTable(
 	'order',
 	{
-		id: uuid('id').primaryKey().defaultRandom(),
+		id: id(),
 		commissionId: uuid('commission_id')
 			.notNull()
 			.unique()
@@ -59,15 +59,12 @@ export const order = pgTable(
 		chargeId: text('charge_id').unique(),
 		transferId: text('transfer_id').unique(),
 		status: orderStatus('status').notNull().default('awaiting_payment'),
-		fundedAt: timestamp('funded_at', { withTimezone: true, mode: 'date' }),
-		deliveredAt: timestamp('delivered_at', { withTimezone: true, mode: 'date' }),
-		releasedAt: timestamp('released_at', { withTimezone: true, mode: 'date' }),
-		autoReleaseAt: timestamp('auto_release_at', { withTimezone: true, mode: 'date' }),
-		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
-		updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' })
-			.notNull()
-			.defaultNow()
-			.$onUpdate(() => new Date())
+		fundedAt: instant('funded_at'),
+		deliveredAt: instant('delivered_at'),
+		releasedAt: instant('released_at'),
+		autoReleaseAt: instant('auto_release_at'),
+		createdAt: createdAt(),
+		updatedAt: updatedAt()
 	},
 	(t) => [
 		index('order_tailor_status_due_idx').on(t.tailorId, t.status, t.dueDate),
@@ -100,14 +97,14 @@ export const progressStepKind = pgEnum('progress_step_kind', [
 export const progressStep = pgTable(
 	'progress_step',
 	{
-		id: uuid('id').primaryKey().defaultRandom(),
+		id: id(),
 		orderId: uuid('order_id')
 			.notNull()
 			.references(() => order.id, { onDelete: 'cascade' }),
 		kind: progressStepKind('kind').notNull(),
 		note: text('note').notNull().default(''),
 		photoKey: text('photo_key'),
-		recordedAt: timestamp('recorded_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow()
+		recordedAt: instant('recorded_at').notNull().defaultNow()
 	},
 	(t) => [index('progress_step_order_idx').on(t.orderId, t.recordedAt)]
 );
@@ -121,22 +118,19 @@ export const fittingStatus = pgEnum('fitting_status', ['proposed', 'confirmed', 
 export const fitting = pgTable(
 	'fitting',
 	{
-		id: uuid('id').primaryKey().defaultRandom(),
+		id: id(),
 		orderId: uuid('order_id')
 			.notNull()
 			.references(() => order.id, { onDelete: 'cascade' }),
 		proposedById: uuid('proposed_by_id').references(() => user.id, { onDelete: 'set null' }),
-		startsAt: timestamp('starts_at', { withTimezone: true, mode: 'date' }).notNull(),
-		endsAt: timestamp('ends_at', { withTimezone: true, mode: 'date' }).notNull(),
+		startsAt: instant('starts_at').notNull(),
+		endsAt: instant('ends_at').notNull(),
 		placeKind: fittingPlace('place_kind').notNull().default('workroom'),
 		address: text('address').notNull().default(''),
 		status: fittingStatus('status').notNull().default('proposed'),
 		notes: text('notes').notNull().default(''),
-		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
-		updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' })
-			.notNull()
-			.defaultNow()
-			.$onUpdate(() => new Date())
+		createdAt: createdAt(),
+		updatedAt: updatedAt()
 	},
 	(t) => [
 		index('fitting_order_idx').on(t.orderId, t.startsAt),

@@ -9,10 +9,10 @@ import {
 	pgEnum,
 	pgTable,
 	text,
-	timestamp,
 	uniqueIndex,
 	uuid
 } from 'drizzle-orm/pg-core';
+import { id, createdAt, updatedAt, instant } from './columns';
 import { commission } from './commissions';
 import { tailorProfile } from './tailors';
 
@@ -21,7 +21,7 @@ export const quoteStatus = pgEnum('quote_status', ['sent', 'accepted', 'declined
 export const quote = pgTable(
 	'quote',
 	{
-		id: uuid('id').primaryKey().defaultRandom(),
+		id: id(),
 		commissionId: uuid('commission_id')
 			.notNull()
 			.references(() => commission.id, { onDelete: 'cascade' }),
@@ -34,15 +34,12 @@ export const quote = pgTable(
 		fittingsIncluded: integer('fittings_included').notNull().default(1),
 		fabricIncluded: boolean('fabric_included').notNull(),
 		message: text('message').notNull().default(''),
-		validUntil: timestamp('valid_until', { withTimezone: true, mode: 'date' }).notNull(),
+		validUntil: instant('valid_until').notNull(),
 		status: quoteStatus('status').notNull().default('sent'),
 		/** When it left `sent`: accepted, declined, withdrawn or lapsed. */
-		decidedAt: timestamp('decided_at', { withTimezone: true, mode: 'date' }),
-		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
-		updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' })
-			.notNull()
-			.defaultNow()
-			.$onUpdate(() => new Date())
+		decidedAt: instant('decided_at'),
+		createdAt: createdAt(),
+		updatedAt: updatedAt()
 	},
 	(t) => [
 		// One live quote per tailor and commission; withdrawn, declined and lapsed ones stay as

@@ -6,10 +6,10 @@ import {
 	pgTable,
 	smallint,
 	text,
-	timestamp,
 	unique,
 	uuid
 } from 'drizzle-orm/pg-core';
+import { id, instant } from './columns';
 import { user } from './auth';
 import { order } from './orders';
 
@@ -18,7 +18,7 @@ export const reviewDirection = pgEnum('review_direction', ['customer_to_tailor',
 export const review = pgTable(
 	'review',
 	{
-		id: uuid('id').primaryKey().defaultRandom(),
+		id: id(),
 		orderId: uuid('order_id')
 			.notNull()
 			.references(() => order.id, { onDelete: 'cascade' }),
@@ -36,9 +36,9 @@ export const review = pgTable(
 		communicationRating: smallint('communication_rating'),
 		timelinessRating: smallint('timeliness_rating'),
 		body: text('body').notNull().default(''),
-		submittedAt: timestamp('submitted_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+		submittedAt: instant('submitted_at').notNull().defaultNow(),
 		/** Set when both sides have written or the review window closed; neither sees the other's first. */
-		publishedAt: timestamp('published_at', { withTimezone: true, mode: 'date' })
+		publishedAt: instant('published_at')
 	},
 	(t) => [
 		unique('review_order_direction_uq').on(t.orderId, t.direction),

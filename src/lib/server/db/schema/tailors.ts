@@ -8,9 +8,9 @@ import {
 	pgEnum,
 	pgTable,
 	text,
-	timestamp,
 	uuid
 } from 'drizzle-orm/pg-core';
+import { id, createdAt, updatedAt } from './columns';
 import { user } from './auth';
 
 /** State of the tailor's connected payout account at the payment provider. */
@@ -42,11 +42,8 @@ export const tailorProfile = pgTable(
 		ratingAverageHundredths: integer('rating_average_hundredths').notNull().default(0),
 		ratingCount: integer('rating_count').notNull().default(0),
 		acceptingWork: boolean('accepting_work').notNull().default(true),
-		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
-		updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' })
-			.notNull()
-			.defaultNow()
-			.$onUpdate(() => new Date())
+		createdAt: createdAt(),
+		updatedAt: updatedAt()
 	},
 	(t) => [
 		index('tailor_profile_city_accepting_idx').on(t.city, t.acceptingWork),
@@ -68,7 +65,7 @@ export type PayoutStatus = (typeof payoutStatus.enumValues)[number];
 export const portfolioItem = pgTable(
 	'portfolio_item',
 	{
-		id: uuid('id').primaryKey().defaultRandom(),
+		id: id(),
 		tailorId: uuid('tailor_id')
 			.notNull()
 			.references(() => tailorProfile.userId, { onDelete: 'cascade' }),
@@ -76,7 +73,7 @@ export const portfolioItem = pgTable(
 		caption: text('caption').notNull().default(''),
 		garmentType: text('garment_type'),
 		sortOrder: integer('sort_order').notNull().default(0),
-		createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow()
+		createdAt: createdAt()
 	},
 	(t) => [index('portfolio_item_tailor_idx').on(t.tailorId, t.sortOrder)]
 );
