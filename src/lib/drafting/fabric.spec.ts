@@ -64,7 +64,7 @@ describe('fabric estimate', () => {
 		expect(repeated.packedMm).toBeGreaterThan(estimate!.packedMm);
 	});
 
-	it('rounds up to 1/8 yd when the person works in inches', () => {
+	it('rounds up to 1/8 yd when the person works in inches (the usual buying step, common practice)', () => {
 		const { estimate } = estimateFabric([rect('leg', 500, 1000)], spec(1100), 'in');
 		expect(estimate!.rounded).toMatchObject({ value: 1.125, buyUnit: 'yd', display: '1 1/8 yd' });
 	});

@@ -34,12 +34,14 @@ function arrowHead(from: Point, tip: Point, size: number, colour: string): strin
 	return `<polygon points="${points([tip, a, b])}" fill="${colour}"/>`;
 }
 
-function dimension(from: Point, to: Point, label: string, size: number): string {
+/** A dimension line with arrows; the label sits on the side away from the piece when the line is outside it. */
+function dimension(from: Point, to: Point, label: string, size: number, piece: Box): string {
 	const vertical = Math.abs(to.y - from.y) > Math.abs(to.x - from.x);
 	const mid = { x: (from.x + to.x) / 2, y: (from.y + to.y) / 2 };
 	const angle = (Math.atan2(to.y - from.y, to.x - from.x) * 180) / Math.PI;
 	const readable = vertical ? -90 : Math.abs(angle) > 90 ? angle - 180 : angle;
-	const offset = vertical ? { x: -size * 0.7, y: 0 } : { x: 0, y: -size * 0.7 };
+	const outward = vertical ? (mid.x > piece.x + piece.width / 2 ? 1 : -1) : mid.y > piece.y + piece.height ? 1 : -1;
+	const offset = vertical ? { x: outward * size * 0.7, y: 0 } : { x: 0, y: outward * size * 0.7 };
 	return [
 		`<line x1="${n(from.x)}" y1="${n(from.y)}" x2="${n(to.x)}" y2="${n(to.y)}" ${stroke(woad, 1)}/>`,
 		arrowHead(to, from, size * 0.6, woad),
@@ -139,7 +141,7 @@ export function pieceSvg(piece: DraftPiece, unit: Unit): string {
 		grainline(piece.grainline, size),
 		piece.cut.onFold ? foldMarker(outlineBox, size) : '',
 		pieceLabel(piece, outlineBox, size),
-		...piece.lines.filter((l) => l.dimension).map((l) => dimension(l.dimension!.from, l.dimension!.to, formatLength(l.mm, unit, { withUnit: true }), size)),
+		...piece.lines.filter((l) => l.dimension).map((l) => dimension(l.dimension!.from, l.dimension!.to, formatLength(l.mm, unit, { withUnit: true }), size, outlineBox)),
 		'</svg>'
 	].join('');
 }

@@ -1,0 +1,48 @@
+import { describe, expect, it } from 'vitest';
+import { DraftCalculator } from './calculator.svelte';
+
+describe('DraftCalculator', () => {
+	it('drafts the trousers worked example in inches (common practice: hip 40 → hip width 11)', () => {
+		const calc = new DraftCalculator('wide-leg-trousers');
+		calc.fillExample();
+		expect(calc.unit).toBe('in');
+		expect(calc.missingCount).toBe(0);
+		const front = calc.result.pieces.find((p) => p.id === 'front')!;
+		expect(front.lines.find((l) => l.id === 'hip_width')!.display).toBe('11 in');
+		expect(calc.result.fabric?.buyUnit).toBe('yd');
+	});
+
+	it('switching units rewrites the entries without changing the body', () => {
+		const calc = new DraftCalculator('wide-leg-trousers');
+		calc.fillExample();
+		calc.setUnit('cm');
+		expect(calc.measurementTexts.hip_girth).toBe('101.6');
+		expect(calc.optionTexts.length).toBe('115.6');
+		const front = calc.result.pieces.find((p) => p.id === 'front')!;
+		expect(front.lines.find((l) => l.id === 'hip_width')!.display).toBe('27.9 cm');
+		calc.setUnit('in');
+		expect(calc.measurementTexts.hip_girth).toBe('40');
+	});
+
+	it('reports unreadable entries and counts what is missing', () => {
+		const calc = new DraftCalculator('cropped-top', 'cm');
+		calc.measurementTexts = { bust_girth: 'ninety' };
+		expect(calc.measurements.problems.bust_girth).toMatch(/not a length/);
+		expect(calc.missingCount).toBe(4);
+		expect(calc.result.pieces).toEqual([]);
+	});
+
+	it('attaches warnings to the field they are about', () => {
+		const calc = new DraftCalculator('a-line-skirt', 'cm');
+		calc.measurementTexts = { waist_girth: '72', hip_girth: '38', waist_to_hip: '20' };
+		expect(calc.findingsFor('hip_girth').warnings[0].code).toBe('unit_mixup');
+	});
+
+	it('keeps the fabric width preset when switching units (45 in ↔ 115 cm)', () => {
+		const calc = new DraftCalculator('tunic', 'in');
+		calc.fillExample();
+		expect(calc.widthPresets[calc.widthIndex]).toBe(115);
+		calc.setUnit('in');
+		expect(calc.widthPresets[calc.widthIndex]).toBe(45);
+	});
+});
