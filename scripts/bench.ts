@@ -3,16 +3,36 @@
  * SVGs) and the fabric layout alone. Prints mean and p95 per call after a warm-up.
  */
 import { performance } from 'node:perf_hooks';
-import { draftGarment, estimateFabric, garments, getTemplate, packStrip, resolveOptions, toMm, type DraftRequest } from '../src/lib/drafting/index';
+import {
+	draftGarment,
+	estimateFabric,
+	garments,
+	getTemplate,
+	packStrip,
+	resolveOptions,
+	toMm,
+	type DraftRequest
+} from '../src/lib/drafting/index';
 
 const warmUp = 200;
 const iterations = 2000;
 
 /** Bust, waist and hip: the EN 13402-3 pictogram body 88-72-96; the rest mid-range adult values. */
 const bodyCm = {
-	bust_girth: 88, under_bust_girth: 73, waist_girth: 72, hip_girth: 96, thigh_girth: 56, upper_arm_girth: 28,
-	shoulder_width: 38, nape_to_waist: 41, shoulder_to_bust_point: 25, bust_point_span: 18, waist_to_hip: 20.6,
-	waist_to_floor: 104, inside_leg: 78, stature: 168
+	bust_girth: 88,
+	under_bust_girth: 73,
+	waist_girth: 72,
+	hip_girth: 96,
+	thigh_girth: 56,
+	upper_arm_girth: 28,
+	shoulder_width: 38,
+	nape_to_waist: 41,
+	shoulder_to_bust_point: 25,
+	bust_point_span: 18,
+	waist_to_hip: 20.6,
+	waist_to_floor: 104,
+	inside_leg: 78,
+	stature: 168
 };
 
 function time(run: () => unknown): { mean: number; p95: number } {
@@ -41,10 +61,34 @@ for (const garment of garments) {
 	const pieces = template.draft(bodyMm, resolveOptions(template, {}, bodyMm, 'cm').options).pieces;
 	const spec = { widthMm: 1150, folded: true, directional: false, shrinkagePercent: 0, repeatMm: 0 };
 	const layout = time(() => estimateFabric(pieces, spec, 'cm'));
-	rows.push([garment.id, format(full.mean), format(full.p95), format(layout.mean), format(layout.p95), response.fabric?.lengthDisplay ?? '—']);
+	rows.push([
+		garment.id,
+		format(full.mean),
+		format(full.p95),
+		format(layout.mean),
+		format(layout.p95),
+		response.fabric?.lengthDisplay ?? '—'
+	]);
 }
 
-const c1p1 = [[2, 12], [7, 12], [8, 6], [3, 6], [3, 5], [5, 5], [3, 12], [3, 7], [5, 7], [2, 6], [3, 2], [4, 2], [3, 4], [4, 4], [9, 2], [11, 2]].map(([w, h]) => ({ w, h }));
+const c1p1 = [
+	[2, 12],
+	[7, 12],
+	[8, 6],
+	[3, 6],
+	[3, 5],
+	[5, 5],
+	[3, 12],
+	[3, 7],
+	[5, 7],
+	[2, 6],
+	[3, 2],
+	[4, 2],
+	[3, 4],
+	[4, 4],
+	[9, 2],
+	[11, 2]
+].map(([w, h]) => ({ w, h }));
 const strip = time(() => packStrip(c1p1, 20));
 
 const widths = rows[0].map((_, col) => Math.max(...rows.map((r) => r[col].length)));

@@ -9,7 +9,17 @@ import { chmodSync, existsSync, mkdtempSync, readFileSync, rmSync } from 'node:f
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { startStandins } from '../docker/standins';
-import { buildIfNeeded, freePort, log, migrateAndSeed, root, startDatabase, startServer, stopProcess, waitForHealth } from './lib/local';
+import {
+	buildIfNeeded,
+	freePort,
+	log,
+	migrateAndSeed,
+	root,
+	startDatabase,
+	startServer,
+	stopProcess,
+	waitForHealth
+} from './lib/local';
 
 type Tally = { suite: string; passed: number; failed: number; note?: string };
 const tallies: Tally[] = [];
@@ -46,7 +56,11 @@ function readJson<T>(file: string): T | null {
 
 async function vitestSuite(suite: string, project: string, env: Record<string, string>) {
 	const out = join(work, `${project}.json`);
-	const code = await run(bin('vitest'), ['run', '--project', project, '--reporter=default', '--reporter=json', `--outputFile.json=${out}`], env);
+	const code = await run(
+		bin('vitest'),
+		['run', '--project', project, '--reporter=default', '--reporter=json', `--outputFile.json=${out}`],
+		env
+	);
 	const report = readJson<{ numPassedTests: number; numFailedTests: number; numTotalTests: number }>(out);
 	if (!report) return tallies.push({ suite, passed: 0, failed: 1, note: `vitest exited ${code} without a report` });
 	// A crash outside any test (a file that fails to import) still counts as a failure.
@@ -56,9 +70,13 @@ async function vitestSuite(suite: string, project: string, env: Record<string, s
 
 async function playwrightSuite(env: Record<string, string>) {
 	const out = join(work, 'playwright.json');
-	const code = await run(bin('playwright'), ['test', '--reporter=list,json'], { ...env, PLAYWRIGHT_JSON_OUTPUT_NAME: out });
+	const code = await run(bin('playwright'), ['test', '--reporter=list,json'], {
+		...env,
+		PLAYWRIGHT_JSON_OUTPUT_NAME: out
+	});
 	const report = readJson<{ stats: { expected: number; unexpected: number; flaky: number } }>(out);
-	if (!report) return tallies.push({ suite: 'browser', passed: 0, failed: 1, note: `playwright exited ${code} without a report` });
+	if (!report)
+		return tallies.push({ suite: 'browser', passed: 0, failed: 1, note: `playwright exited ${code} without a report` });
 	const failed = report.stats.unexpected + (code !== 0 && report.stats.unexpected === 0 ? 1 : 0);
 	tallies.push({ suite: 'browser', passed: report.stats.expected + report.stats.flaky, failed });
 }
@@ -93,8 +111,13 @@ async function main() {
 		TACKLINE_BASE_URL: baseUrl
 	};
 
-	const checkCode = await run('npm', ['run', '--silent', 'check']);
-	tallies.push({ suite: 'type check', passed: checkCode === 0 ? 1 : 0, failed: checkCode === 0 ? 0 : 1 });
+	for (const [suite, script] of [
+		['type check', 'check'],
+		['formatting', 'lint']
+	]) {
+		const code = await run('npm', ['run', '--silent', script]);
+		tallies.push({ suite, passed: code === 0 ? 1 : 0, failed: code === 0 ? 0 : 1 });
+	}
 
 	await vitestSuite('unit', 'unit', env);
 

@@ -1,6 +1,12 @@
 import type { SessionUser } from '$lib/types/user';
 
 declare global {
+	namespace NodeJS {
+		interface Process {
+			/** Emitted by adapter-node after a graceful shutdown has drained requests. */
+			on(event: 'sveltekit:shutdown', listener: (reason: 'SIGINT' | 'SIGTERM' | 'IDLE') => void): this;
+		}
+	}
 	namespace App {
 		interface Error {
 			message: string;

@@ -69,11 +69,15 @@ export function initCluster(bin: string, cluster: Cluster) {
 	giveToPostgres(pwfile);
 	try {
 		run(bin, 'initdb', [
-			'-D', cluster.dataDir,
-			'-U', cluster.user,
+			'-D',
+			cluster.dataDir,
+			'-U',
+			cluster.user,
 			`--pwfile=${pwfile}`,
-			'-A', 'scram-sha-256',
-			'-E', 'UTF8',
+			'-A',
+			'scram-sha-256',
+			'-E',
+			'UTF8',
 			'--locale=C.UTF-8'
 		]);
 	} finally {
@@ -122,5 +126,3 @@ async function createDatabase(cluster: Cluster) {
 		await client.end();
 	}
 }
-
-

@@ -169,8 +169,7 @@ const profiles = {
 } satisfies Record<string, DemoProfile>;
 
 export type ProfileKey = keyof typeof profiles;
-type DemoProfileRow = NewMeasurementProfile &
-	Required<Pick<NewMeasurementProfile, 'id' | 'takenBy' | 'takenAt'>>;
+type DemoProfileRow = NewMeasurementProfile & Required<Pick<NewMeasurementProfile, 'id' | 'takenBy' | 'takenAt'>>;
 
 export function demoMeasurementProfiles(now: Date): Record<ProfileKey, DemoProfileRow> {
 	const rows = Object.entries(profiles).map(([key, { n, owner, takenDaysAgo, ...rest }]) => [

@@ -1,6 +1,11 @@
 import { garments } from './drafting';
 
-const dateFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
+const dateFormat = new Intl.DateTimeFormat('en-GB', {
+	day: 'numeric',
+	month: 'short',
+	year: 'numeric',
+	timeZone: 'UTC'
+});
 
 /** A calendar date stored as `YYYY-MM-DD`, shown the same wherever the viewer is. */
 export function formatDate(isoDate: string) {

@@ -49,7 +49,10 @@ test('an emailed sign-in link from the dev inbox signs the customer in', async (
 	await expect(page.getByText('Check your inbox')).toBeVisible();
 
 	await page.goto('/dev/inbox');
-	await page.getByRole('link', { name: /Your Tackline sign-in link/ }).first().click();
+	await page
+		.getByRole('link', { name: /Your Tackline sign-in link/ })
+		.first()
+		.click();
 	await expect(page).toHaveURL(/\/dev\/inbox\/[a-z0-9-]+$/);
 	await expect(page.getByRole('definition').filter({ hasText: 'customer@tackline.test' })).toBeVisible();
 	await page.getByRole('link', { name: /\/auth\/callback\/nodemailer/ }).click();

@@ -35,7 +35,12 @@ describe('sign-up', () => {
 	});
 
 	it('rejects a short password with a clear message', async () => {
-		const response = await signUp(newClient(), { name: 'Short Pw', email: uniqueEmail('short'), password: 'abc12345', role: 'customer' });
+		const response = await signUp(newClient(), {
+			name: 'Short Pw',
+			email: uniqueEmail('short'),
+			password: 'abc12345',
+			role: 'customer'
+		});
 		expect(response.status).toBe(400);
 		expect(await response.text()).toContain('at least 10 characters');
 	});
@@ -109,10 +114,20 @@ describe('suspension from the resolution desk', () => {
 		expect(missingReason.status).toBe(400);
 		expect(await missingReason.text()).toContain('Say briefly why');
 
-		expect((await admin.post('/desk/users?/suspend', { userId: target.id, reason: 'Asked customers to pay outside Tackline' })).status).toBe(200);
+		expect(
+			(
+				await admin.post('/desk/users?/suspend', {
+					userId: target.id,
+					reason: 'Asked customers to pay outside Tackline'
+				})
+			).status
+		).toBe(200);
 		expect((await member.get('/workroom')).headers.get('location')).toBe('/sign-in?suspended=1');
 		expect((await signIn(newClient(), email, 'rule breaker pw')).status).toBe(403);
-		const events = await db.select({ action: auditEvent.action, actorId: auditEvent.actorId }).from(auditEvent).where(eq(auditEvent.subjectId, target.id));
+		const events = await db
+			.select({ action: auditEvent.action, actorId: auditEvent.actorId })
+			.from(auditEvent)
+			.where(eq(auditEvent.subjectId, target.id));
 		expect(events.map((e) => e.action)).toEqual(expect.arrayContaining(['account.registered', 'account.suspended']));
 
 		expect((await admin.post('/desk/users?/reinstate', { userId: target.id })).status).toBe(200);

@@ -31,10 +31,21 @@ describe('GET /api/v1/garments', () => {
 		const response = await fetch(`${baseUrl}/api/v1/garments?unit=in`);
 		expect(response.status).toBe(200);
 		const garments = await response.json();
-		expect(garments.map((g: { id: string }) => g.id)).toEqual(['wide-leg-trousers', 'cropped-top', 'straight-skirt', 'a-line-skirt', 'shift-dress', 'tunic']);
+		expect(garments.map((g: { id: string }) => g.id)).toEqual([
+			'wide-leg-trousers',
+			'cropped-top',
+			'straight-skirt',
+			'a-line-skirt',
+			'shift-dress',
+			'tunic'
+		]);
 		const first = garments[0];
 		expect(first.requiredMeasurements).toEqual(['hip_girth', 'waist_girth', 'thigh_girth']);
-		expect(first.options.find((o: { id: string }) => o.id === 'waistbandDepth')).toMatchObject({ kind: 'length', unit: 'in', default: 1.5 });
+		expect(first.options.find((o: { id: string }) => o.id === 'waistbandDepth')).toMatchObject({
+			kind: 'length',
+			unit: 'in',
+			default: 1.5
+		});
 	});
 
 	it('refuses an unknown unit with the error body', async () => {
@@ -76,12 +87,22 @@ describe('POST /api/v1/drafts', () => {
 			measurements: { bust_girth: 36, shoulder_width: 15, shoulder_to_bust_point: 9.5, bust_point_span: 7 },
 			options: { length: 18 }
 		});
-		expect(lineValues(body)).toMatchObject({ 'front.fold_width': 16, 'front.bust_width': 11, 'front.dart_position': 3.5, 'front.sleeve_length': 7 });
+		expect(lineValues(body)).toMatchObject({
+			'front.fold_width': 16,
+			'front.bust_width': 11,
+			'front.dart_position': 3.5,
+			'front.sleeve_length': 7
+		});
 	});
 
 	it('gives the same geometry for the same body in centimetres', async () => {
 		const inches = await post('/api/v1/drafts', trousers);
-		const cm = await post('/api/v1/drafts', { ...trousers, unit: 'cm', measurements: { hip_girth: 101.6, waist_girth: 71.12, thigh_girth: 63.5 }, options: { length: 115.57 } });
+		const cm = await post('/api/v1/drafts', {
+			...trousers,
+			unit: 'cm',
+			measurements: { hip_girth: 101.6, waist_girth: 71.12, thigh_girth: 63.5 },
+			options: { length: 115.57 }
+		});
 		const points: Array<[number, number]> = inches.body.pieces[0].outlineMm;
 		points.forEach(([x, y], i) => {
 			expect(cm.body.pieces[0].outlineMm[i][0]).toBeCloseTo(x, 1);
@@ -121,15 +142,40 @@ describe('POST /api/v1/drafts', () => {
 
 describe('POST /api/v1/layouts', () => {
 	it('packs four 5×5 squares into a 10-wide strip at the optimum (hand check: OPT = A/W = 10)', async () => {
-		const { status, body } = await post('/api/v1/layouts', { width: 10, unit: 'cm', pieces: [{ w: 5, h: 5, quantity: 4 }] });
+		const { status, body } = await post('/api/v1/layouts', {
+			width: 10,
+			unit: 'cm',
+			pieces: [{ w: 5, h: 5, quantity: 4 }]
+		});
 		expect(status).toBe(200);
 		expect(body).toMatchObject({ length: 10, efficiency: 1 });
 		expect(body.placements).toHaveLength(4);
 	});
 
 	it('stays within the FFDH bound on Hopper–Turton C1-P1 (W 20, OPT 20, h_max 12)', async () => {
-		const items = [[2, 12], [7, 12], [8, 6], [3, 6], [3, 5], [5, 5], [3, 12], [3, 7], [5, 7], [2, 6], [3, 2], [4, 2], [3, 4], [4, 4], [9, 2], [11, 2]];
-		const { body } = await post('/api/v1/layouts', { width: 20, unit: 'in', pieces: items.map(([w, h]) => ({ w, h })) });
+		const items = [
+			[2, 12],
+			[7, 12],
+			[8, 6],
+			[3, 6],
+			[3, 5],
+			[5, 5],
+			[3, 12],
+			[3, 7],
+			[5, 7],
+			[2, 6],
+			[3, 2],
+			[4, 2],
+			[3, 4],
+			[4, 4],
+			[9, 2],
+			[11, 2]
+		];
+		const { body } = await post('/api/v1/layouts', {
+			width: 20,
+			unit: 'in',
+			pieces: items.map(([w, h]) => ({ w, h }))
+		});
 		// Coffman, Garey, Johnson & Tarjan (1980): FFDH ≤ 1.7·OPT + h_max = 46; never below OPT.
 		expect(body.length).toBeGreaterThanOrEqual(20);
 		expect(body.length).toBeLessThanOrEqual(46);
@@ -161,15 +207,30 @@ describe('POST /api/v1/quotes/estimate', () => {
 	});
 
 	it('uses the garment’s default labour hours and a zero-decimal currency (ISO 4217: JPY 0)', async () => {
-		const { body } = await post('/api/v1/quotes/estimate', { currency: 'JPY', garment: 'tunic', fabric: { supply: 'customer' }, hourlyRateMinor: 3000 });
+		const { body } = await post('/api/v1/quotes/estimate', {
+			currency: 'JPY',
+			garment: 'tunic',
+			fabric: { supply: 'customer' },
+			hourlyRateMinor: 3000
+		});
 		expect(body).toMatchObject({ exponent: 0, labourHours: 3, totalMinor: 9000 });
 	});
 
 	it('answers 400 for money as a float or an unknown currency', async () => {
-		const float = await post('/api/v1/quotes/estimate', { currency: 'USD', labourHours: 1, fabric: { supply: 'customer' }, hourlyRateMinor: 35.5 });
+		const float = await post('/api/v1/quotes/estimate', {
+			currency: 'USD',
+			labourHours: 1,
+			fabric: { supply: 'customer' },
+			hourlyRateMinor: 35.5
+		});
 		expect(float.status).toBe(400);
 		expect(issuePaths(float.body)).toEqual(['hourlyRateMinor']);
-		const currency = await post('/api/v1/quotes/estimate', { currency: 'ABC', labourHours: 1, fabric: { supply: 'customer' }, hourlyRateMinor: 3500 });
+		const currency = await post('/api/v1/quotes/estimate', {
+			currency: 'ABC',
+			labourHours: 1,
+			fabric: { supply: 'customer' },
+			hourlyRateMinor: 3500
+		});
 		expect(issuePaths(currency.body)).toEqual(['currency']);
 	});
 });

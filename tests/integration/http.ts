@@ -50,8 +50,15 @@ export function uniqueEmail(prefix: string) {
 	return `${prefix}.${Date.now().toString(36)}${randomInt(1000, 9999)}@example.test`;
 }
 
-export async function signUp(client: Client, fields: { name?: string; email: string; password?: string; role: 'customer' | 'tailor' }) {
-	return client.post('/sign-up', { name: fields.name ?? 'Test Person', password: fields.password ?? 'correct horse staple', ...fields });
+export async function signUp(
+	client: Client,
+	fields: { name?: string; email: string; password?: string; role: 'customer' | 'tailor' }
+) {
+	return client.post('/sign-up', {
+		name: fields.name ?? 'Test Person',
+		password: fields.password ?? 'correct horse staple',
+		...fields
+	});
 }
 
 export async function signIn(client: Client, email: string, password: string) {

@@ -115,7 +115,10 @@ describe('checkMissing and checkMeasurements', () => {
 	});
 
 	it('puts value warnings, missing errors and relation errors together', () => {
-		const result = checkMeasurements({ hip_girth: 1600, inside_leg: 1000, waist_to_floor: 900 }, 'cm', ['hip_girth', 'waist_girth']);
+		const result = checkMeasurements({ hip_girth: 1600, inside_leg: 1000, waist_to_floor: 900 }, 'cm', [
+			'hip_girth',
+			'waist_girth'
+		]);
 		expect(result.warnings.map((w) => w.code)).toContain('out_of_range');
 		expect(result.errors.map((e) => e.code).sort()).toEqual(['impossible_relation', 'missing_measurements']);
 	});

@@ -90,29 +90,156 @@ interface Relation {
  * (waist/hip p5–p95 0.749–1.020 women to men; crotch height/stature 0.456–0.506) — common practice margins.
  */
 const relations: Relation[] = [
-	rel('inside_leg', 'waist_to_floor', (a, b) => a >= b, 'error', (a, b) => `Inside leg (${a}) must be shorter than waist to floor (${b}).`),
-	rel('waist_to_floor', 'stature', (a, b) => a >= b, 'error', (a, b) => `Waist to floor (${a}) must be less than height (${b}).`),
-	rel('inside_leg', 'stature', (a, b) => a >= b, 'error', (a, b) => `Inside leg (${a}) must be less than height (${b}).`),
-	rel('arm_length', 'stature', (a, b) => a >= b, 'error', (a, b) => `Arm length (${a}) must be less than height (${b}).`),
-	rel('body_rise', 'waist_to_floor', (a, b) => a >= b, 'error', (a, b) => `Body rise (${a}) must be less than waist to floor (${b}).`),
-	rel('waist_to_hip', 'waist_to_floor', (a, b) => a >= b, 'error', (a, b) => `Waist to hip (${a}) must be less than waist to floor (${b}).`),
-	rel('under_bust_girth', 'bust_girth', (a, b) => a > b, 'error', (a, b) => `Under bust (${a}) cannot be more than the bust (${b}), which is the fullest girth of the chest.`),
-	rel('bust_point_span', 'bust_girth', (a, b) => a >= b / 2, 'error', (a, b) => `Bust point span (${a}) must be less than half the bust (${b}).`),
-	rel('thigh_girth', 'hip_girth', (a, b) => a >= b, 'error', (a, b) => `One thigh (${a}) cannot be as big as the hip round both legs (${b}).`),
-	rel('neck_girth', 'bust_girth', (a, b) => a >= b, 'error', (a, b) => `Neck (${a}) must be less than the bust (${b}).`),
-	rel('waist_girth', 'hip_girth', (a, b) => a / b > 1.25, 'warning', (a, b) => `Waist (${a}) is much larger than hip (${b}); please check both.`),
-	rel('waist_girth', 'hip_girth', (a, b) => a / b < 0.6, 'warning', (a, b) => `Waist (${a}) is much smaller than hip (${b}); please check both.`),
-	rel('inside_leg', 'stature', (a, b) => a / b < 0.4 || a / b > 0.56, 'warning', (a, b) => `Inside leg (${a}) is an unusual share of height (${b}); please check both.`),
-	rel('shoulder_width', 'bust_girth', (a, b) => a / b > 0.6 || a / b < 0.25, 'warning', (a, b) => `Shoulder width (${a}) is unusual for a bust of ${b}; measure across the back from shoulder tip to shoulder tip.`),
-	rel('across_back', 'shoulder_width', (a, b) => a > b, 'warning', (a, b) => `Across back (${a}) is usually less than shoulder width (${b}).`),
-	rel('under_bust_girth', 'bust_girth', (a, b) => b - a > 400, 'warning', (a, b) => `Bust (${b}) is unusually far above under bust (${a}); please check both.`),
-	rel('wrist_girth', 'upper_arm_girth', (a, b) => a >= b, 'warning', (a, b) => `Wrist (${a}) is usually smaller than upper arm (${b}).`),
-	rel('knee_girth', 'thigh_girth', (a, b) => a >= b, 'warning', (a, b) => `Knee (${a}) is usually smaller than thigh (${b}).`),
-	rel('ankle_girth', 'knee_girth', (a, b) => a >= b, 'warning', (a, b) => `Ankle (${a}) is usually smaller than knee (${b}).`),
-	rel('shoulder_to_bust_point', 'nape_to_waist', (a, b) => a >= b, 'warning', (a, b) => `Shoulder to bust point (${a}) is usually shorter than nape to waist (${b}).`)
+	rel(
+		'inside_leg',
+		'waist_to_floor',
+		(a, b) => a >= b,
+		'error',
+		(a, b) => `Inside leg (${a}) must be shorter than waist to floor (${b}).`
+	),
+	rel(
+		'waist_to_floor',
+		'stature',
+		(a, b) => a >= b,
+		'error',
+		(a, b) => `Waist to floor (${a}) must be less than height (${b}).`
+	),
+	rel(
+		'inside_leg',
+		'stature',
+		(a, b) => a >= b,
+		'error',
+		(a, b) => `Inside leg (${a}) must be less than height (${b}).`
+	),
+	rel(
+		'arm_length',
+		'stature',
+		(a, b) => a >= b,
+		'error',
+		(a, b) => `Arm length (${a}) must be less than height (${b}).`
+	),
+	rel(
+		'body_rise',
+		'waist_to_floor',
+		(a, b) => a >= b,
+		'error',
+		(a, b) => `Body rise (${a}) must be less than waist to floor (${b}).`
+	),
+	rel(
+		'waist_to_hip',
+		'waist_to_floor',
+		(a, b) => a >= b,
+		'error',
+		(a, b) => `Waist to hip (${a}) must be less than waist to floor (${b}).`
+	),
+	rel(
+		'under_bust_girth',
+		'bust_girth',
+		(a, b) => a > b,
+		'error',
+		(a, b) => `Under bust (${a}) cannot be more than the bust (${b}), which is the fullest girth of the chest.`
+	),
+	rel(
+		'bust_point_span',
+		'bust_girth',
+		(a, b) => a >= b / 2,
+		'error',
+		(a, b) => `Bust point span (${a}) must be less than half the bust (${b}).`
+	),
+	rel(
+		'thigh_girth',
+		'hip_girth',
+		(a, b) => a >= b,
+		'error',
+		(a, b) => `One thigh (${a}) cannot be as big as the hip round both legs (${b}).`
+	),
+	rel(
+		'neck_girth',
+		'bust_girth',
+		(a, b) => a >= b,
+		'error',
+		(a, b) => `Neck (${a}) must be less than the bust (${b}).`
+	),
+	rel(
+		'waist_girth',
+		'hip_girth',
+		(a, b) => a / b > 1.25,
+		'warning',
+		(a, b) => `Waist (${a}) is much larger than hip (${b}); please check both.`
+	),
+	rel(
+		'waist_girth',
+		'hip_girth',
+		(a, b) => a / b < 0.6,
+		'warning',
+		(a, b) => `Waist (${a}) is much smaller than hip (${b}); please check both.`
+	),
+	rel(
+		'inside_leg',
+		'stature',
+		(a, b) => a / b < 0.4 || a / b > 0.56,
+		'warning',
+		(a, b) => `Inside leg (${a}) is an unusual share of height (${b}); please check both.`
+	),
+	rel(
+		'shoulder_width',
+		'bust_girth',
+		(a, b) => a / b > 0.6 || a / b < 0.25,
+		'warning',
+		(a, b) =>
+			`Shoulder width (${a}) is unusual for a bust of ${b}; measure across the back from shoulder tip to shoulder tip.`
+	),
+	rel(
+		'across_back',
+		'shoulder_width',
+		(a, b) => a > b,
+		'warning',
+		(a, b) => `Across back (${a}) is usually less than shoulder width (${b}).`
+	),
+	rel(
+		'under_bust_girth',
+		'bust_girth',
+		(a, b) => b - a > 400,
+		'warning',
+		(a, b) => `Bust (${b}) is unusually far above under bust (${a}); please check both.`
+	),
+	rel(
+		'wrist_girth',
+		'upper_arm_girth',
+		(a, b) => a >= b,
+		'warning',
+		(a, b) => `Wrist (${a}) is usually smaller than upper arm (${b}).`
+	),
+	rel(
+		'knee_girth',
+		'thigh_girth',
+		(a, b) => a >= b,
+		'warning',
+		(a, b) => `Knee (${a}) is usually smaller than thigh (${b}).`
+	),
+	rel(
+		'ankle_girth',
+		'knee_girth',
+		(a, b) => a >= b,
+		'warning',
+		(a, b) => `Ankle (${a}) is usually smaller than knee (${b}).`
+	),
+	rel(
+		'shoulder_to_bust_point',
+		'nape_to_waist',
+		(a, b) => a >= b,
+		'warning',
+		(a, b) => `Shoulder to bust point (${a}) is usually shorter than nape to waist (${b}).`
+	)
 ];
 
-function rel(a: MeasurementCode, b: MeasurementCode, violated: Both, severity: 'warning' | 'error', describe: Relation['describe']): Relation {
+function rel(
+	a: MeasurementCode,
+	b: MeasurementCode,
+	violated: Both,
+	severity: 'warning' | 'error',
+	describe: Relation['describe']
+): Relation {
 	return { a, b, violated, severity, describe };
 }
 

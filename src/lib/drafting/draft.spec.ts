@@ -61,7 +61,12 @@ describe('draftGarment — response shape and the dressmaker’s method (common 
 	});
 
 	it('gives values in centimetres when asked in centimetres', () => {
-		const response = draftGarment({ ...trouserRequest, unit: 'cm', measurements: { hip_girth: 101.6, waist_girth: 71.12, thigh_girth: 63.5 }, options: { length: 115.57 } });
+		const response = draftGarment({
+			...trouserRequest,
+			unit: 'cm',
+			measurements: { hip_girth: 101.6, waist_girth: 71.12, thigh_girth: 63.5 },
+			options: { length: 115.57 }
+		});
 		expect(lineValues(response)['front.hip_width']).toBeCloseTo(27.94, 2);
 		expect(response.pieces[0].lines.find((l) => l.id === 'hip_width')!.display).toBe('27.9 cm');
 		expect(response.fabric!.buyUnit).toBe('m');
@@ -93,21 +98,36 @@ describe('draftGarment — checks', () => {
 	});
 
 	it('warns without blocking on an out-of-range value', () => {
-		const response = draftGarment({ ...trouserRequest, measurements: { ...trouserRequest.measurements, hip_girth: 62 } });
+		const response = draftGarment({
+			...trouserRequest,
+			measurements: { ...trouserRequest.measurements, hip_girth: 62 }
+		});
 		expect(response.errors).toEqual([]);
 		expect(response.warnings.map((w) => w.code)).toContain('out_of_range');
 		expect(response.pieces).toHaveLength(3);
 	});
 
 	it('blocks an impossible relation', () => {
-		const response = draftGarment({ ...trouserRequest, measurements: { ...trouserRequest.measurements, inside_leg: 40, waist_to_floor: 39 } });
+		const response = draftGarment({
+			...trouserRequest,
+			measurements: { ...trouserRequest.measurements, inside_leg: 40, waist_to_floor: 39 }
+		});
 		expect(response.errors[0].code).toBe('impossible_relation');
 	});
 
 	it('carries the neck-cord caution on the tunic and a child caution for child measurements', () => {
-		const tunic = draftGarment({ garment: 'tunic', unit: 'cm', measurements: { bust_girth: 88, hip_girth: 96, shoulder_width: 38 } });
+		const tunic = draftGarment({
+			garment: 'tunic',
+			unit: 'cm',
+			measurements: { bust_girth: 88, hip_girth: 96, shoulder_width: 38 }
+		});
 		expect(tunic.cautions.map((c) => c.code)).toEqual(['neck_cords']);
-		const child = draftGarment({ garment: 'a-line-skirt', unit: 'cm', measurements: { stature: 128, waist_girth: 56, hip_girth: 66, waist_to_hip: 14 }, options: { length: 35 } });
+		const child = draftGarment({
+			garment: 'a-line-skirt',
+			unit: 'cm',
+			measurements: { stature: 128, waist_girth: 56, hip_girth: 66, waist_to_hip: 14 },
+			options: { length: 35 }
+		});
 		expect(child.cautions.map((c) => c.code)).toContain('child_garment');
 	});
 

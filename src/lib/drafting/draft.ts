@@ -73,7 +73,12 @@ export const childCaution: Caution = {
 		'These look like a child’s measurements. No drawstrings or cords at the hood or neck (EN 14682; 16 CFR 1120 in the US), keep waist cords short and bar-tacked, and note that children’s sleepwear has its own flammability rules (16 CFR 1615/1616). Follow your local code.'
 };
 
-const line = (id: string, label: string, mm: number, unit: Unit): LineOut => ({ id, label, value: toUnitValue(mm, unit), display: formatLength(mm, unit, { withUnit: true }) });
+const line = (id: string, label: string, mm: number, unit: Unit): LineOut => ({
+	id,
+	label,
+	value: toUnitValue(mm, unit),
+	display: formatLength(mm, unit, { withUnit: true })
+});
 
 function cautionsFor(body: Measurements, templateCautions: Caution[]): Caution[] {
 	const cautions = [...templateCautions];
@@ -110,7 +115,8 @@ export function draftGarmentMm(input: DraftInputMm): DraftResponse {
 		warnings: checks.warnings,
 		errors
 	};
-	if (errors.length) return { ...base, pieces: [], fabric: null, allowances: [], notes: [], cautions: cautionsFor(bodyMm, []) };
+	if (errors.length)
+		return { ...base, pieces: [], fabric: null, allowances: [], notes: [], cautions: cautionsFor(bodyMm, []) };
 
 	const draft = template.draft(bodyMm, resolved.options);
 	const spec = { ...defaultFabricSpec(unit), ...input.fabric };
@@ -143,9 +149,14 @@ export function draftGarment(request: DraftRequest): DraftResponse {
 	const { unit } = parsed;
 	const template = getTemplate(parsed.garment);
 	const lengthIds = new Set(template.options.filter((o) => o.kind === 'length').map((o) => o.id));
-	const bodyMm = Object.fromEntries(Object.entries(parsed.measurements).map(([code, value]) => [code, toMm(value, unit)])) as Record<MeasurementCode, number>;
+	const bodyMm = Object.fromEntries(
+		Object.entries(parsed.measurements).map(([code, value]) => [code, toMm(value, unit)])
+	) as Record<MeasurementCode, number>;
 	const optionsMm: Record<string, OptionValue> = Object.fromEntries(
-		Object.entries(parsed.options).map(([id, value]) => [id, lengthIds.has(id) && typeof value === 'number' ? toMm(value, unit) : value])
+		Object.entries(parsed.options).map(([id, value]) => [
+			id,
+			lengthIds.has(id) && typeof value === 'number' ? toMm(value, unit) : value
+		])
 	);
 	const fabric = parsed.fabric && {
 		widthMm: toMm(parsed.fabric.width, unit),
@@ -156,4 +167,3 @@ export function draftGarment(request: DraftRequest): DraftResponse {
 	};
 	return draftGarmentMm({ garment: parsed.garment, unit, bodyMm, optionsMm, fabric });
 }
-

@@ -19,7 +19,14 @@ function rect(id: string, w: number, h: number, cut: Partial<DraftPiece['cut']> 
 	};
 }
 
-const spec = (widthMm: number, extra: Partial<FabricSpec> = {}): FabricSpec => ({ widthMm, folded: true, directional: false, shrinkagePercent: 0, repeatMm: 0, ...extra });
+const spec = (widthMm: number, extra: Partial<FabricSpec> = {}): FabricSpec => ({
+	widthMm,
+	folded: true,
+	directional: false,
+	shrinkagePercent: 0,
+	repeatMm: 0,
+	...extra
+});
 
 describe('fabric estimate', () => {
 	it('cuts a pair from one placement on folded cloth and fills it exactly', () => {
@@ -51,15 +58,27 @@ describe('fabric estimate', () => {
 	});
 
 	it('adds shrinkage to the length and takes it off the width (common practice)', () => {
-		const { estimate } = estimateFabric([rect('leg', 475, 1000, { quantity: 2, pair: true })], spec(1000, { shrinkagePercent: 5 }), 'cm');
+		const { estimate } = estimateFabric(
+			[rect('leg', 475, 1000, { quantity: 2, pair: true })],
+			spec(1000, { shrinkagePercent: 5 }),
+			'cm'
+		);
 		expect(estimate!.layWidthMm).toBeCloseTo(475, 9);
 		expect(estimate!.lengthMm).toBeCloseTo(1000 / 0.95, 9);
 		expect(estimate!.rounded.value).toBe(1.1);
 	});
 
 	it('starts every piece on a pattern repeat', () => {
-		const { estimate } = estimateFabric([rect('a', 400, 250), rect('b', 400, 250), rect('c', 400, 250)], spec(800), 'in');
-		const repeated = estimateFabric([rect('a', 400, 250), rect('b', 400, 250), rect('c', 400, 250)], spec(800, { repeatMm: 320 }), 'in').estimate!;
+		const { estimate } = estimateFabric(
+			[rect('a', 400, 250), rect('b', 400, 250), rect('c', 400, 250)],
+			spec(800),
+			'in'
+		);
+		const repeated = estimateFabric(
+			[rect('a', 400, 250), rect('b', 400, 250), rect('c', 400, 250)],
+			spec(800, { repeatMm: 320 }),
+			'in'
+		).estimate!;
 		for (const p of repeated.placements) expect(p.y % 320).toBeCloseTo(0, 9);
 		expect(repeated.packedMm).toBeGreaterThan(estimate!.packedMm);
 	});
@@ -74,23 +93,31 @@ describe('every garment on every preset width (property)', () => {
 	it('keeps every placement inside the cloth and never below the longest piece', () => {
 		const unitArb = fc.constantFrom('in' as const, 'cm' as const);
 		fc.assert(
-			fc.property(fc.constantFrom(...Object.values(templates)), fc.double({ min: 0.85, max: 1.35, noNaN: true }), unitArb, fc.boolean(), (template, scale, unit, folded) => {
-				const body = Object.fromEntries(Object.entries(standardBodyCm).map(([k, v]) => [k, k.endsWith('girth') ? v * scale : v]));
-				const draft = draftIn(template, 'cm', body);
-				for (const width of fabricWidthPresets[unit]) {
-					const { estimate } = estimateFabric(draft.pieces, spec(toMm(width, unit), { folded }), unit);
-					if (!estimate) continue;
-					for (const p of estimate.placements) {
-						expect(p.x).toBeGreaterThanOrEqual(0);
-						expect(p.x + p.w).toBeLessThanOrEqual(estimate.layWidthMm + 1e-6);
+			fc.property(
+				fc.constantFrom(...Object.values(templates)),
+				fc.double({ min: 0.85, max: 1.35, noNaN: true }),
+				unitArb,
+				fc.boolean(),
+				(template, scale, unit, folded) => {
+					const body = Object.fromEntries(
+						Object.entries(standardBodyCm).map(([k, v]) => [k, k.endsWith('girth') ? v * scale : v])
+					);
+					const draft = draftIn(template, 'cm', body);
+					for (const width of fabricWidthPresets[unit]) {
+						const { estimate } = estimateFabric(draft.pieces, spec(toMm(width, unit), { folded }), unit);
+						if (!estimate) continue;
+						for (const p of estimate.placements) {
+							expect(p.x).toBeGreaterThanOrEqual(0);
+							expect(p.x + p.w).toBeLessThanOrEqual(estimate.layWidthMm + 1e-6);
+						}
+						const longest = Math.max(...estimate.placements.map((p) => p.h));
+						expect(estimate.packedMm).toBeGreaterThanOrEqual(longest);
+						expect(estimate.efficiency).toBeGreaterThan(0);
+						expect(estimate.efficiency).toBeLessThanOrEqual(1);
+						expect(estimate.rounded.mm).toBeGreaterThanOrEqual(estimate.lengthMm - 1e-9);
 					}
-					const longest = Math.max(...estimate.placements.map((p) => p.h));
-					expect(estimate.packedMm).toBeGreaterThanOrEqual(longest);
-					expect(estimate.efficiency).toBeGreaterThan(0);
-					expect(estimate.efficiency).toBeLessThanOrEqual(1);
-					expect(estimate.rounded.mm).toBeGreaterThanOrEqual(estimate.lengthMm - 1e-9);
 				}
-			}),
+			),
 			{ numRuns: 40 }
 		);
 	});

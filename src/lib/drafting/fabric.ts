@@ -69,17 +69,69 @@ function layItems(pieces: readonly DraftPiece[], folded: boolean): LayItem[] {
 		const area = polygonArea(piece.outline);
 		const { quantity, onFold, pair } = piece.cut;
 		if (folded) {
-			if (onFold) return { piece, w: box.width, h: box.height, quantity, anchorLeft: true, unfolded: false, yields: 1, areaPerCut: 2 * area };
-			if (pair) return { piece, w: box.width, h: box.height, quantity: Math.ceil(quantity / 2), anchorLeft: false, unfolded: false, yields: 2, areaPerCut: area };
-			return { piece, w: box.width, h: box.height, quantity, anchorLeft: false, unfolded: false, yields: 1, areaPerCut: area };
+			if (onFold)
+				return {
+					piece,
+					w: box.width,
+					h: box.height,
+					quantity,
+					anchorLeft: true,
+					unfolded: false,
+					yields: 1,
+					areaPerCut: 2 * area
+				};
+			if (pair)
+				return {
+					piece,
+					w: box.width,
+					h: box.height,
+					quantity: Math.ceil(quantity / 2),
+					anchorLeft: false,
+					unfolded: false,
+					yields: 2,
+					areaPerCut: area
+				};
+			return {
+				piece,
+				w: box.width,
+				h: box.height,
+				quantity,
+				anchorLeft: false,
+				unfolded: false,
+				yields: 1,
+				areaPerCut: area
+			};
 		}
-		if (onFold) return { piece, w: 2 * box.width, h: box.height, quantity, anchorLeft: false, unfolded: true, yields: 1, areaPerCut: 2 * area };
-		return { piece, w: box.width, h: box.height, quantity, anchorLeft: false, unfolded: false, yields: 1, areaPerCut: area };
+		if (onFold)
+			return {
+				piece,
+				w: 2 * box.width,
+				h: box.height,
+				quantity,
+				anchorLeft: false,
+				unfolded: true,
+				yields: 1,
+				areaPerCut: 2 * area
+			};
+		return {
+			piece,
+			w: box.width,
+			h: box.height,
+			quantity,
+			anchorLeft: false,
+			unfolded: false,
+			yields: 1,
+			areaPerCut: area
+		};
 	});
 }
 
 /** Lays the pieces' boxes on the cloth and reports the length to buy. Null when the cloth is too narrow. */
-export function estimateFabric(pieces: readonly DraftPiece[], spec: FabricSpec, unit: Unit): { estimate: FabricEstimate | null; warnings: Finding[] } {
+export function estimateFabric(
+	pieces: readonly DraftPiece[],
+	spec: FabricSpec,
+	unit: Unit
+): { estimate: FabricEstimate | null; warnings: Finding[] } {
 	const shrink = Math.min(Math.max(spec.shrinkagePercent, 0), 50) / 100;
 	const usable = spec.widthMm * (1 - shrink);
 	const warnings: Finding[] = [];
@@ -90,12 +142,20 @@ export function estimateFabric(pieces: readonly DraftPiece[], spec: FabricSpec, 
 		folded = false;
 		items = layItems(pieces, false);
 		layWidth = usable;
-		warnings.push({ code: 'fabric_too_narrow', fields: ['fabric.width'], message: 'Some pieces are wider than the folded cloth, so the layout uses it opened out.' });
+		warnings.push({
+			code: 'fabric_too_narrow',
+			fields: ['fabric.width'],
+			message: 'Some pieces are wider than the folded cloth, so the layout uses it opened out.'
+		});
 	}
 	const tooWide = items.filter((i) => i.w > layWidth + 1e-6);
 	if (tooWide.length) {
 		const names = tooWide.map((i) => `${i.piece.label} (${formatLength(i.w, unit, { withUnit: true })})`).join(', ');
-		warnings.push({ code: 'fabric_too_narrow', fields: ['fabric.width'], message: `Too wide for ${formatLength(spec.widthMm, unit, { withUnit: true })} cloth: ${names}. Choose a wider cloth or add a seam.` });
+		warnings.push({
+			code: 'fabric_too_narrow',
+			fields: ['fabric.width'],
+			message: `Too wide for ${formatLength(spec.widthMm, unit, { withUnit: true })} cloth: ${names}. Choose a wider cloth or add a seam.`
+		});
 		return { estimate: null, warnings };
 	}
 	const rotate: Rotation = spec.directional ? 'none' : '180';
@@ -107,7 +167,17 @@ export function estimateFabric(pieces: readonly DraftPiece[], spec: FabricSpec, 
 	const placements: FabricPlacement[] = packed.placements.map((p) => {
 		const item = items[p.item];
 		const box = boundingBox(item.piece.outline);
-		return { pieceId: item.piece.id, label: item.piece.label, x: p.x, y: p.y, w: p.w, h: p.h, origin: { x: box.x, y: box.y }, unfolded: item.unfolded, yields: item.yields };
+		return {
+			pieceId: item.piece.id,
+			label: item.piece.label,
+			x: p.x,
+			y: p.y,
+			w: p.w,
+			h: p.h,
+			origin: { x: box.x, y: box.y },
+			unfolded: item.unfolded,
+			yields: item.yields
+		};
 	});
 	const cutArea = packed.placements.reduce((sum, p) => sum + items[p.item].areaPerCut * items[p.item].yields, 0);
 	const clothArea = usable * packed.length;
@@ -131,5 +201,11 @@ export function estimateFabric(pieces: readonly DraftPiece[], spec: FabricSpec, 
 }
 
 export function defaultFabricSpec(unit: Unit): FabricSpec {
-	return { widthMm: toMm(defaultFabricWidth[unit], unit), folded: true, directional: false, shrinkagePercent: 0, repeatMm: 0 };
+	return {
+		widthMm: toMm(defaultFabricWidth[unit], unit),
+		folded: true,
+		directional: false,
+		shrinkagePercent: 0,
+		repeatMm: 0
+	};
 }

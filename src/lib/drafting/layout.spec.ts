@@ -5,8 +5,22 @@ import { packFfdh, packNfdh, packSkyline, packStrip, type PackResult, type RectI
 // Hopper & Turton (2001) class C, instance C1-P1 (2DPackLib, University of Bologna): a zero-waste packing,
 // so OPT = A/W = 400/20 = 20; h_max = 12.
 const c1p1: RectItem[] = [
-	[2, 12], [7, 12], [8, 6], [3, 6], [3, 5], [5, 5], [3, 12], [3, 7],
-	[5, 7], [2, 6], [3, 2], [4, 2], [3, 4], [4, 4], [9, 2], [11, 2]
+	[2, 12],
+	[7, 12],
+	[8, 6],
+	[3, 6],
+	[3, 5],
+	[5, 5],
+	[3, 12],
+	[3, 7],
+	[5, 7],
+	[2, 6],
+	[3, 2],
+	[4, 2],
+	[3, 4],
+	[4, 4],
+	[9, 2],
+	[11, 2]
 ].map(([w, h]) => ({ w, h }));
 
 function overlaps(a: { x: number; y: number; w: number; h: number }, b: typeof a): boolean {
@@ -76,26 +90,54 @@ describe('four 5×5 squares in a strip 10 wide (hand check: OPT = A/W = 10)', ()
 
 describe('rotation, anchoring and repeats', () => {
 	it('turns a long piece across the strip only when rotation is "any"', () => {
-		const strip = [{ w: 2, h: 10 }, { w: 8, h: 2 }];
-		expect(packStrip(strip.map((r) => ({ ...r, rotate: 'none' as const })), 10).length).toBe(10);
-		const turned = packStrip(strip.map((r) => ({ ...r, rotate: 'any' as const })), 10);
+		const strip = [
+			{ w: 2, h: 10 },
+			{ w: 8, h: 2 }
+		];
+		expect(
+			packStrip(
+				strip.map((r) => ({ ...r, rotate: 'none' as const })),
+				10
+			).length
+		).toBe(10);
+		const turned = packStrip(
+			strip.map((r) => ({ ...r, rotate: 'any' as const })),
+			10
+		);
 		expect(turned.length).toBe(4);
 		expect(turned.placements.some((p) => p.rotated)).toBe(true);
 	});
 
 	it('a 180° turn never changes a rectangle’s footprint', () => {
-		const items: RectItem[] = [{ w: 3, h: 7, rotate: '180' }, { w: 6, h: 4, rotate: '180' }];
-		expect(packStrip(items, 10).length).toBe(packStrip(items.map((i) => ({ ...i, rotate: 'none' })), 10).length);
+		const items: RectItem[] = [
+			{ w: 3, h: 7, rotate: '180' },
+			{ w: 6, h: 4, rotate: '180' }
+		];
+		expect(packStrip(items, 10).length).toBe(
+			packStrip(
+				items.map((i) => ({ ...i, rotate: 'none' })),
+				10
+			).length
+		);
 		expect(packStrip(items, 10).placements.every((p) => !p.rotated)).toBe(true);
 	});
 
 	it('keeps anchored (cut-on-fold) pieces against the left edge', () => {
-		const items: RectItem[] = [{ w: 4, h: 6 }, { w: 3, h: 5, anchorLeft: true, quantity: 2 }, { w: 5, h: 3 }];
-		for (const result of [packFfdh(items, 10), packSkyline(items, 10), packStrip(items, 10)]) expectValid(result, items);
+		const items: RectItem[] = [
+			{ w: 4, h: 6 },
+			{ w: 3, h: 5, anchorLeft: true, quantity: 2 },
+			{ w: 5, h: 3 }
+		];
+		for (const result of [packFfdh(items, 10), packSkyline(items, 10), packStrip(items, 10)])
+			expectValid(result, items);
 	});
 
 	it('starts every piece on a pattern repeat', () => {
-		const items: RectItem[] = [{ w: 6, h: 7 }, { w: 6, h: 7 }, { w: 3, h: 2, quantity: 3 }];
+		const items: RectItem[] = [
+			{ w: 6, h: 7 },
+			{ w: 6, h: 7 },
+			{ w: 3, h: 2, quantity: 3 }
+		];
 		const result = packStrip(items, 10, { yStep: 8 });
 		expectValid(result, items);
 		for (const p of result.placements) expect(p.y % 8).toBe(0);
@@ -110,7 +152,14 @@ describe('rotation, anchoring and repeats', () => {
 describe('properties over random instances', () => {
 	const instance = fc.record({
 		width: fc.integer({ min: 10, max: 60 }),
-		items: fc.array(fc.record({ w: fc.integer({ min: 1, max: 10 }), h: fc.integer({ min: 1, max: 30 }), quantity: fc.integer({ min: 1, max: 3 }) }), { minLength: 1, maxLength: 25 })
+		items: fc.array(
+			fc.record({
+				w: fc.integer({ min: 1, max: 10 }),
+				h: fc.integer({ min: 1, max: 30 }),
+				quantity: fc.integer({ min: 1, max: 3 })
+			}),
+			{ minLength: 1, maxLength: 25 }
+		)
 	});
 
 	it('never below max(A/W, h_max); FFDH and NFDH within 2·A/W + h_max; packStrip ≤ FFDH; all inside the width', () => {

@@ -64,7 +64,15 @@ function expand(items: readonly RectItem[], width: number): Unit[] {
 			throw new RangeError(`Item ${item} (${it.w} wide) does not fit a strip ${width} wide`);
 		}
 		for (let copy = 0; copy < (it.quantity ?? 1); copy++) {
-			units.push({ item, copy, w: it.w, h: it.h, canTurn, anchorLeft: it.anchorLeft ?? false, area: it.area ?? it.w * it.h });
+			units.push({
+				item,
+				copy,
+				w: it.w,
+				h: it.h,
+				canTurn,
+				anchorLeft: it.anchorLeft ?? false,
+				area: it.area ?? it.w * it.h
+			});
 		}
 	});
 	return units;
@@ -83,7 +91,14 @@ const stepUp = (y: number, step: number) => (step > 0 ? Math.max(0, Math.ceil(y 
 function finish(units: Unit[], placements: Placement[], width: number, algorithm: Algorithm): PackResult {
 	const length = placements.reduce((max, p) => Math.max(max, p.y + p.h), 0);
 	const area = units.reduce((sum, u) => sum + u.area, 0);
-	return { width, length, placements, efficiency: length > 0 ? area / (width * length) : 0, lowerBound: lowerBound(units, width), algorithm };
+	return {
+		width,
+		length,
+		placements,
+		efficiency: length > 0 ? area / (width * length) : 0,
+		lowerBound: lowerBound(units, width),
+		algorithm
+	};
 }
 
 function lowerBound(units: Unit[], width: number): number {
@@ -133,19 +148,33 @@ const orders: Order[] = [
 ];
 
 /** Skyline bottom-left: each piece goes where its top ends lowest, then leftmost. */
-export function packSkyline(items: readonly RectItem[], width: number, options: PackOptions = {}, order: Order = orders[0]): PackResult {
+export function packSkyline(
+	items: readonly RectItem[],
+	width: number,
+	options: PackOptions = {},
+	order: Order = orders[0]
+): PackResult {
 	const units = expand(items, width);
 	const sorted = [...units].sort(order);
 	let skyline: Segment[] = [{ x: 0, y: 0, w: width }];
 	const placements: Placement[] = [];
 	for (const u of sorted) {
-		const shapes = u.canTurn ? [{ w: u.w, h: u.h, rotated: false }, { w: u.h, h: u.w, rotated: true }] : [{ w: u.w, h: u.h, rotated: false }];
+		const shapes = u.canTurn
+			? [
+					{ w: u.w, h: u.h, rotated: false },
+					{ w: u.h, h: u.w, rotated: true }
+				]
+			: [{ w: u.w, h: u.h, rotated: false }];
 		let best: Placement | null = null;
 		for (const shape of shapes) {
 			if (shape.w > width + 1e-9) continue;
 			for (const x of candidateXs(skyline, shape.w, width, u.anchorLeft)) {
 				const y = stepUp(restingHeight(skyline, x, shape.w), options.yStep ?? 0);
-				if (!best || y + shape.h < best.y + best.h - 1e-9 || (Math.abs(y + shape.h - best.y - best.h) <= 1e-9 && x < best.x)) {
+				if (
+					!best ||
+					y + shape.h < best.y + best.h - 1e-9 ||
+					(Math.abs(y + shape.h - best.y - best.h) <= 1e-9 && x < best.x)
+				) {
 					best = { item: u.item, copy: u.copy, x, y, w: shape.w, h: shape.h, rotated: shape.rotated };
 				}
 			}

@@ -65,7 +65,8 @@ const vocabulary: MeasurementInfo[] = [
 		code: 'stature',
 		label: 'Height',
 		kind: 'length',
-		howTo: 'Stand straight against a wall without shoes, heels together. Measure from the floor to the top of the head.',
+		howTo:
+			'Stand straight against a wall without shoes, heels together. Measure from the floor to the top of the head.',
 		typical: [1439, 1927],
 		limits: [1049, 2395],
 		rangeSource: 'ansur-nhanes',
@@ -75,7 +76,8 @@ const vocabulary: MeasurementInfo[] = [
 		code: 'neck_girth',
 		label: 'Neck',
 		kind: 'girth',
-		howTo: 'Round the neck about 2 cm below the Adam’s apple, level with the knobbly bone at the back of the neck. One finger under the tape.',
+		howTo:
+			'Round the neck about 2 cm below the Adam’s apple, level with the knobbly bone at the back of the neck. One finger under the tape.',
 		typical: [291, 467],
 		limits: [220, 617],
 		rangeSource: 'ansur',
@@ -85,7 +87,8 @@ const vocabulary: MeasurementInfo[] = [
 		code: 'bust_girth',
 		label: 'Bust / chest',
 		kind: 'girth',
-		howTo: 'Round the fullest part of the chest, under the arms and across the shoulder blades, tape level, breathing normally.',
+		howTo:
+			'Round the fullest part of the chest, under the arms and across the shoulder blades, tape level, breathing normally.',
 		typical: [784, 1276],
 		limits: [556, 1763],
 		rangeSource: 'ansur',
@@ -105,7 +108,8 @@ const vocabulary: MeasurementInfo[] = [
 		code: 'waist_girth',
 		label: 'Waist',
 		kind: 'girth',
-		howTo: 'Round the natural waist, the narrowest part between the ribs and the hip bones. For high-waisted trousers, measure where the waistband will sit.',
+		howTo:
+			'Round the natural waist, the narrowest part between the ribs and the hip bones. For high-waisted trousers, measure where the waistband will sit.',
 		typical: [665, 1465],
 		limits: [451, 2136],
 		rangeSource: 'ansur-nhanes',

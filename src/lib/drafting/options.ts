@@ -12,7 +12,12 @@ export interface ResolvedResult {
 }
 
 /** Fills defaults (fixed, or taken from a measurement) and refuses values outside each option's range. */
-export function resolveOptions(template: GarmentTemplate, given: GivenOptions, body: BodyMm, unit: Unit): ResolvedResult {
+export function resolveOptions(
+	template: GarmentTemplate,
+	given: GivenOptions,
+	body: BodyMm,
+	unit: Unit
+): ResolvedResult {
 	const options: Record<string, OptionValue> = {};
 	const errors: Finding[] = [];
 	for (const spec of template.options) {
@@ -52,9 +57,15 @@ function validate(spec: OptionSpec, value: OptionValue, unit: Unit): Finding | n
 	}
 	if (spec.kind === 'choice') {
 		if (!spec.choices.some((choice) => choice.value === value)) {
-			return { code: 'option_out_of_range', fields: field, message: `${spec.label} must be one of ${spec.choices.map((c) => c.value).join(', ')}.` };
+			return {
+				code: 'option_out_of_range',
+				fields: field,
+				message: `${spec.label} must be one of ${spec.choices.map((c) => c.value).join(', ')}.`
+			};
 		}
 		return null;
 	}
-	return typeof value === 'boolean' ? null : { code: 'option_out_of_range', fields: field, message: `${spec.label} must be yes or no.` };
+	return typeof value === 'boolean'
+		? null
+		: { code: 'option_out_of_range', fields: field, message: `${spec.label} must be yes or no.` };
 }

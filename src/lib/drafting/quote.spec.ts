@@ -5,7 +5,8 @@ import { estimateQuote, formatMoney, isCurrencyCode, minorUnitExponent, parseMon
 describe('ISO 4217 minor units', () => {
 	it('matches the published exponents', () => {
 		// ISO 4217 tables (and Node 20 Intl / CLDR): USD, EUR, GBP, KES, NGN 2; JPY, UGX, CLP, XOF, RWF 0; KWD, BHD, TND 3.
-		for (const code of ['USD', 'EUR', 'GBP', 'KES', 'NGN', 'GHS', 'ZAR', 'INR', 'TZS']) expect(minorUnitExponent(code), code).toBe(2);
+		for (const code of ['USD', 'EUR', 'GBP', 'KES', 'NGN', 'GHS', 'ZAR', 'INR', 'TZS'])
+			expect(minorUnitExponent(code), code).toBe(2);
 		for (const code of ['JPY', 'UGX', 'CLP', 'XOF', 'RWF']) expect(minorUnitExponent(code), code).toBe(0);
 		for (const code of ['KWD', 'BHD', 'TND']) expect(minorUnitExponent(code), code).toBe(3);
 	});
@@ -35,14 +36,24 @@ describe('estimateQuote', () => {
 	});
 
 	it('charges nothing for fabric the customer supplies', () => {
-		const quote = estimateQuote({ currency: 'JPY', fabric: { supply: 'customer' }, labourHours: 6.5, hourlyRateMinor: 3000 });
+		const quote = estimateQuote({
+			currency: 'JPY',
+			fabric: { supply: 'customer' },
+			labourHours: 6.5,
+			hourlyRateMinor: 3000
+		});
 		expect(quote.lines[0].amountMinor).toBe(0);
 		expect(quote.totalMinor).toBe(19500);
 		expect(quote.exponent).toBe(0);
 	});
 
 	it('converts yards to a per-metre price exactly (1 yd = 0.9144 m)', () => {
-		const quote = estimateQuote({ currency: 'EUR', fabric: { supply: 'tailor', pricePerUnitMinor: 1000, per: 'm', length: 2, lengthUnit: 'yd' }, labourHours: 0, hourlyRateMinor: 0 });
+		const quote = estimateQuote({
+			currency: 'EUR',
+			fabric: { supply: 'tailor', pricePerUnitMinor: 1000, per: 'm', length: 2, lengthUnit: 'yd' },
+			labourHours: 0,
+			hourlyRateMinor: 0
+		});
 		expect(quote.lines[0].amountMinor).toBe(1829); // 10.00 × 1.8288 m = 18.288
 	});
 

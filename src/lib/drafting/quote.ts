@@ -6,8 +6,29 @@
 
 /** ISO 4217 minor units for codes where engines have disagreed; otherwise Intl (CLDR, which follows ISO 4217). */
 const minorUnitTable: Readonly<Record<string, number>> = {
-	BHD: 3, JOD: 3, KWD: 3, OMR: 3, TND: 3, IQD: 3, LYD: 3,
-	JPY: 0, KRW: 0, CLP: 0, ISK: 0, PYG: 0, UGX: 0, VND: 0, XAF: 0, XOF: 0, XPF: 0, RWF: 0, BIF: 0, DJF: 0, GNF: 0, KMF: 0, VUV: 0
+	BHD: 3,
+	JOD: 3,
+	KWD: 3,
+	OMR: 3,
+	TND: 3,
+	IQD: 3,
+	LYD: 3,
+	JPY: 0,
+	KRW: 0,
+	CLP: 0,
+	ISK: 0,
+	PYG: 0,
+	UGX: 0,
+	VND: 0,
+	XAF: 0,
+	XOF: 0,
+	XPF: 0,
+	RWF: 0,
+	BIF: 0,
+	DJF: 0,
+	GNF: 0,
+	KMF: 0,
+	VUV: 0
 };
 
 export function isCurrencyCode(code: string): boolean {
@@ -83,7 +104,11 @@ export function estimateQuote(input: QuoteInput): QuoteEstimate {
 	const hundredths = Math.round(input.labourHours * 100);
 	const lines: QuoteLine[] = [
 		fabricLine(input.fabric),
-		{ id: 'labour', label: `Labour, ${hundredths / 100} h`, amountMinor: mulDivRound(input.hourlyRateMinor, hundredths, 100) },
+		{
+			id: 'labour',
+			label: `Labour, ${hundredths / 100} h`,
+			amountMinor: mulDivRound(input.hourlyRateMinor, hundredths, 100)
+		},
 		...(input.notions ?? []).map((n, i) => ({ id: `notion_${i + 1}`, label: n.label, amountMinor: n.amountMinor })),
 		...(input.extras ?? []).map((e, i) => ({ id: `extra_${i + 1}`, label: e.label, amountMinor: e.amountMinor }))
 	];
@@ -113,7 +138,12 @@ export function formatMoney(amountMinor: number, currency: string, locale = 'en'
 	const negative = amountMinor < 0;
 	const digits = String(Math.abs(amountMinor)).padStart(exponent + 1, '0');
 	const major = exponent ? `${digits.slice(0, -exponent)}.${digits.slice(-exponent)}` : digits;
-	const formatter = new Intl.NumberFormat(locale, { style: 'currency', currency, minimumFractionDigits: exponent, maximumFractionDigits: exponent });
+	const formatter = new Intl.NumberFormat(locale, {
+		style: 'currency',
+		currency,
+		minimumFractionDigits: exponent,
+		maximumFractionDigits: exponent
+	});
 	// Intl formats a decimal string exactly, so money never passes through a float.
 	return formatter.format(`${negative ? '-' : ''}${major}` as unknown as number);
 }

@@ -11,7 +11,12 @@ describe('layoutRectangles', () => {
 
 describe('estimateQuoteRequest', () => {
 	it('takes the garment’s default labour hours when none are given', () => {
-		const quote = estimateQuoteRequest({ currency: 'USD', garment: 'wide-leg-trousers', fabric: { supply: 'customer' }, hourlyRateMinor: 3000 });
+		const quote = estimateQuoteRequest({
+			currency: 'USD',
+			garment: 'wide-leg-trousers',
+			fabric: { supply: 'customer' },
+			hourlyRateMinor: 3000
+		});
 		expect(quote.labourHours).toBe(8);
 		expect(quote.totalMinor).toBe(24000);
 	});

@@ -27,7 +27,15 @@ export function layoutRectangles(request: LayoutRequest): LayoutResponse {
 		efficiency: Math.round(result.efficiency * 1000) / 1000,
 		lowerBound: round(result.lowerBound),
 		algorithm: result.algorithm,
-		placements: result.placements.map((p) => ({ piece: p.item, copy: p.copy, x: round(p.x), y: round(p.y), w: p.w, h: p.h, rotated: p.rotated }))
+		placements: result.placements.map((p) => ({
+			piece: p.item,
+			copy: p.copy,
+			x: round(p.x),
+			y: round(p.y),
+			w: p.w,
+			h: p.h,
+			rotated: p.rotated
+		}))
 	};
 }
 

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { draftRequestSchema, layoutRequestSchema, quoteRequestSchema } from './schemas';
 
-const paths = (result: { success: boolean; error?: { issues: Array<{ path: PropertyKey[] }> } }) => result.error?.issues.map((i) => i.path.join('.')) ?? [];
+const paths = (result: { success: boolean; error?: { issues: Array<{ path: PropertyKey[] }> } }) =>
+	result.error?.issues.map((i) => i.path.join('.')) ?? [];
 
 describe('draftRequestSchema', () => {
 	const valid = { garment: 'cropped-top', unit: 'in', measurements: { bust_girth: 36 } };
@@ -12,7 +13,9 @@ describe('draftRequestSchema', () => {
 	it('names each bad field', () => {
 		expect(paths(draftRequestSchema.safeParse({ ...valid, garment: 'cape' }))).toEqual(['garment']);
 		expect(paths(draftRequestSchema.safeParse({ ...valid, unit: 'mm' }))).toEqual(['unit']);
-		expect(paths(draftRequestSchema.safeParse({ ...valid, measurements: { bust_girth: -3 } }))).toEqual(['measurements.bust_girth']);
+		expect(paths(draftRequestSchema.safeParse({ ...valid, measurements: { bust_girth: -3 } }))).toEqual([
+			'measurements.bust_girth'
+		]);
 		expect(paths(draftRequestSchema.safeParse({ ...valid, measurements: { chest: 36 } }))).toEqual(['measurements']);
 		expect(paths(draftRequestSchema.safeParse({ ...valid, options: { fit: 'baggy' } }))).toEqual(['options.fit']);
 		expect(paths(draftRequestSchema.safeParse({ ...valid, options: { length: 2 } }))).toEqual(['options.length']);
@@ -21,17 +24,33 @@ describe('draftRequestSchema', () => {
 	});
 	it('checks length options in the request’s unit', () => {
 		expect(draftRequestSchema.safeParse({ ...valid, options: { length: 18 } }).success).toBe(true);
-		expect(draftRequestSchema.safeParse({ ...valid, unit: 'cm', measurements: { bust_girth: 90 }, options: { length: 18 } }).success).toBe(false);
-		expect(draftRequestSchema.safeParse({ ...valid, unit: 'cm', measurements: { bust_girth: 90 }, options: { length: 45.72 } }).success).toBe(true);
+		expect(
+			draftRequestSchema.safeParse({ ...valid, unit: 'cm', measurements: { bust_girth: 90 }, options: { length: 18 } })
+				.success
+		).toBe(false);
+		expect(
+			draftRequestSchema.safeParse({
+				...valid,
+				unit: 'cm',
+				measurements: { bust_girth: 90 },
+				options: { length: 45.72 }
+			}).success
+		).toBe(true);
 	});
 });
 
 describe('layoutRequestSchema', () => {
 	it('refuses a piece wider than the fabric unless it may turn', () => {
-		expect(paths(layoutRequestSchema.safeParse({ width: 10, unit: 'cm', pieces: [{ w: 12, h: 5 }] }))).toEqual(['pieces.0.w']);
-		expect(layoutRequestSchema.safeParse({ width: 10, unit: 'cm', pieces: [{ w: 12, h: 5, rotate: 'any' }] }).success).toBe(true);
+		expect(paths(layoutRequestSchema.safeParse({ width: 10, unit: 'cm', pieces: [{ w: 12, h: 5 }] }))).toEqual([
+			'pieces.0.w'
+		]);
+		expect(
+			layoutRequestSchema.safeParse({ width: 10, unit: 'cm', pieces: [{ w: 12, h: 5, rotate: 'any' }] }).success
+		).toBe(true);
 		expect(paths(layoutRequestSchema.safeParse({ width: 10, unit: 'cm', pieces: [] }))).toEqual(['pieces']);
-		expect(paths(layoutRequestSchema.safeParse({ width: 10, unit: 'cm', pieces: [{ w: 1, h: 1, quantity: 1.5 }] }))).toEqual(['pieces.0.quantity']);
+		expect(
+			paths(layoutRequestSchema.safeParse({ width: 10, unit: 'cm', pieces: [{ w: 1, h: 1, quantity: 1.5 }] }))
+		).toEqual(['pieces.0.quantity']);
 	});
 });
 
@@ -44,6 +63,8 @@ describe('quoteRequestSchema', () => {
 		expect(paths(quoteRequestSchema.safeParse({ ...valid, hourlyRateMinor: 12.5 }))).toEqual(['hourlyRateMinor']);
 		expect(paths(quoteRequestSchema.safeParse({ ...valid, currency: 'XYZ' }))).toEqual(['currency']);
 		expect(paths(quoteRequestSchema.safeParse({ ...valid, garment: undefined }))).toEqual(['labourHours']);
-		expect(paths(quoteRequestSchema.safeParse({ ...valid, fabric: { supply: 'tailor', per: 'yd', length: 2 } }))).toEqual(['fabric.pricePerUnitMinor']);
+		expect(
+			paths(quoteRequestSchema.safeParse({ ...valid, fabric: { supply: 'tailor', per: 'yd', length: 2 } }))
+		).toEqual(['fabric.pricePerUnitMinor']);
 	});
 });

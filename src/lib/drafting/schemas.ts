@@ -36,15 +36,26 @@ export const draftRequestSchema = z
 			const spec = template.options.find((o) => o.id === id);
 			const path = ['options', id];
 			if (!spec) {
-				ctx.addIssue({ code: 'custom', path, message: `Not an option of ${request.garment}; expected one of ${template.options.map((o) => o.id).join(', ')}.` });
+				ctx.addIssue({
+					code: 'custom',
+					path,
+					message: `Not an option of ${request.garment}; expected one of ${template.options.map((o) => o.id).join(', ')}.`
+				});
 			} else if (spec.kind === 'length') {
-				const ok = typeof value === 'number' && toMm(value, request.unit) >= spec.minMm - 1e-6 && toMm(value, request.unit) <= spec.maxMm + 1e-6;
+				const ok =
+					typeof value === 'number' &&
+					toMm(value, request.unit) >= spec.minMm - 1e-6 &&
+					toMm(value, request.unit) <= spec.maxMm + 1e-6;
 				if (!ok) {
 					const range = `${formatLength(spec.minMm, request.unit)}–${formatLength(spec.maxMm, request.unit, { withUnit: true })}`;
 					ctx.addIssue({ code: 'custom', path, message: `${spec.label} must be a number between ${range}.` });
 				}
 			} else if (spec.kind === 'choice' && !spec.choices.some((c) => c.value === value)) {
-				ctx.addIssue({ code: 'custom', path, message: `Must be one of ${spec.choices.map((c) => c.value).join(', ')}.` });
+				ctx.addIssue({
+					code: 'custom',
+					path,
+					message: `Must be one of ${spec.choices.map((c) => c.value).join(', ')}.`
+				});
 			} else if (spec.kind === 'boolean' && typeof value !== 'boolean') {
 				ctx.addIssue({ code: 'custom', path, message: 'Must be true or false.' });
 			}
@@ -76,10 +87,20 @@ export const layoutRequestSchema = z
 	.strict()
 	.superRefine((request, ctx) => {
 		const total = request.pieces.reduce((sum, p) => sum + p.quantity, 0);
-		if (total > maxLayoutPieces) ctx.addIssue({ code: 'custom', path: ['pieces'], message: `At most ${maxLayoutPieces} pieces in all (quantities included).` });
+		if (total > maxLayoutPieces)
+			ctx.addIssue({
+				code: 'custom',
+				path: ['pieces'],
+				message: `At most ${maxLayoutPieces} pieces in all (quantities included).`
+			});
 		request.pieces.forEach((piece, i) => {
 			const fits = piece.w <= request.width || (piece.rotate === 'any' && piece.h <= request.width);
-			if (!fits) ctx.addIssue({ code: 'custom', path: ['pieces', i, 'w'], message: `Wider than the fabric (${request.width} ${request.unit}).` });
+			if (!fits)
+				ctx.addIssue({
+					code: 'custom',
+					path: ['pieces', i, 'w'],
+					message: `Wider than the fabric (${request.width} ${request.unit}).`
+				});
 		});
 	});
 
@@ -110,6 +131,9 @@ export const quoteRequestSchema = z
 		extras: z.array(pricedItem).max(50).default([])
 	})
 	.strict()
-	.refine((q) => q.labourHours !== undefined || q.garment !== undefined, { path: ['labourHours'], message: 'Give labour hours, or a garment to use its default.' });
+	.refine((q) => q.labourHours !== undefined || q.garment !== undefined, {
+		path: ['labourHours'],
+		message: 'Give labour hours, or a garment to use its default.'
+	});
 
 export type QuoteRequest = z.input<typeof quoteRequestSchema>;

@@ -6,7 +6,12 @@ import { draftIn } from './templates/test-support';
 import { wideLegTrousers } from './templates/wide-leg-trousers';
 
 const trousers = draftIn(wideLegTrousers, 'in', { hip_girth: 40, waist_girth: 28, thigh_girth: 25 }, { length: 45.5 });
-const top = draftIn(croppedTop, 'in', { bust_girth: 36, shoulder_width: 15, shoulder_to_bust_point: 9.5, bust_point_span: 7 });
+const top = draftIn(croppedTop, 'in', {
+	bust_girth: 36,
+	shoulder_width: 15,
+	shoulder_to_bust_point: 9.5,
+	bust_point_span: 7
+});
 
 describe('pieceSvg', () => {
 	it('labels dimensions in the viewer’s unit', () => {
@@ -42,7 +47,11 @@ describe('pieceSvg', () => {
 
 describe('layoutSvg', () => {
 	it('shows the fold, yard marks and every placement', () => {
-		const { estimate } = estimateFabric(trousers.pieces, { widthMm: 45 * 25.4, folded: true, directional: false, shrinkagePercent: 0, repeatMm: 0 }, 'in');
+		const { estimate } = estimateFabric(
+			trousers.pieces,
+			{ widthMm: 45 * 25.4, folded: true, directional: false, shrinkagePercent: 0, repeatMm: 0 },
+			'in'
+		);
 		const svg = layoutSvg(estimate!, trousers.pieces, 'in');
 		expect(svg).toContain('>fold<');
 		expect(svg).toContain('>1 yd<');

@@ -10,7 +10,10 @@ const madder = '#a93c25';
 const woad = '#24495a';
 
 export function escapeXml(text: string): string {
-	return text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&apos;' })[c]!);
+	return text.replace(
+		/[&<>"']/g,
+		(c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&apos;' })[c]!
+	);
 }
 
 const n = (value: number) => (Math.round(value * 10) / 10).toString();
@@ -20,7 +23,12 @@ function stroke(colour: string, width: number, dash?: string): string {
 	return `stroke="${colour}" stroke-width="${width}" vector-effect="non-scaling-stroke"${dash ? ` stroke-dasharray="${dash}"` : ''} fill="none"`;
 }
 
-function text(at: Point, content: string, size: number, options: { anchor?: 'start' | 'middle' | 'end'; rotate?: number; weight?: number; colour?: string } = {}): string {
+function text(
+	at: Point,
+	content: string,
+	size: number,
+	options: { anchor?: 'start' | 'middle' | 'end'; rotate?: number; weight?: number; colour?: string } = {}
+): string {
 	const rotate = options.rotate ? ` transform="rotate(${options.rotate} ${n(at.x)} ${n(at.y)})"` : '';
 	const weight = options.weight ? ` font-weight="${options.weight}"` : '';
 	return `<text x="${n(at.x)}" y="${n(at.y)}" font-size="${n(size)}" text-anchor="${options.anchor ?? 'middle'}" dominant-baseline="middle" fill="${options.colour ?? ink}"${weight}${rotate} paint-order="stroke" stroke="#fff" stroke-width="${n(size / 4)}">${escapeXml(content)}</text>`;
@@ -62,7 +70,12 @@ function mark(m: PieceMark, size: number): string {
 		case 'fold':
 			return `<polyline ${line} ${stroke(ink, 1, '10 3 2 3')}/>`;
 		default: {
-			const label = m.label ? text({ x: m.points[0].x + size * 0.3, y: m.points[0].y - size * 0.45 }, m.label, size * 0.65, { anchor: 'start', colour: '#5d6170' }) : '';
+			const label = m.label
+				? text({ x: m.points[0].x + size * 0.3, y: m.points[0].y - size * 0.45 }, m.label, size * 0.65, {
+						anchor: 'start',
+						colour: '#5d6170'
+					})
+				: '';
 			return `<polyline ${line} ${stroke('#7b7f8c', 1, '4 3')}/>${label}`;
 		}
 	}
@@ -83,10 +96,19 @@ function foldMarker(box: Box, size: number): string {
 	const top = box.y + box.height * 0.2;
 	const bottom = box.y + box.height * 0.8;
 	return [
-		`<polyline points="${points([{ x: box.x, y: top }, { x, y: top }, { x, y: bottom }, { x: box.x, y: bottom }])}" ${stroke(madder, 1.5)}/>`,
+		`<polyline points="${points([
+			{ x: box.x, y: top },
+			{ x, y: top },
+			{ x, y: bottom },
+			{ x: box.x, y: bottom }
+		])}" ${stroke(madder, 1.5)}/>`,
 		arrowHead({ x, y: top }, { x: box.x, y: top }, size * 0.6, madder),
 		arrowHead({ x, y: bottom }, { x: box.x, y: bottom }, size * 0.6, madder),
-		text({ x: x + size * 0.7, y: box.y + box.height / 2 }, 'place on fold', size * 0.75, { rotate: -90, colour: madder, weight: 600 })
+		text({ x: x + size * 0.7, y: box.y + box.height / 2 }, 'place on fold', size * 0.75, {
+			rotate: -90,
+			colour: madder,
+			weight: 600
+		})
 	].join('');
 }
 
@@ -103,12 +125,17 @@ function pieceLabel(piece: DraftPiece, box: Box, size: number): string {
 	if (box.height > 2.5 * box.width && box.width < size * 9) {
 		const at = { x: box.x + box.width * 0.32, y: box.y + box.height / 2 };
 		const small = Math.min(size * 1.2, box.width / 4);
-		return text(at, name, small, { weight: 700, rotate: -90 }) + text({ x: at.x + small * 1.3, y: at.y }, cut, small * 0.7, { rotate: -90 });
+		return (
+			text(at, name, small, { weight: 700, rotate: -90 }) +
+			text({ x: at.x + small * 1.3, y: at.y }, cut, small * 0.7, { rotate: -90 })
+		);
 	}
 	const halfWidth = (Math.max(name.length * 1.2, cut.length * 0.85) * size * 0.62) / 2;
 	const centreX = box.x + box.width / 2;
 	const busyYs = [
-		...piece.lines.flatMap((l) => (l.dimension && Math.abs(l.dimension.from.y - l.dimension.to.y) < size ? [l.dimension.from.y] : [])),
+		...piece.lines.flatMap((l) =>
+			l.dimension && Math.abs(l.dimension.from.y - l.dimension.to.y) < size ? [l.dimension.from.y] : []
+		),
 		...piece.marks.filter((m) => m.kind === 'guide').map((m) => m.points[0].y)
 	];
 	const [g0, g1] = piece.grainline;
@@ -121,13 +148,20 @@ function pieceLabel(piece: DraftPiece, box: Box, size: number): string {
 	};
 	const fractions = [0.42, 0.32, 0.52, 0.25, 0.62, 0.72, 0.18, 0.82];
 	const y = box.y + box.height * (fractions.find((f) => clear(box.y + box.height * f)) ?? 0.42);
-	return text({ x: centreX, y }, name, size * 1.2, { weight: 700 }) + text({ x: centreX, y: y + size * 1.5 }, cut, size * 0.85);
+	return (
+		text({ x: centreX, y }, name, size * 1.2, { weight: 700 }) +
+		text({ x: centreX, y: y + size * 1.5 }, cut, size * 0.85)
+	);
 }
 
 /** One pattern piece: outline, construction marks, grainline, fold marker and dimensions in `unit`. */
 export function pieceSvg(piece: DraftPiece, unit: Unit): string {
 	const outlineBox = boundingBox(piece.outline);
-	const everything = [...piece.outline, ...piece.lines.flatMap((l) => (l.dimension ? [l.dimension.from, l.dimension.to] : [])), ...piece.marks.flatMap((m) => m.points)];
+	const everything = [
+		...piece.outline,
+		...piece.lines.flatMap((l) => (l.dimension ? [l.dimension.from, l.dimension.to] : [])),
+		...piece.marks.flatMap((m) => m.points)
+	];
 	const box = boundingBox(everything);
 	const size = Math.max(Math.max(box.width, box.height) / 36, 6);
 	const margin = size * 2.2;
@@ -141,7 +175,11 @@ export function pieceSvg(piece: DraftPiece, unit: Unit): string {
 		grainline(piece.grainline, size),
 		piece.cut.onFold ? foldMarker(outlineBox, size) : '',
 		pieceLabel(piece, outlineBox, size),
-		...piece.lines.filter((l) => l.dimension).map((l) => dimension(l.dimension!.from, l.dimension!.to, formatLength(l.mm, unit, { withUnit: true }), size, outlineBox)),
+		...piece.lines
+			.filter((l) => l.dimension)
+			.map((l) =>
+				dimension(l.dimension!.from, l.dimension!.to, formatLength(l.mm, unit, { withUnit: true }), size, outlineBox)
+			),
 		'</svg>'
 	].join('');
 }
@@ -164,8 +202,15 @@ export function layoutSvg(estimate: FabricEstimate, pieces: readonly DraftPiece[
 	const byId = new Map(pieces.map((p) => [p.id, p]));
 	const ticks: string[] = [];
 	for (let i = 1; i * step <= length + 1e-6; i++) {
-		ticks.push(`<line x1="0" y1="${n(i * step)}" x2="${n(width)}" y2="${n(i * step)}" ${stroke('#c4b293', 1, '3 4')}/>`);
-		ticks.push(text({ x: width - size * 0.3, y: i * step - size * 0.6 }, `${i} ${stepLabel}`, size * 0.8, { anchor: 'end', colour: '#5d6170' }));
+		ticks.push(
+			`<line x1="0" y1="${n(i * step)}" x2="${n(width)}" y2="${n(i * step)}" ${stroke('#c4b293', 1, '3 4')}/>`
+		);
+		ticks.push(
+			text({ x: width - size * 0.3, y: i * step - size * 0.6 }, `${i} ${stepLabel}`, size * 0.8, {
+				anchor: 'end',
+				colour: '#5d6170'
+			})
+		);
 	}
 	const placed = estimate.placements.map((p) => {
 		const piece = byId.get(p.pieceId);
@@ -175,7 +220,10 @@ export function layoutSvg(estimate: FabricEstimate, pieces: readonly DraftPiece[
 		return [
 			`<g transform="translate(${n(p.x)} ${n(p.y)})">`,
 			`<rect width="${n(p.w)}" height="${n(p.h)}" ${stroke('#7b7f8c', 1, '4 3')}/>`,
-			...drawn.map((o) => `<polygon points="${points(o)}" fill="#fae2da" stroke="${madder}" stroke-width="1.5" vector-effect="non-scaling-stroke"/>`),
+			...drawn.map(
+				(o) =>
+					`<polygon points="${points(o)}" fill="#fae2da" stroke="${madder}" stroke-width="1.5" vector-effect="non-scaling-stroke"/>`
+			),
 			placementLabel(p, size),
 			'</g>'
 		].join('');
@@ -195,7 +243,11 @@ export function layoutSvg(estimate: FabricEstimate, pieces: readonly DraftPiece[
 		...ticks,
 		...placed,
 		...foldSide,
-		text({ x: width / 2, y: length + size * 1.2 }, `${formatLength(length, unit, { withUnit: true })} laid out`, size * 0.9),
+		text(
+			{ x: width / 2, y: length + size * 1.2 },
+			`${formatLength(length, unit, { withUnit: true })} laid out`,
+			size * 0.9
+		),
 		'</svg>'
 	].join('');
 }

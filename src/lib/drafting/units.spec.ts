@@ -104,9 +104,13 @@ describe('fabric rounding', () => {
 describe('round trips (property)', () => {
 	it('mm → unit → mm returns the same length', () => {
 		fc.assert(
-			fc.property(fc.double({ min: 0.1, max: 5000, noNaN: true }), fc.constantFrom('in' as const, 'cm' as const), (mm, unit) => {
-				expect(toMm(fromMm(mm, unit), unit)).toBeCloseTo(mm, 9);
-			})
+			fc.property(
+				fc.double({ min: 0.1, max: 5000, noNaN: true }),
+				fc.constantFrom('in' as const, 'cm' as const),
+				(mm, unit) => {
+					expect(toMm(fromMm(mm, unit), unit)).toBeCloseTo(mm, 9);
+				}
+			)
 		);
 	});
 

@@ -44,9 +44,7 @@ const unitSuffixes: Array<[RegExp, Unit | 'mm']> = [
 	[/\s*(?:in|inch|inches|"|″)$/i, 'in']
 ];
 
-export type ParsedLength =
-	| { ok: true; mm: number; unit: Unit | 'mm' }
-	| { ok: false; message: string };
+export type ParsedLength = { ok: true; mm: number; unit: Unit | 'mm' } | { ok: false; message: string };
 
 /**
  * Reads what a person types into a length field: `10.25`, `10 1/4`, `10-1/4`, `10¼`, `3/8`,

@@ -27,7 +27,9 @@ export const actions: Actions = {
 			return fail(429, {
 				action: 'password' as const,
 				values,
-				errors: { form: [`Too many failed sign-in attempts. Try again in ${minutes}, or email yourself a sign-in link.`] }
+				errors: {
+					form: [`Too many failed sign-in attempts. Try again in ${minutes}, or email yourself a sign-in link.`]
+				}
 			});
 		}
 
@@ -44,7 +46,9 @@ export const actions: Actions = {
 				return fail(403, {
 					action: 'password' as const,
 					values,
-					errors: { form: ['This account is suspended. Write to support@tackline.test if you think this is a mistake.'] }
+					errors: {
+						form: ['This account is suspended. Write to support@tackline.test if you think this is a mistake.']
+					}
 				});
 			}
 			if (error instanceof AuthError) {
@@ -67,7 +71,9 @@ export const actions: Actions = {
 			return fail(429, {
 				action: 'magicLink' as const,
 				values,
-				errors: { form: [`We have sent several links to this address recently. Try again in ${gate.retryAfterMinutes} minutes.`] }
+				errors: {
+					form: [`We have sent several links to this address recently. Try again in ${gate.retryAfterMinutes} minutes.`]
+				}
 			});
 		}
 		// The answer is the same whether or not the address has an account, so it reveals nothing.

@@ -23,7 +23,9 @@ export const actions: Actions = {
 			if (error instanceof accounts.EmailTaken) {
 				return fail(400, {
 					values,
-					errors: { email: ['An account with this email address already exists. Sign in instead, or use another address.'] }
+					errors: {
+						email: ['An account with this email address already exists. Sign in instead, or use another address.']
+					}
 				});
 			}
 			throw error;

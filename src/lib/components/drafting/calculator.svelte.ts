@@ -16,13 +16,31 @@ type Texts = Record<string, string>;
 
 /** Worked examples: the dressmaker's method in inches for templates 1 and 2, the 88-72-96 body in cm otherwise. */
 const examples: Record<GarmentId, { unit: Unit; measurements: Texts; options?: Texts }> = {
-	'wide-leg-trousers': { unit: 'in', measurements: { hip_girth: '40', waist_girth: '28', thigh_girth: '25' }, options: { length: '45 1/2' } },
-	'cropped-top': { unit: 'in', measurements: { bust_girth: '36', shoulder_width: '15', shoulder_to_bust_point: '9 1/2', bust_point_span: '7' }, options: { length: '18' } },
+	'wide-leg-trousers': {
+		unit: 'in',
+		measurements: { hip_girth: '40', waist_girth: '28', thigh_girth: '25' },
+		options: { length: '45 1/2' }
+	},
+	'cropped-top': {
+		unit: 'in',
+		measurements: { bust_girth: '36', shoulder_width: '15', shoulder_to_bust_point: '9 1/2', bust_point_span: '7' },
+		options: { length: '18' }
+	},
 	'straight-skirt': { unit: 'cm', measurements: { waist_girth: '72', hip_girth: '96', waist_to_hip: '20.6' } },
 	'a-line-skirt': { unit: 'cm', measurements: { waist_girth: '72', hip_girth: '96', waist_to_hip: '20.6' } },
 	'shift-dress': {
 		unit: 'cm',
-		measurements: { bust_girth: '88', under_bust_girth: '73', waist_girth: '72', hip_girth: '96', shoulder_width: '38', nape_to_waist: '41', waist_to_hip: '20.6', shoulder_to_bust_point: '25', bust_point_span: '18' }
+		measurements: {
+			bust_girth: '88',
+			under_bust_girth: '73',
+			waist_girth: '72',
+			hip_girth: '96',
+			shoulder_width: '38',
+			nape_to_waist: '41',
+			waist_to_hip: '20.6',
+			shoulder_to_bust_point: '25',
+			bust_point_span: '18'
+		}
 	},
 	tunic: { unit: 'cm', measurements: { bust_girth: '88', hip_girth: '96', shoulder_width: '38' } }
 };
@@ -88,7 +106,9 @@ export class DraftCalculator {
 	});
 
 	/** How many required measurements are still empty or unreadable. */
-	missingCount = $derived(this.template.requiredMeasurements.filter((code) => this.measurements.mm[code] === undefined).length);
+	missingCount = $derived(
+		this.template.requiredMeasurements.filter((code) => this.measurements.mm[code] === undefined).length
+	);
 
 	constructor(garment?: GarmentId, unit?: Unit) {
 		if (garment) this.garment = garment;
@@ -99,7 +119,12 @@ export class DraftCalculator {
 	setUnit(next: Unit) {
 		if (next === this.unit) return;
 		const convert = (texts: Texts, parsed: ParsedFields) =>
-			Object.fromEntries(Object.entries(texts).map(([key, text]) => [key, parsed.mm[key] !== undefined ? formatForInput(parsed.mm[key], next) : text]));
+			Object.fromEntries(
+				Object.entries(texts).map(([key, text]) => [
+					key,
+					parsed.mm[key] !== undefined ? formatForInput(parsed.mm[key], next) : text
+				])
+			);
 		this.measurementTexts = convert(this.measurementTexts, this.measurements);
 		this.optionTexts = convert(this.optionTexts, this.options);
 		this.repeatText = convert({ repeat: this.repeatText }, this.repeat).repeat;

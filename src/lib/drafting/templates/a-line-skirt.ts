@@ -13,14 +13,17 @@ export const aLineSkirt: GarmentTemplate = {
 	options: [
 		fitOption,
 		lengthOption('length', 'Finished length (waist seam to hem)', 600, [300, 1100]),
-		lengthOption('flare', 'Flare at each side seam', inch(2.5), [0, inch(8)], { help: 'Extra width at the hem on each side seam.' }),
+		lengthOption('flare', 'Flare at each side seam', inch(2.5), [0, inch(8)], {
+			help: 'Extra width at the hem on each side seam.'
+		}),
 		lengthOption('seamAllowance', 'Seam allowance', homeSeamAllowance, [inch(0.25), inch(1.25)]),
 		lengthOption('hem', 'Hem allowance', inch(1), [inch(0.5), inch(3)]),
 		lengthOption('waistbandDepth', 'Finished waistband depth', inch(1.25), [inch(0.75), inch(3)]),
 		lengthOption('zipLength', 'Zip opening', inch(7), [inch(5), inch(10)])
 	],
 	defaultLabourHours: 4,
-	method: 'Quarter-hip skirt block with flare added at the side seam from the hip line (common practice); ease from CWU “Ease in Clothing”.',
+	method:
+		'Quarter-hip skirt block with flare added at the side seam from the hip line (common practice); ease from CWU “Ease in Clothing”.',
 	draft(body, options) {
 		const ease = wearingEase[fitOf(options)];
 		const input: SkirtInput = {
@@ -51,7 +54,10 @@ export const aLineSkirt: GarmentTemplate = {
 				{ id: 'hip_ease', label: 'Hip ease (total)', mm: input.hipEase },
 				{ id: 'waist_ease', label: 'Waist ease (total)', mm: input.waistEase }
 			],
-			notes: ['Cut the front on the fold and the back as a pair.', 'The hem curves up at the side so the side seam and centre are the same length.'],
+			notes: [
+				'Cut the front on the fold and the back as a pair.',
+				'The hem curves up at the side so the side seam and centre are the same length.'
+			],
 			cautions: [],
 			warnings: []
 		};

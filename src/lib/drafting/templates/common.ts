@@ -17,7 +17,13 @@ export const fitOption: ChoiceOption = {
 	help: 'How much ease (room) to add over the body measurements.'
 };
 
-export function lengthOption(id: string, label: string, defaultMm: number | null, range: [number, number], extra: Partial<LengthOption> = {}): LengthOption {
+export function lengthOption(
+	id: string,
+	label: string,
+	defaultMm: number | null,
+	range: [number, number],
+	extra: Partial<LengthOption> = {}
+): LengthOption {
 	return { id, label, kind: 'length', defaultMm, minMm: range[0], maxMm: range[1], ...extra };
 }
 

@@ -74,26 +74,39 @@ describe('cropped top — geometry', () => {
 describe('cropped top — properties', () => {
 	it('bust width and fold width grow with bust; dart position with span', () => {
 		fc.assert(
-			fc.property(fc.double({ min: 30, max: 52, noNaN: true }), fc.double({ min: 0.1, max: 5, noNaN: true }), (bust, grow) => {
-				const a = draftIn(croppedTop, 'in', { ...body, bust_girth: bust });
-				const b = draftIn(croppedTop, 'in', { ...body, bust_girth: bust + grow, bust_point_span: 7 + grow / 4 });
-				expect(b.line('front.bust_width')).toBeGreaterThan(a.line('front.bust_width'));
-				expect(b.line('front.fold_width')).toBeGreaterThan(a.line('front.fold_width'));
-				expect(b.line('front.dart_position')).toBeGreaterThan(a.line('front.dart_position'));
-			}),
+			fc.property(
+				fc.double({ min: 30, max: 52, noNaN: true }),
+				fc.double({ min: 0.1, max: 5, noNaN: true }),
+				(bust, grow) => {
+					const a = draftIn(croppedTop, 'in', { ...body, bust_girth: bust });
+					const b = draftIn(croppedTop, 'in', { ...body, bust_girth: bust + grow, bust_point_span: 7 + grow / 4 });
+					expect(b.line('front.bust_width')).toBeGreaterThan(a.line('front.bust_width'));
+					expect(b.line('front.fold_width')).toBeGreaterThan(a.line('front.fold_width'));
+					expect(b.line('front.dart_position')).toBeGreaterThan(a.line('front.dart_position'));
+				}
+			),
 			{ numRuns: 60 }
 		);
 	});
 	it('the same body in cm and in gives the same geometry', () => {
 		fc.assert(
-			fc.property(fc.double({ min: 30, max: 52, noNaN: true }), fc.double({ min: 13, max: 18, noNaN: true }), (bust, shoulder) => {
-				const inches = draftIn(croppedTop, 'in', { ...body, bust_girth: bust, shoulder_width: shoulder });
-				const cm = draftIn(croppedTop, 'cm', { bust_girth: bust * 2.54, shoulder_width: shoulder * 2.54, shoulder_to_bust_point: 9.5 * 2.54, bust_point_span: 7 * 2.54 });
-				inches.pieces[0].outline.forEach((p, j) => {
-					expect(p.x).toBeCloseTo(cm.pieces[0].outline[j].x, 6);
-					expect(p.y).toBeCloseTo(cm.pieces[0].outline[j].y, 6);
-				});
-			}),
+			fc.property(
+				fc.double({ min: 30, max: 52, noNaN: true }),
+				fc.double({ min: 13, max: 18, noNaN: true }),
+				(bust, shoulder) => {
+					const inches = draftIn(croppedTop, 'in', { ...body, bust_girth: bust, shoulder_width: shoulder });
+					const cm = draftIn(croppedTop, 'cm', {
+						bust_girth: bust * 2.54,
+						shoulder_width: shoulder * 2.54,
+						shoulder_to_bust_point: 9.5 * 2.54,
+						bust_point_span: 7 * 2.54
+					});
+					inches.pieces[0].outline.forEach((p, j) => {
+						expect(p.x).toBeCloseTo(cm.pieces[0].outline[j].x, 6);
+						expect(p.y).toBeCloseTo(cm.pieces[0].outline[j].y, 6);
+					});
+				}
+			),
 			{ numRuns: 40 }
 		);
 	});

@@ -42,7 +42,16 @@ export interface TopFigures {
 
 export function topFigures(
 	body: { bust: number; shoulder: number; shoulderToBust: number; bustSpan: number },
-	o: { length: number; hem: number; seamAllowance: number; sleeveLength: number; sleeveOpening: number; neckWidth: number; neckDepth: number; fit: Fit }
+	o: {
+		length: number;
+		hem: number;
+		seamAllowance: number;
+		sleeveLength: number;
+		sleeveOpening: number;
+		neckWidth: number;
+		neckDepth: number;
+		fit: Fit;
+	}
 ): TopFigures {
 	const quarterBust = body.bust / 4;
 	const shoulderPoint = body.shoulder / 2;
@@ -89,18 +98,61 @@ function outlineOf(f: TopFigures): Point[] {
 function sharedLines(f: TopFigures): PieceLine[] {
 	return [
 		{ id: 'fold_width', label: 'Fold width needed', mm: f.foldWidth },
-		{ id: 'neck_width', label: 'Neck width from the fold', mm: f.neckWidth, dimension: { from: pt(0, -inch(0.6)), to: pt(f.neckWidth, -inch(0.6)) } },
-		{ id: 'neck_depth', label: 'Neck depth from the top', mm: f.neckDepth, dimension: { from: pt(inch(0.6), 0), to: pt(inch(0.6), f.neckDepth) } },
-		{ id: 'shoulder_point', label: 'Shoulder point from the fold', mm: f.shoulderPoint, dimension: { from: pt(0, -inch(1.4)), to: pt(f.shoulderPoint, -inch(1.4)) } },
-		{ id: 'sleeve_length', label: 'Sleeve beyond the shoulder point (with seam allowance)', mm: f.sleeveLength, dimension: { from: pt(f.shoulderPoint, -inch(0.6)), to: pt(f.sleeveEnd, -inch(0.6)) } },
+		{
+			id: 'neck_width',
+			label: 'Neck width from the fold',
+			mm: f.neckWidth,
+			dimension: { from: pt(0, -inch(0.6)), to: pt(f.neckWidth, -inch(0.6)) }
+		},
+		{
+			id: 'neck_depth',
+			label: 'Neck depth from the top',
+			mm: f.neckDepth,
+			dimension: { from: pt(inch(0.6), 0), to: pt(inch(0.6), f.neckDepth) }
+		},
+		{
+			id: 'shoulder_point',
+			label: 'Shoulder point from the fold',
+			mm: f.shoulderPoint,
+			dimension: { from: pt(0, -inch(1.4)), to: pt(f.shoulderPoint, -inch(1.4)) }
+		},
+		{
+			id: 'sleeve_length',
+			label: 'Sleeve beyond the shoulder point (with seam allowance)',
+			mm: f.sleeveLength,
+			dimension: { from: pt(f.shoulderPoint, -inch(0.6)), to: pt(f.sleeveEnd, -inch(0.6)) }
+		},
 		{ id: 'sleeve_drop', label: 'Sleeve end drop (shoulder slope)', mm: sleeveDrop },
-		{ id: 'sleeve_opening', label: 'Sleeve opening', mm: f.sleeveOpening, dimension: { from: pt(f.sleeveEnd + inch(0.6), sleeveDrop), to: pt(f.sleeveEnd + inch(0.6), sleeveDrop + f.sleeveOpening) } },
+		{
+			id: 'sleeve_opening',
+			label: 'Sleeve opening',
+			mm: f.sleeveOpening,
+			dimension: {
+				from: pt(f.sleeveEnd + inch(0.6), sleeveDrop),
+				to: pt(f.sleeveEnd + inch(0.6), sleeveDrop + f.sleeveOpening)
+			}
+		},
 		{ id: 'sleeve_hem', label: 'Sleeve hem, turned twice', mm: sleeveHem },
-		{ id: 'bust_line_depth', label: 'Bust line depth', mm: f.bustLineDepth, dimension: { from: pt(-inch(0.8), 0), to: pt(-inch(0.8), f.bustLineDepth) } },
-		{ id: 'bust_width', label: 'Width at bust line', mm: f.bustWidth, dimension: { from: pt(0, f.bustLineDepth), to: pt(f.bustWidth, f.bustLineDepth) } },
+		{
+			id: 'bust_line_depth',
+			label: 'Bust line depth',
+			mm: f.bustLineDepth,
+			dimension: { from: pt(-inch(0.8), 0), to: pt(-inch(0.8), f.bustLineDepth) }
+		},
+		{
+			id: 'bust_width',
+			label: 'Width at bust line',
+			mm: f.bustWidth,
+			dimension: { from: pt(0, f.bustLineDepth), to: pt(f.bustWidth, f.bustLineDepth) }
+		},
 		{ id: 'hem_width', label: 'Width at hem', mm: f.bustWidth },
 		{ id: 'waist_shaping', label: 'Waist shaping in at the side', mm: waistShaping },
-		{ id: 'piece_length', label: 'Piece length with hem', mm: f.pieceLength, dimension: { from: pt(-inch(1.6), 0), to: pt(-inch(1.6), f.pieceLength) } }
+		{
+			id: 'piece_length',
+			label: 'Piece length with hem',
+			mm: f.pieceLength,
+			dimension: { from: pt(-inch(1.6), 0), to: pt(-inch(1.6), f.pieceLength) }
+		}
 	];
 }
 
@@ -110,10 +162,19 @@ function dartOf(f: TopFigures): { mark: PieceMark; lines: PieceLine[] } {
 		mark: {
 			kind: 'dart',
 			label: 'bust dart',
-			points: [pt(f.dartPosition - dartWidth / 2, f.pieceLength), apex, pt(f.dartPosition + dartWidth / 2, f.pieceLength)]
+			points: [
+				pt(f.dartPosition - dartWidth / 2, f.pieceLength),
+				apex,
+				pt(f.dartPosition + dartWidth / 2, f.pieceLength)
+			]
 		},
 		lines: [
-			{ id: 'dart_position', label: 'Dart centre from the fold', mm: f.dartPosition, dimension: { from: pt(0, f.pieceLength + inch(0.6)), to: pt(f.dartPosition, f.pieceLength + inch(0.6)) } },
+			{
+				id: 'dart_position',
+				label: 'Dart centre from the fold',
+				mm: f.dartPosition,
+				dimension: { from: pt(0, f.pieceLength + inch(0.6)), to: pt(f.dartPosition, f.pieceLength + inch(0.6)) }
+			},
 			{ id: 'dart_length', label: 'Dart length (up from the hemline)', mm: dartLength },
 			{ id: 'dart_width', label: 'Dart width (half each side of its centre)', mm: dartWidth }
 		]
@@ -152,7 +213,8 @@ function topWarnings(f: TopFigures): Finding[] {
 		warnings.push({
 			code: 'unusual_relation',
 			fields: ['shoulder_width', 'bust_girth'],
-			message: 'The shoulders are narrow for this bust: the cut-in-one sleeve barely clears the body. Consider a longer sleeve.'
+			message:
+				'The shoulders are narrow for this bust: the cut-in-one sleeve barely clears the body. Consider a longer sleeve.'
 		});
 	}
 	return warnings;
@@ -169,7 +231,9 @@ export const croppedTop: GarmentTemplate = {
 		fitOption,
 		lengthOption('length', 'Finished length (shoulder to hem)', inch(18), [inch(12), inch(30)]),
 		lengthOption('sleeveLength', 'Sleeve beyond the shoulder point', inch(6), [inch(2), inch(12)]),
-		lengthOption('sleeveOpening', 'Sleeve opening', inch(6), [inch(4), inch(10)], { help: 'More for a looser sleeve.' }),
+		lengthOption('sleeveOpening', 'Sleeve opening', inch(6), [inch(4), inch(10)], {
+			help: 'More for a looser sleeve.'
+		}),
 		lengthOption('neckWidth', 'Neck width from the fold', inch(4), [inch(2.5), inch(6)]),
 		lengthOption('neckDepth', 'Neck depth', inch(4), [inch(2), inch(8)]),
 		lengthOption('seamAllowance', 'Seam allowance', inch(1), [inch(0.25), inch(1.5)]),

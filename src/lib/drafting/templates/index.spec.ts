@@ -5,7 +5,14 @@ import { garmentIds, measurementCodes, measurementInfo } from '../measurements';
 import { garments, templates } from './index';
 import { draftIn, standardBodyCm } from './test-support';
 
-const girths = ['bust_girth', 'under_bust_girth', 'waist_girth', 'hip_girth', 'thigh_girth', 'upper_arm_girth'] as const;
+const girths = [
+	'bust_girth',
+	'under_bust_girth',
+	'waist_girth',
+	'hip_girth',
+	'thigh_girth',
+	'upper_arm_girth'
+] as const;
 
 describe('garment registry', () => {
 	it('lists the six garments in order with their required measurements and labour hours', () => {
@@ -19,7 +26,9 @@ describe('garment registry', () => {
 
 	it('agrees with the vocabulary about which garments use which measurement', () => {
 		for (const code of measurementCodes) {
-			const using = garments.filter((g) => g.requiredMeasurements.includes(code) || g.optionalMeasurements.includes(code)).map((g) => g.id);
+			const using = garments
+				.filter((g) => g.requiredMeasurements.includes(code) || g.optionalMeasurements.includes(code))
+				.map((g) => g.id);
 			expect([...measurementInfo[code].garments].sort(), code).toEqual(using.sort());
 		}
 	});

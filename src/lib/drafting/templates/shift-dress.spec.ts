@@ -21,7 +21,9 @@ describe('shift dress — wearing ease', () => {
 		}
 	});
 	it('relaxed bust ease is McCunn’s 4 in fitting ease (How to Make Sewing Patterns)', () => {
-		expect(finishedEase(draftIn(shiftDress, 'cm', body, { fit: 'relaxed' }), 'front.bust_width', body.bust_girth)).toBeCloseTo(4, 9);
+		expect(
+			finishedEase(draftIn(shiftDress, 'cm', body, { fit: 'relaxed' }), 'front.bust_width', body.bust_girth)
+		).toBeCloseTo(4, 9);
 	});
 	it('hip ease lies in the CWU range 2–2¾ in; the waist is looser than the CWU dress minimum ¾ in', () => {
 		const draft = draftIn(shiftDress, 'cm', body);
@@ -57,15 +59,37 @@ describe('shift dress — bust dart', () => {
 describe('shift dress — properties', () => {
 	it('widths grow with their girths; cm and in give the same outline', () => {
 		fc.assert(
-			fc.property(fc.double({ min: 80, max: 130, noNaN: true }), fc.double({ min: 0.5, max: 8, noNaN: true }), (bust, grow) => {
-				const base = { ...body, bust_girth: bust, under_bust_girth: bust - 15, hip_girth: bust + 8, waist_girth: bust - 16 };
-				const bigger = { ...base, bust_girth: bust + grow, under_bust_girth: bust + grow - 15, hip_girth: bust + 8 + grow, waist_girth: bust - 16 + grow };
-				const a = draftIn(shiftDress, 'cm', base);
-				const b = draftIn(shiftDress, 'cm', bigger);
-				for (const id of ['front.bust_width', 'front.hip_width', 'back.bust_width', 'front.armhole_depth']) expect(b.line(id), id).toBeGreaterThan(a.line(id));
-				const inches = draftIn(shiftDress, 'in', Object.fromEntries(Object.entries(base).map(([k, v]) => [k, v / 2.54])), { length: 95 / 2.54 });
-				a.pieces[0].outline.forEach((p, i) => expect(p.y).toBeCloseTo(inches.pieces[0].outline[i].y, 6));
-			}),
+			fc.property(
+				fc.double({ min: 80, max: 130, noNaN: true }),
+				fc.double({ min: 0.5, max: 8, noNaN: true }),
+				(bust, grow) => {
+					const base = {
+						...body,
+						bust_girth: bust,
+						under_bust_girth: bust - 15,
+						hip_girth: bust + 8,
+						waist_girth: bust - 16
+					};
+					const bigger = {
+						...base,
+						bust_girth: bust + grow,
+						under_bust_girth: bust + grow - 15,
+						hip_girth: bust + 8 + grow,
+						waist_girth: bust - 16 + grow
+					};
+					const a = draftIn(shiftDress, 'cm', base);
+					const b = draftIn(shiftDress, 'cm', bigger);
+					for (const id of ['front.bust_width', 'front.hip_width', 'back.bust_width', 'front.armhole_depth'])
+						expect(b.line(id), id).toBeGreaterThan(a.line(id));
+					const inches = draftIn(
+						shiftDress,
+						'in',
+						Object.fromEntries(Object.entries(base).map(([k, v]) => [k, v / 2.54])),
+						{ length: 95 / 2.54 }
+					);
+					a.pieces[0].outline.forEach((p, i) => expect(p.y).toBeCloseTo(inches.pieces[0].outline[i].y, 6));
+				}
+			),
 			{ numRuns: 40 }
 		);
 	});

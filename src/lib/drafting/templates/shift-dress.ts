@@ -84,7 +84,8 @@ function dressPiece(which: 'front' | 'back', f: DressFigures): DraftPiece {
 	const hip = pt(f.quarterHip + s, f.hipDepth + drop);
 	const hemY = f.length + f.hem;
 	const dartTop = f.armholeDepth + dartBelowUnderarm;
-	const sideAt = (y: number) => pt(underarm.x + ((waist.x - underarm.x) * (y - underarm.y)) / (waist.y - underarm.y), y);
+	const sideAt = (y: number) =>
+		pt(underarm.x + ((waist.x - underarm.x) * (y - underarm.y)) / (waist.y - underarm.y), y);
 	const outline: Point[] = [
 		pt(centreX, neckDepth - s),
 		pt(0, neckDepth - s),
@@ -102,13 +103,33 @@ function dressPiece(which: 'front' | 'back', f: DressFigures): DraftPiece {
 		{ kind: 'guide', points: [pt(0, f.hipDepth + drop), pt(hip.x, f.hipDepth + drop)], label: 'hip line' }
 	];
 	const lines: PieceLine[] = [
-		{ id: 'bust_width', label: 'Width at underarm (with side seam)', mm: underarm.x, dimension: { from: pt(0, underarm.y), to: underarm } },
-		{ id: 'waist_width', label: 'Width at waist (with side seam)', mm: waist.x, dimension: { from: pt(0, waist.y), to: waist } },
+		{
+			id: 'bust_width',
+			label: 'Width at underarm (with side seam)',
+			mm: underarm.x,
+			dimension: { from: pt(0, underarm.y), to: underarm }
+		},
+		{
+			id: 'waist_width',
+			label: 'Width at waist (with side seam)',
+			mm: waist.x,
+			dimension: { from: pt(0, waist.y), to: waist }
+		},
 		{ id: 'hip_width', label: 'Width at hip (with side seam)', mm: hip.x, dimension: { from: pt(0, hip.y), to: hip } },
-		{ id: 'armhole_depth', label: 'Armhole depth', mm: f.armholeDepth, dimension: { from: pt(-inch(0.8) + centreX, 0), to: pt(-inch(0.8) + centreX, f.armholeDepth) } },
+		{
+			id: 'armhole_depth',
+			label: 'Armhole depth',
+			mm: f.armholeDepth,
+			dimension: { from: pt(-inch(0.8) + centreX, 0), to: pt(-inch(0.8) + centreX, f.armholeDepth) }
+		},
 		{ id: 'waist_depth', label: 'Shoulder line to waist', mm: f.waistDepth + drop },
 		{ id: 'hip_depth', label: 'Shoulder line to hip', mm: f.hipDepth + drop },
-		{ id: 'piece_length', label: 'Piece length with hem', mm: hemY + drop + s, dimension: { from: pt(-inch(1.6) + centreX, -s), to: pt(-inch(1.6) + centreX, hemY + drop) } },
+		{
+			id: 'piece_length',
+			label: 'Piece length with hem',
+			mm: hemY + drop + s,
+			dimension: { from: pt(-inch(1.6) + centreX, -s), to: pt(-inch(1.6) + centreX, hemY + drop) }
+		},
 		{ id: 'neck_width', label: 'Neck width from centre', mm: f.neckWidth },
 		{ id: 'neck_depth', label: 'Neck depth', mm: neckDepth },
 		{ id: 'shoulder_point', label: 'Shoulder point from centre', mm: f.shoulderPoint },
@@ -125,13 +146,18 @@ function dressPiece(which: 'front' | 'back', f: DressFigures): DraftPiece {
 		);
 	} else {
 		marks.push({ kind: 'zip', points: [pt(0, neckDepth), pt(0, neckDepth + f.zipLength)], label: 'zip' });
-		lines.push({ id: 'zip_length', label: 'Zip opening', mm: f.zipLength }, { id: 'centre_back_seam', label: 'Centre back seam allowance', mm: centreBackSeam });
+		lines.push(
+			{ id: 'zip_length', label: 'Zip opening', mm: f.zipLength },
+			{ id: 'centre_back_seam', label: 'Centre back seam allowance', mm: centreBackSeam }
+		);
 	}
 	const grainX = f.quarterHip * 0.5;
 	return {
 		id: which,
 		label: front ? 'Front' : 'Back',
-		cut: front ? { quantity: 1, onFold: true, pair: false, grain: 'lengthwise' } : { quantity: 2, onFold: false, pair: true, grain: 'lengthwise' },
+		cut: front
+			? { quantity: 1, onFold: true, pair: false, grain: 'lengthwise' }
+			: { quantity: 2, onFold: false, pair: true, grain: 'lengthwise' },
 		outline,
 		marks,
 		lines,
@@ -144,7 +170,16 @@ export const shiftDress: GarmentTemplate = {
 	name: 'Shift dress',
 	summary: 'Sleeveless, straight from underarm to hem, side bust darts, centre-back zip.',
 	category: 'dress',
-	requiredMeasurements: ['bust_girth', 'waist_girth', 'hip_girth', 'shoulder_width', 'nape_to_waist', 'waist_to_hip', 'shoulder_to_bust_point', 'bust_point_span'],
+	requiredMeasurements: [
+		'bust_girth',
+		'waist_girth',
+		'hip_girth',
+		'shoulder_width',
+		'nape_to_waist',
+		'waist_to_hip',
+		'shoulder_to_bust_point',
+		'bust_point_span'
+	],
 	optionalMeasurements: ['under_bust_girth'],
 	options: [
 		fitOption,
@@ -156,7 +191,8 @@ export const shiftDress: GarmentTemplate = {
 		lengthOption('zipLength', 'Zip opening', inch(22), [inch(14), inch(24)])
 	],
 	defaultLabourHours: 7,
-	method: 'Quarter-bust bodice block extended to a shift (common practice); wearing ease from CWU “Ease in Clothing” and McCunn.',
+	method:
+		'Quarter-bust bodice block extended to a shift (common practice); wearing ease from CWU “Ease in Clothing” and McCunn.',
 	draft(body, options) {
 		const f = dressFigures(body, options);
 		return {

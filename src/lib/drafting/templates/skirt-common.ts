@@ -37,7 +37,9 @@ export interface SkirtShaping {
 }
 
 /** Side seam takes up to half the suppression (at most 1 in); darts the rest; any excess back to the side. */
-export function skirtShaping(input: Pick<SkirtInput, 'waist' | 'hip' | 'waistEase' | 'hipEase' | 'maxDartsPerQuarter'>): SkirtShaping {
+export function skirtShaping(
+	input: Pick<SkirtInput, 'waist' | 'hip' | 'waistEase' | 'hipEase' | 'maxDartsPerQuarter'>
+): SkirtShaping {
 	const quarterHip = (input.hip + input.hipEase) / 4;
 	const quarterWaist = (input.waist + input.waistEase) / 4;
 	const suppression = Math.max(quarterHip - quarterWaist, 0);
@@ -53,7 +55,12 @@ export function skirtShaping(input: Pick<SkirtInput, 'waist' | 'hip' | 'waistEas
 	return { quarterHip, quarterWaist, sideShaping, dartCount, dartIntake };
 }
 
-export function skirtPiece(which: 'front' | 'back', input: SkirtInput, shaping: SkirtShaping, extra: { zipLength: number; centreBackSeam: number; slitLength: number }): DraftPiece {
+export function skirtPiece(
+	which: 'front' | 'back',
+	input: SkirtInput,
+	shaping: SkirtShaping,
+	extra: { zipLength: number; centreBackSeam: number; slitLength: number }
+): DraftPiece {
 	const { quarterHip: q, sideShaping, dartCount, dartIntake } = shaping;
 	const s = input.seam;
 	const flare = input.flare ?? 0;
@@ -79,23 +86,51 @@ export function skirtPiece(which: 'front' | 'back', input: SkirtInput, shaping: 
 		label: 'dart',
 		points: [pt(x - dartIntake / 2, 0), pt(x, dartLength), pt(x + dartIntake / 2, 0)]
 	}));
-	const marks: PieceMark[] = [{ kind: 'guide', points: [pt(0, input.waistToHip), pt(q + s, input.waistToHip)], label: 'hip line' }, ...darts];
+	const marks: PieceMark[] = [
+		{ kind: 'guide', points: [pt(0, input.waistToHip), pt(q + s, input.waistToHip)], label: 'hip line' },
+		...darts
+	];
 	if (which === 'back') {
 		marks.push({ kind: 'zip', points: [pt(0, 0), pt(0, extra.zipLength)], label: 'zip' });
-		if (extra.slitLength > 0) marks.push({ kind: 'slit', points: [pt(0, input.length - extra.slitLength), pt(0, input.length)], label: 'slit' });
+		if (extra.slitLength > 0)
+			marks.push({
+				kind: 'slit',
+				points: [pt(0, input.length - extra.slitLength), pt(0, input.length)],
+				label: 'slit'
+			});
 	}
 	const lines: PieceLine[] = [
-		{ id: 'hip_width', label: 'Width at hip line (with side seam)', mm: q + s, dimension: { from: pt(0, input.waistToHip), to: sideHip } },
+		{
+			id: 'hip_width',
+			label: 'Width at hip line (with side seam)',
+			mm: q + s,
+			dimension: { from: pt(0, input.waistToHip), to: sideHip }
+		},
 		{ id: 'waist_width', label: 'Finished quarter waist', mm: shaping.quarterWaist },
-		{ id: 'hip_depth', label: 'Waist to hip line', mm: input.waistToHip, dimension: { from: pt(q + s + inch(0.8) + flare, 0), to: pt(q + s + inch(0.8) + flare, input.waistToHip) } },
+		{
+			id: 'hip_depth',
+			label: 'Waist to hip line',
+			mm: input.waistToHip,
+			dimension: { from: pt(q + s + inch(0.8) + flare, 0), to: pt(q + s + inch(0.8) + flare, input.waistToHip) }
+		},
 		{ id: 'side_shaping', label: 'Side seam shaping at waist', mm: sideShaping },
 		{ id: 'side_raise', label: 'Side waist raised', mm: sideRaise },
 		{ id: 'dart_intake', label: dartCount === 2 ? 'Intake per dart (two darts)' : 'Intake per dart', mm: dartIntake },
 		{ id: 'dart_length', label: 'Dart length', mm: dartCount ? dartLength : 0 },
 		{ id: 'length', label: 'Finished length (waist seam to hem)', mm: input.length },
-		{ id: 'piece_length', label: 'Piece length with seam and hem', mm: hemY + s, dimension: { from: pt(-inch(0.8) + centreX, -s), to: pt(-inch(0.8) + centreX, hemY) } }
+		{
+			id: 'piece_length',
+			label: 'Piece length with seam and hem',
+			mm: hemY + s,
+			dimension: { from: pt(-inch(0.8) + centreX, -s), to: pt(-inch(0.8) + centreX, hemY) }
+		}
 	];
-	lines.push({ id: 'hem_width', label: 'Width at hem (with side seam)', mm: q + s + flare, dimension: input.flare === null ? undefined : { from: pt(0, hemY), to: sideHem } });
+	lines.push({
+		id: 'hem_width',
+		label: 'Width at hem (with side seam)',
+		mm: q + s + flare,
+		dimension: input.flare === null ? undefined : { from: pt(0, hemY), to: sideHem }
+	});
 	if (input.flare !== null) lines.push({ id: 'flare', label: 'Flare at side seam', mm: flare });
 	if (which === 'back') {
 		lines.push({ id: 'zip_length', label: 'Zip opening', mm: extra.zipLength });
@@ -106,7 +141,10 @@ export function skirtPiece(which: 'front' | 'back', input: SkirtInput, shaping: 
 	return {
 		id: which,
 		label: which === 'front' ? 'Front' : 'Back',
-		cut: which === 'front' ? { quantity: 1, onFold: true, pair: false, grain: 'lengthwise' } : { quantity: 2, onFold: false, pair: true, grain: 'lengthwise' },
+		cut:
+			which === 'front'
+				? { quantity: 1, onFold: true, pair: false, grain: 'lengthwise' }
+				: { quantity: 2, onFold: false, pair: true, grain: 'lengthwise' },
 		outline,
 		marks,
 		lines,
@@ -132,7 +170,12 @@ export function skirtWaistband(finishedWaist: number, depth: number, seam: numbe
 		lines: [
 			{ id: 'cut_width', label: 'Cut width', mm: w, dimension: { from: pt(0, h), to: pt(w, h) } },
 			{ id: 'finished_depth', label: 'Finished depth', mm: depth },
-			{ id: 'length', label: 'Cut length (waist + ease + overlap + seams)', mm: h, dimension: { from: pt(-inch(0.6), 0), to: pt(-inch(0.6), h) } },
+			{
+				id: 'length',
+				label: 'Cut length (waist + ease + overlap + seams)',
+				mm: h,
+				dimension: { from: pt(-inch(0.6), 0), to: pt(-inch(0.6), h) }
+			},
 			{ id: 'overlap', label: 'Overlap', mm: overlap }
 		],
 		grainline: [pt(w * 0.7, inch(2)), pt(w * 0.7, h - inch(2))]

@@ -5,7 +5,11 @@ import { straightSkirt } from './straight-skirt';
 import { draftIn, standardBodyCm } from './test-support';
 
 const inch = 25.4;
-const body = { waist_girth: standardBodyCm.waist_girth, hip_girth: standardBodyCm.hip_girth, waist_to_hip: standardBodyCm.waist_to_hip };
+const body = {
+	waist_girth: standardBodyCm.waist_girth,
+	hip_girth: standardBodyCm.hip_girth,
+	waist_to_hip: standardBodyCm.waist_to_hip
+};
 const seam = (5 / 8) * inch;
 
 describe('straight skirt — ease (CWU "Ch. 16 Ease in Clothing": hip 2–2¾ in, skirt waist ½–¾ in)', () => {
@@ -39,7 +43,11 @@ describe('straight skirt — construction', () => {
 		}
 	});
 	it('cuts the front on the fold, the back as a pair with zip and slit', () => {
-		expect(draft.pieces.map((p) => [p.id, p.cut.onFold, p.cut.quantity])).toEqual([['front', true, 1], ['back', false, 2], ['waistband', false, 1]]);
+		expect(draft.pieces.map((p) => [p.id, p.cut.onFold, p.cut.quantity])).toEqual([
+			['front', true, 1],
+			['back', false, 2],
+			['waistband', false, 1]
+		]);
 		expect(draft.pieces[1].marks.map((m) => m.kind)).toEqual(expect.arrayContaining(['zip', 'slit']));
 	});
 });
@@ -49,7 +57,11 @@ describe('straight skirt — fabric against a published yardage chart', () => {
 		// Chart values are for commercial patterns across sizes; the estimate for the 88-72-96 body should land
 		// within 1/4 yd of it.
 		const draft = draftIn(straightSkirt, 'cm', body);
-		const estimate = estimateFabric(draft.pieces, { widthMm: 45 * inch, folded: true, directional: false, shrinkagePercent: 0, repeatMm: 0 }, 'in').estimate!;
+		const estimate = estimateFabric(
+			draft.pieces,
+			{ widthMm: 45 * inch, folded: true, directional: false, shrinkagePercent: 0, repeatMm: 0 },
+			'in'
+		).estimate!;
 		expect(Math.abs(estimate.rounded.value - 1.625)).toBeLessThanOrEqual(0.25);
 	});
 });
@@ -57,15 +69,24 @@ describe('straight skirt — fabric against a published yardage chart', () => {
 describe('straight skirt — properties', () => {
 	it('hip width grows with hip, waistband with waist; cm and in agree', () => {
 		fc.assert(
-			fc.property(fc.double({ min: 80, max: 150, noNaN: true }), fc.double({ min: 0.5, max: 10, noNaN: true }), (hip, grow) => {
-				const waist = hip * 0.75;
-				const a = draftIn(straightSkirt, 'cm', { ...body, hip_girth: hip, waist_girth: waist });
-				const b = draftIn(straightSkirt, 'cm', { ...body, hip_girth: hip + grow, waist_girth: waist + grow });
-				expect(b.line('front.hip_width')).toBeGreaterThan(a.line('front.hip_width'));
-				expect(b.line('waistband.length')).toBeGreaterThan(a.line('waistband.length'));
-				const inches = draftIn(straightSkirt, 'in', { hip_girth: hip / 2.54, waist_girth: waist / 2.54, waist_to_hip: body.waist_to_hip / 2.54 }, { length: 60 / 2.54 });
-				a.pieces[1].outline.forEach((p, i) => expect(p.x).toBeCloseTo(inches.pieces[1].outline[i].x, 6));
-			}),
+			fc.property(
+				fc.double({ min: 80, max: 150, noNaN: true }),
+				fc.double({ min: 0.5, max: 10, noNaN: true }),
+				(hip, grow) => {
+					const waist = hip * 0.75;
+					const a = draftIn(straightSkirt, 'cm', { ...body, hip_girth: hip, waist_girth: waist });
+					const b = draftIn(straightSkirt, 'cm', { ...body, hip_girth: hip + grow, waist_girth: waist + grow });
+					expect(b.line('front.hip_width')).toBeGreaterThan(a.line('front.hip_width'));
+					expect(b.line('waistband.length')).toBeGreaterThan(a.line('waistband.length'));
+					const inches = draftIn(
+						straightSkirt,
+						'in',
+						{ hip_girth: hip / 2.54, waist_girth: waist / 2.54, waist_to_hip: body.waist_to_hip / 2.54 },
+						{ length: 60 / 2.54 }
+					);
+					a.pieces[1].outline.forEach((p, i) => expect(p.x).toBeCloseTo(inches.pieces[1].outline[i].x, 6));
+				}
+			),
 			{ numRuns: 50 }
 		);
 	});

@@ -20,7 +20,8 @@ export const straightSkirt: GarmentTemplate = {
 		lengthOption('slitLength', 'Walking slit at centre back', inch(6), [0, inch(12)])
 	],
 	defaultLabourHours: 5,
-	method: 'Quarter-hip skirt block with waist darts (common practice); wearing ease from CWU “Ease in Clothing” (hip 2–2¾ in, skirt waist ½–¾ in).',
+	method:
+		'Quarter-hip skirt block with waist darts (common practice); wearing ease from CWU “Ease in Clothing” (hip 2–2¾ in, skirt waist ½–¾ in).',
 	draft(body, options) {
 		const ease = wearingEase[fitOf(options)];
 		const input: SkirtInput = {
@@ -37,7 +38,11 @@ export const straightSkirt: GarmentTemplate = {
 		};
 		const shaping = skirtShaping(input);
 		// Centre back carries a wider allowance for the zip: up to 1 in where fitting room is needed (industry practice).
-		const extra = { zipLength: num(options, 'zipLength'), centreBackSeam: inch(1), slitLength: num(options, 'slitLength') };
+		const extra = {
+			zipLength: num(options, 'zipLength'),
+			centreBackSeam: inch(1),
+			slitLength: num(options, 'slitLength')
+		};
 		const overlap = inch(1.5);
 		return {
 			pieces: [
@@ -53,7 +58,10 @@ export const straightSkirt: GarmentTemplate = {
 				{ id: 'waist_ease', label: 'Waist ease (total)', mm: input.waistEase },
 				{ id: 'waistband_depth', label: 'Finished waistband depth', mm: num(options, 'waistbandDepth') }
 			],
-			notes: ['Cut the front on the fold and the back as a pair.', 'Leave the centre back open for the zip at the top and the slit at the hem.'],
+			notes: [
+				'Cut the front on the fold and the back as a pair.',
+				'Leave the centre back open for the zip at the top and the slit at the hem.'
+			],
 			cautions: [],
 			warnings: []
 		};

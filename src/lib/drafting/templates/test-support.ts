@@ -14,7 +14,10 @@ export function draftIn(
 	const body = Object.fromEntries(Object.entries(measurements).map(([code, value]) => [code, toMm(value, unit)]));
 	const lengthIds = new Set(template.options.filter((o) => o.kind === 'length').map((o) => o.id));
 	const given = Object.fromEntries(
-		Object.entries(options).map(([id, value]) => [id, lengthIds.has(id) && typeof value === 'number' ? toMm(value, unit) : value])
+		Object.entries(options).map(([id, value]) => [
+			id,
+			lengthIds.has(id) && typeof value === 'number' ? toMm(value, unit) : value
+		])
 	);
 	const resolved = resolveOptions(template, given, body, unit);
 	if (resolved.errors.length) throw new Error(resolved.errors.map((e) => e.message).join('; '));

@@ -5,7 +5,11 @@ import { draftIn, standardBodyCm } from './test-support';
 import { tunic } from './tunic';
 
 const inch = 25.4;
-const body = { bust_girth: standardBodyCm.bust_girth, hip_girth: standardBodyCm.hip_girth, shoulder_width: standardBodyCm.shoulder_width };
+const body = {
+	bust_girth: standardBodyCm.bust_girth,
+	hip_girth: standardBodyCm.hip_girth,
+	shoulder_width: standardBodyCm.shoulder_width
+};
 
 describe('tunic / kaftan', () => {
 	const draft = draftIn(tunic, 'cm', body);
@@ -35,12 +39,17 @@ describe('tunic / kaftan', () => {
 	});
 	it('body width follows the larger of bust and hip (property)', () => {
 		fc.assert(
-			fc.property(fc.double({ min: 80, max: 140, noNaN: true }), fc.double({ min: 80, max: 150, noNaN: true }), fc.double({ min: 0.5, max: 10, noNaN: true }), (bust, hip, grow) => {
-				const a = draftIn(tunic, 'cm', { ...body, bust_girth: bust, hip_girth: hip });
-				const b = draftIn(tunic, 'cm', { ...body, bust_girth: bust + grow, hip_girth: hip + grow });
-				expect(b.line('front.body_width')).toBeGreaterThan(a.line('front.body_width'));
-				expect(b.line('front.body_width') - a.line('front.body_width')).toBeCloseTo(grow / 4, 9);
-			}),
+			fc.property(
+				fc.double({ min: 80, max: 140, noNaN: true }),
+				fc.double({ min: 80, max: 150, noNaN: true }),
+				fc.double({ min: 0.5, max: 10, noNaN: true }),
+				(bust, hip, grow) => {
+					const a = draftIn(tunic, 'cm', { ...body, bust_girth: bust, hip_girth: hip });
+					const b = draftIn(tunic, 'cm', { ...body, bust_girth: bust + grow, hip_girth: hip + grow });
+					expect(b.line('front.body_width')).toBeGreaterThan(a.line('front.body_width'));
+					expect(b.line('front.body_width') - a.line('front.body_width')).toBeCloseTo(grow / 4, 9);
+				}
+			),
 			{ numRuns: 50 }
 		);
 	});

@@ -53,18 +53,45 @@ function tunicPiece(which: 'front' | 'back', f: TunicFigures, neckTies: boolean)
 		pt(f.bodyWidth, f.pieceLength),
 		pt(0, f.pieceLength)
 	];
-	const marks: PieceMark[] = [{ kind: 'slit', points: [pt(f.bodyWidth, f.length - f.slitLength), pt(f.bodyWidth, f.length)], label: 'side slit' }];
-	if (front) marks.push({ kind: 'slit', points: [pt(0, neckDepth), pt(0, neckDepth + neckSlit)], label: neckTies ? 'neck slit, ties' : 'neck slit' });
+	const marks: PieceMark[] = [
+		{ kind: 'slit', points: [pt(f.bodyWidth, f.length - f.slitLength), pt(f.bodyWidth, f.length)], label: 'side slit' }
+	];
+	if (front)
+		marks.push({
+			kind: 'slit',
+			points: [pt(0, neckDepth), pt(0, neckDepth + neckSlit)],
+			label: neckTies ? 'neck slit, ties' : 'neck slit'
+		});
 	const lines: PieceLine[] = [
-		{ id: 'body_width', label: 'Body width from the fold (with side seam)', mm: f.bodyWidth, dimension: { from: pt(0, f.underarmY + inch(2)), to: pt(f.bodyWidth, f.underarmY + inch(2)) } },
+		{
+			id: 'body_width',
+			label: 'Body width from the fold (with side seam)',
+			mm: f.bodyWidth,
+			dimension: { from: pt(0, f.underarmY + inch(2)), to: pt(f.bodyWidth, f.underarmY + inch(2)) }
+		},
 		{ id: 'shoulder_point', label: 'Shoulder point from the fold', mm: f.shoulderPoint },
-		{ id: 'sleeve_end', label: 'Sleeve end from the fold', mm: f.sleeveEnd, dimension: { from: pt(0, -inch(0.6)), to: pt(f.sleeveEnd, -inch(0.6)) } },
-		{ id: 'sleeve_opening', label: 'Sleeve opening (half round)', mm: f.sleeveOpening, dimension: { from: pt(f.sleeveEnd + inch(0.6), 0), to: pt(f.sleeveEnd + inch(0.6), f.sleeveOpening) } },
+		{
+			id: 'sleeve_end',
+			label: 'Sleeve end from the fold',
+			mm: f.sleeveEnd,
+			dimension: { from: pt(0, -inch(0.6)), to: pt(f.sleeveEnd, -inch(0.6)) }
+		},
+		{
+			id: 'sleeve_opening',
+			label: 'Sleeve opening (half round)',
+			mm: f.sleeveOpening,
+			dimension: { from: pt(f.sleeveEnd + inch(0.6), 0), to: pt(f.sleeveEnd + inch(0.6), f.sleeveOpening) }
+		},
 		{ id: 'underarm_depth', label: 'Underarm depth', mm: f.underarmY },
 		{ id: 'neck_width', label: 'Neck width from the fold', mm: f.neckWidth },
 		{ id: 'neck_depth', label: 'Neck depth', mm: neckDepth },
 		{ id: 'side_slit', label: 'Side slit', mm: f.slitLength },
-		{ id: 'piece_length', label: 'Piece length with hem', mm: f.pieceLength, dimension: { from: pt(-inch(0.8), 0), to: pt(-inch(0.8), f.pieceLength) } }
+		{
+			id: 'piece_length',
+			label: 'Piece length with hem',
+			mm: f.pieceLength,
+			dimension: { from: pt(-inch(0.8), 0), to: pt(-inch(0.8), f.pieceLength) }
+		}
 	];
 	if (front) lines.push({ id: 'neck_slit', label: 'Neck slit', mm: neckSlit });
 	return {
@@ -82,10 +109,18 @@ function tunicWarnings(f: TunicFigures, upperArm: number | undefined): Finding[]
 	const warnings: Finding[] = [];
 	const depth = (f.neckDepth + neckSlit + backNeckDepth) / 2;
 	if (2 * Math.PI * Math.sqrt((f.neckWidth ** 2 + depth ** 2) / 2) < smallestHeadOpening) {
-		warnings.push({ code: 'option_out_of_range', fields: ['neckWidth', 'neckDepth'], message: 'The neck opening may be too small to pass over the head. Widen or deepen it.' });
+		warnings.push({
+			code: 'option_out_of_range',
+			fields: ['neckWidth', 'neckDepth'],
+			message: 'The neck opening may be too small to pass over the head. Widen or deepen it.'
+		});
 	}
 	if (upperArm !== undefined && 2 * f.sleeveOpening < upperArm + inch(2)) {
-		warnings.push({ code: 'unusual_relation', fields: ['options.sleeveOpening', 'upper_arm_girth'], message: 'The sleeve opening is tight for this upper arm; a loose sleeve needs at least 2 in more than the arm.' });
+		warnings.push({
+			code: 'unusual_relation',
+			fields: ['options.sleeveOpening', 'upper_arm_girth'],
+			message: 'The sleeve opening is tight for this upper arm; a loose sleeve needs at least 2 in more than the arm.'
+		});
 	}
 	return warnings;
 }
@@ -107,7 +142,13 @@ export const tunic: GarmentTemplate = {
 		lengthOption('slitLength', 'Side slits', inch(6), [0, inch(14)]),
 		lengthOption('seamAllowance', 'Seam allowance', homeSeamAllowance, [inch(0.25), inch(1.25)]),
 		lengthOption('hem', 'Hem allowance', inch(1), [inch(0.5), inch(3)]),
-		{ id: 'neckTies', label: 'Ties at the neck slit', kind: 'boolean', default: false, help: 'Not for children’s garments.' }
+		{
+			id: 'neckTies',
+			label: 'Ties at the neck slit',
+			kind: 'boolean',
+			default: false,
+			help: 'Not for children’s garments.'
+		}
 	],
 	defaultLabourHours: 3,
 	method: 'Rectangle-and-fold kaftan construction (common practice), loose design ease.',

@@ -61,7 +61,12 @@ describe('wide-leg trousers — the dressmaker’s method (common practice)', ()
 		expect(example.line('waistband.length')).toBeCloseTo(28 + 1.5 + 1, 9);
 	});
 	it('crotch ease option 1 deepens the crotch to 12', () => {
-		const looser = draftIn(wideLegTrousers, 'in', { hip_girth: 40, waist_girth: 28, thigh_girth: 25 }, { length: 45.5, crotchEase: 1 });
+		const looser = draftIn(
+			wideLegTrousers,
+			'in',
+			{ hip_girth: 40, waist_girth: 28, thigh_girth: 25 },
+			{ length: 45.5, crotchEase: 1 }
+		);
 		expect(looser.line('front.crotch_depth')).toBeCloseTo(12, 9);
 	});
 });
@@ -79,7 +84,12 @@ describe('wide-leg trousers — geometry', () => {
 		expect(outward.length).toBeGreaterThanOrEqual(2);
 	});
 	it('length defaults to waist to floor', () => {
-		const fromFloor = draftIn(wideLegTrousers, 'in', { hip_girth: 40, waist_girth: 28, thigh_girth: 25, waist_to_floor: 45.5 });
+		const fromFloor = draftIn(wideLegTrousers, 'in', {
+			hip_girth: 40,
+			waist_girth: 28,
+			thigh_girth: 25,
+			waist_to_floor: 45.5
+		});
 		expect(fromFloor.line('front.leg_length')).toBeCloseTo(46, 9);
 	});
 });
@@ -89,9 +99,30 @@ describe('wide-leg trousers — properties', () => {
 	it('hip-based lines grow with hip girth; waist and thigh widths with their girths', () => {
 		fc.assert(
 			fc.property(girth(32, 60), girth(0.1, 6), girth(24, 50), girth(18, 34), (hip, grow, waist, thigh) => {
-				const a = draftIn(wideLegTrousers, 'in', { hip_girth: hip, waist_girth: waist, thigh_girth: thigh }, { length: 40 });
-				const b = draftIn(wideLegTrousers, 'in', { hip_girth: hip + grow, waist_girth: waist + grow, thigh_girth: thigh + grow }, { length: 40 });
-				for (const id of ['front.hip_line_depth', 'front.crotch_depth', 'front.thigh_line_depth', 'front.hip_width', 'front.crotch_extension', 'front.fold_width', 'back.crotch_extension', 'front.waist_width', 'front.thigh_width', 'waistband.length']) {
+				const a = draftIn(
+					wideLegTrousers,
+					'in',
+					{ hip_girth: hip, waist_girth: waist, thigh_girth: thigh },
+					{ length: 40 }
+				);
+				const b = draftIn(
+					wideLegTrousers,
+					'in',
+					{ hip_girth: hip + grow, waist_girth: waist + grow, thigh_girth: thigh + grow },
+					{ length: 40 }
+				);
+				for (const id of [
+					'front.hip_line_depth',
+					'front.crotch_depth',
+					'front.thigh_line_depth',
+					'front.hip_width',
+					'front.crotch_extension',
+					'front.fold_width',
+					'back.crotch_extension',
+					'front.waist_width',
+					'front.thigh_width',
+					'waistband.length'
+				]) {
 					expect(b.line(id), id).toBeGreaterThan(a.line(id));
 				}
 				expect(polygonArea(b.pieces[0].outline)).toBeGreaterThan(polygonArea(a.pieces[0].outline));
@@ -102,8 +133,18 @@ describe('wide-leg trousers — properties', () => {
 	it('the same body in cm and in gives the same geometry', () => {
 		fc.assert(
 			fc.property(girth(32, 60), girth(24, 50), girth(18, 34), girth(34, 48), (hip, waist, thigh, length) => {
-				const inches = draftIn(wideLegTrousers, 'in', { hip_girth: hip, waist_girth: waist, thigh_girth: thigh }, { length });
-				const cm = draftIn(wideLegTrousers, 'cm', { hip_girth: hip * 2.54, waist_girth: waist * 2.54, thigh_girth: thigh * 2.54 }, { length: length * 2.54 });
+				const inches = draftIn(
+					wideLegTrousers,
+					'in',
+					{ hip_girth: hip, waist_girth: waist, thigh_girth: thigh },
+					{ length }
+				);
+				const cm = draftIn(
+					wideLegTrousers,
+					'cm',
+					{ hip_girth: hip * 2.54, waist_girth: waist * 2.54, thigh_girth: thigh * 2.54 },
+					{ length: length * 2.54 }
+				);
 				inches.pieces.forEach((piece, i) => {
 					piece.outline.forEach((p, j) => {
 						expect(p.x).toBeCloseTo(cm.pieces[i].outline[j].x, 6);

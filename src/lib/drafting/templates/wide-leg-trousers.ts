@@ -42,7 +42,16 @@ export interface TrouserFigures {
 
 export function trouserFigures(
 	body: { hip: number; waist: number; thigh: number },
-	o: { length: number; waistbandDepth: number; seamAllowance: number; hem: number; crotchEase: number; waistbandSeam: number; overlap: number; fit: Fit }
+	o: {
+		length: number;
+		waistbandDepth: number;
+		seamAllowance: number;
+		hem: number;
+		crotchEase: number;
+		waistbandSeam: number;
+		overlap: number;
+		fit: Fit;
+	}
 ): TrouserFigures {
 	const ease = easePerQuarter[o.fit];
 	const quarterHip = body.hip / 4;
@@ -101,15 +110,50 @@ function frontPiece(f: TrouserFigures): DraftPiece {
 		],
 		lines: [
 			{ id: 'fold_width', label: 'Fold width needed (fabric folded double)', mm: f.foldWidth },
-			{ id: 'hip_line_depth', label: 'Hip line depth', mm: f.hipLineDepth, dimension: { from: pt(depthAt(1), 0), to: pt(depthAt(1), f.hipLineDepth) } },
-			{ id: 'crotch_depth', label: 'Crotch depth', mm: f.crotchDepth, dimension: { from: pt(depthAt(2), 0), to: pt(depthAt(2), f.crotchDepth) } },
-			{ id: 'thigh_line_depth', label: 'Thigh line depth', mm: f.thighLineDepth, dimension: { from: pt(depthAt(3), 0), to: pt(depthAt(3), f.thighLineDepth) } },
+			{
+				id: 'hip_line_depth',
+				label: 'Hip line depth',
+				mm: f.hipLineDepth,
+				dimension: { from: pt(depthAt(1), 0), to: pt(depthAt(1), f.hipLineDepth) }
+			},
+			{
+				id: 'crotch_depth',
+				label: 'Crotch depth',
+				mm: f.crotchDepth,
+				dimension: { from: pt(depthAt(2), 0), to: pt(depthAt(2), f.crotchDepth) }
+			},
+			{
+				id: 'thigh_line_depth',
+				label: 'Thigh line depth',
+				mm: f.thighLineDepth,
+				dimension: { from: pt(depthAt(3), 0), to: pt(depthAt(3), f.thighLineDepth) }
+			},
 			{ id: 'hip_width', label: 'Width at hip line', mm: f.hipWidth, dimension: { from: sideHip, to: centreHip } },
-			{ id: 'crotch_extension', label: 'Crotch extension', mm: f.frontCrotchExtension, dimension: { from: pt(f.hipWidth, f.crotchDepth), to: crotchPoint } },
-			{ id: 'waist_width', label: 'Waist width', mm: f.waistWidth, dimension: { from: sideWaist, to: pt(f.hipWidth, 0) } },
+			{
+				id: 'crotch_extension',
+				label: 'Crotch extension',
+				mm: f.frontCrotchExtension,
+				dimension: { from: pt(f.hipWidth, f.crotchDepth), to: crotchPoint }
+			},
+			{
+				id: 'waist_width',
+				label: 'Waist width',
+				mm: f.waistWidth,
+				dimension: { from: sideWaist, to: pt(f.hipWidth, 0) }
+			},
 			{ id: 'centre_front_drop', label: 'Centre front lowered', mm: centreFrontDrop },
-			{ id: 'thigh_width', label: 'Thigh width (half each side of the centre line)', mm: f.thighWidth, dimension: { from: outThigh, to: inThigh } },
-			{ id: 'leg_length', label: 'Leg length with hem', mm: f.legLength, dimension: { from: pt(depthAt(4), 0), to: pt(depthAt(4), f.legLength) } }
+			{
+				id: 'thigh_width',
+				label: 'Thigh width (half each side of the centre line)',
+				mm: f.thighWidth,
+				dimension: { from: outThigh, to: inThigh }
+			},
+			{
+				id: 'leg_length',
+				label: 'Leg length with hem',
+				mm: f.legLength,
+				dimension: { from: pt(depthAt(4), 0), to: pt(depthAt(4), f.legLength) }
+			}
 		],
 		grainline: [pt(legCentre, f.thighLineDepth + inch(8)), pt(legCentre, f.legLength - inch(3))]
 	};
@@ -156,10 +200,20 @@ function backPiece(f: TrouserFigures, zip: { length: number; width: number }): D
 		lines: [
 			{ id: 'hip_width', label: 'Width at hip line', mm: f.hipWidth, dimension: { from: sideHip, to: centreHip } },
 			{ id: 'crotch_depth', label: 'Crotch depth', mm: f.crotchDepth },
-			{ id: 'crotch_extension', label: 'Crotch extension', mm: f.backCrotchExtension, dimension: { from: pt(f.hipWidth, f.crotchDepth), to: crotchPoint } },
+			{
+				id: 'crotch_extension',
+				label: 'Crotch extension',
+				mm: f.backCrotchExtension,
+				dimension: { from: pt(f.hipWidth, f.crotchDepth), to: crotchPoint }
+			},
 			{ id: 'waist_in', label: 'Centre back waist in from centre back', mm: backWaistIn },
 			{ id: 'waist_raise', label: 'Back waist raised', mm: backWaistRaise },
-			{ id: 'waist_width', label: 'Waist width (on the slant)', mm: distance(sideWaist, centreWaist), dimension: { from: sideWaist, to: centreWaist } },
+			{
+				id: 'waist_width',
+				label: 'Waist width (on the slant)',
+				mm: distance(sideWaist, centreWaist),
+				dimension: { from: sideWaist, to: centreWaist }
+			},
 			{ id: 'thigh_width', label: 'Thigh width', mm: f.thighWidth, dimension: { from: outThigh, to: inThigh } },
 			{ id: 'leg_length', label: 'Leg length with hem (from the waist line)', mm: f.legLength },
 			{ id: 'zip_allowance_length', label: 'Zip allowance length', mm: zip.length },
@@ -181,7 +235,12 @@ function waistbandPiece(f: TrouserFigures, depth: number, seam: number, overlap:
 		lines: [
 			{ id: 'cut_width', label: 'Cut width', mm: w, dimension: { from: pt(0, h), to: pt(w, h) } },
 			{ id: 'finished_depth', label: 'Finished depth', mm: depth },
-			{ id: 'length', label: 'Cut length (waist + overlap + seams)', mm: h, dimension: { from: pt(-inch(0.6), 0), to: pt(-inch(0.6), h) } },
+			{
+				id: 'length',
+				label: 'Cut length (waist + overlap + seams)',
+				mm: h,
+				dimension: { from: pt(-inch(0.6), 0), to: pt(-inch(0.6), h) }
+			},
 			{ id: 'overlap', label: 'Overlap', mm: overlap },
 			{ id: 'seam_allowance', label: 'Seam allowance', mm: seam }
 		],
@@ -207,7 +266,9 @@ export const wideLegTrousers: GarmentTemplate = {
 	optionalMeasurements: ['waist_to_floor'],
 	options: [
 		fitOption,
-		lengthOption('length', 'Finished length (top of waistband to hem)', null, [inch(20), inch(60)], { defaultFrom: 'waist_to_floor' }),
+		lengthOption('length', 'Finished length (top of waistband to hem)', null, [inch(20), inch(60)], {
+			defaultFrom: 'waist_to_floor'
+		}),
 		lengthOption('waistbandDepth', 'Finished waistband depth', inch(1.5), [inch(0.75), inch(4)]),
 		lengthOption('crotchEase', 'Crotch ease', inch(0.5), [inch(0.5), inch(1)]),
 		lengthOption('seamAllowance', 'Seam allowance', inch(1), [inch(0.25), inch(1.5)]),
@@ -229,7 +290,10 @@ export const wideLegTrousers: GarmentTemplate = {
 			waistbandSeam: num(options, 'waistbandSeam'),
 			overlap: num(options, 'overlap')
 		};
-		const f = trouserFigures({ hip: need(body, 'hip_girth'), waist: need(body, 'waist_girth'), thigh: need(body, 'thigh_girth') }, o);
+		const f = trouserFigures(
+			{ hip: need(body, 'hip_girth'), waist: need(body, 'waist_girth'), thigh: need(body, 'thigh_girth') },
+			o
+		);
 		const zip = { length: num(options, 'zipLength'), width: inch(1) };
 		return {
 			pieces: [frontPiece(f), backPiece(f, zip), waistbandPiece(f, o.waistbandDepth, o.waistbandSeam, o.overlap)],

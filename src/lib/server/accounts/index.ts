@@ -46,7 +46,13 @@ export async function register(input: { name: string; email: string; password: s
 			.onConflictDoNothing({ target: user.email })
 			.returning({ id: user.id, role: user.role });
 		if (!created) throw new EmailTaken();
-		await audit.record(tx, { actorId: created.id, action: 'account.registered', subjectType: 'user', subjectId: created.id, data: { role: input.role } });
+		await audit.record(tx, {
+			actorId: created.id,
+			action: 'account.registered',
+			subjectType: 'user',
+			subjectId: created.id,
+			data: { role: input.role }
+		});
 		return created;
 	});
 }
@@ -56,7 +62,13 @@ export type CredentialCheck =
 	| { ok: false; reason: 'invalid' | 'suspended' };
 
 /** Suspension is revealed only to someone who knows the password. */
-export async function verifyCredentials({ email, password }: { email: string; password: string }): Promise<CredentialCheck> {
+export async function verifyCredentials({
+	email,
+	password
+}: {
+	email: string;
+	password: string;
+}): Promise<CredentialCheck> {
 	const found = await findByEmail({ email });
 	if (!found?.passwordHash || !(await verifyPassword(found.passwordHash, password))) {
 		return { ok: false, reason: 'invalid' };
@@ -72,7 +84,14 @@ export async function suspend({ userId, reason, actorId }: { userId: string; rea
 			.set({ suspendedAt: new Date(), suspendedReason: reason })
 			.where(sql`${user.id} = ${userId} and ${user.suspendedAt} is null`)
 			.returning({ id: user.id });
-		if (changed) await audit.record(tx, { actorId, action: 'account.suspended', subjectType: 'user', subjectId: userId, data: { reason } });
+		if (changed)
+			await audit.record(tx, {
+				actorId,
+				action: 'account.suspended',
+				subjectType: 'user',
+				subjectId: userId,
+				data: { reason }
+			});
 	});
 }
 
@@ -83,12 +102,16 @@ export async function reinstate({ userId, actorId }: { userId: string; actorId: 
 			.set({ suspendedAt: null, suspendedReason: null })
 			.where(sql`${user.id} = ${userId} and ${user.suspendedAt} is not null`)
 			.returning({ id: user.id });
-		if (changed) await audit.record(tx, { actorId, action: 'account.reinstated', subjectType: 'user', subjectId: userId });
+		if (changed)
+			await audit.record(tx, { actorId, action: 'account.reinstated', subjectType: 'user', subjectId: userId });
 	});
 }
 
 export async function countByRole() {
-	const rows = await db.select({ role: user.role, count: sql<number>`count(*)::int` }).from(user).groupBy(user.role);
+	const rows = await db
+		.select({ role: user.role, count: sql<number>`count(*)::int` })
+		.from(user)
+		.groupBy(user.role);
 	const counts: Record<UserRole, number> = { customer: 0, tailor: 0, admin: 0 };
 	for (const row of rows) counts[row.role] = row.count;
 	return counts;
@@ -123,7 +146,9 @@ export async function list({
 	}
 	if (role) filters.push(eq(user.role, role));
 	if (after) {
-		filters.push(or(lt(user.createdAt, after.createdAt), and(eq(user.createdAt, after.createdAt), lt(user.id, after.id)))!);
+		filters.push(
+			or(lt(user.createdAt, after.createdAt), and(eq(user.createdAt, after.createdAt), lt(user.id, after.id)))!
+		);
 	}
 	const rows = await db
 		.select({

@@ -5,7 +5,12 @@ const valid = { name: ' Ada Quill ', email: ' Ada@Example.TEST ', password: 'ten
 
 describe('signUp', () => {
 	it('trims the name and normalises the email', () => {
-		expect(signUp.parse(valid)).toEqual({ name: 'Ada Quill', email: 'ada@example.test', password: 'ten chars!', role: 'customer' });
+		expect(signUp.parse(valid)).toEqual({
+			name: 'Ada Quill',
+			email: 'ada@example.test',
+			password: 'ten chars!',
+			role: 'customer'
+		});
 	});
 
 	it('asks for at least ten characters of password', () => {

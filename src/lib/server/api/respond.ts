@@ -17,7 +17,9 @@ export function invalidInput(error: z.ZodError) {
 }
 
 /** Reads a JSON body, answering 400 rather than throwing when it is not JSON. */
-export async function readJson(request: Request): Promise<{ ok: true; body: unknown } | { ok: false; response: Response }> {
+export async function readJson(
+	request: Request
+): Promise<{ ok: true; body: unknown } | { ok: false; response: Response }> {
 	try {
 		return { ok: true, body: await request.json() };
 	} catch {

@@ -12,7 +12,15 @@ describe('homeFor', () => {
 describe('safeRedirectTarget', () => {
 	it('follows same-site paths only', () => {
 		expect(safeRedirectTarget('/workroom?tab=quotes', '/')).toBe('/workroom?tab=quotes');
-		for (const target of ['https://elsewhere.example', '//elsewhere.example', '/\\elsewhere.example', 'javascript:alert(1)', '', null, undefined]) {
+		for (const target of [
+			'https://elsewhere.example',
+			'//elsewhere.example',
+			'/\\elsewhere.example',
+			'javascript:alert(1)',
+			'',
+			null,
+			undefined
+		]) {
 			expect(safeRedirectTarget(target, '/home')).toBe('/home');
 		}
 	});

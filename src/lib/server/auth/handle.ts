@@ -28,7 +28,11 @@ export const gateAreas: Handle = async ({ event, resolve }) => {
 	const area = areas.find(([prefix]) => path === prefix || path.startsWith(prefix + '/'));
 	if (area) {
 		const user = event.locals.user;
-		if (!user) redirect(303, event.locals.suspended ? '/sign-in?suspended=1' : `/sign-in?redirectTo=${encodeURIComponent(path)}`);
+		if (!user)
+			redirect(
+				303,
+				event.locals.suspended ? '/sign-in?suspended=1' : `/sign-in?redirectTo=${encodeURIComponent(path)}`
+			);
 		if (user.role !== area[1]) error(403, { message: 'This area is not part of your account.', code: 'forbidden' });
 	}
 	return resolve(event);

@@ -28,8 +28,10 @@ export async function checkSignInGate({ email, ip }: { email: string; ip: string
 		failuresSince(signInAttempt.email, email.toLowerCase(), since),
 		failuresSince(signInAttempt.ip, ip, since)
 	]);
-	if (byAccount.count >= MAX_FAILURES_PER_ACCOUNT) return { blocked: true, retryAfterMinutes: retryAfter(byAccount.oldest) };
-	if (byAddress.count >= MAX_FAILURES_PER_ADDRESS) return { blocked: true, retryAfterMinutes: retryAfter(byAddress.oldest) };
+	if (byAccount.count >= MAX_FAILURES_PER_ACCOUNT)
+		return { blocked: true, retryAfterMinutes: retryAfter(byAccount.oldest) };
+	if (byAddress.count >= MAX_FAILURES_PER_ADDRESS)
+		return { blocked: true, retryAfterMinutes: retryAfter(byAddress.oldest) };
 	return { blocked: false };
 }
 
@@ -47,5 +49,7 @@ export async function checkMagicLinkGate({ email }: { email: string }): Promise<
 		.select({ count: sql<number>`count(*)::int` })
 		.from(verificationToken)
 		.where(and(eq(verificationToken.identifier, email.toLowerCase()), gt(verificationToken.expires, recentExpiry)));
-	return (row?.count ?? 0) >= MAX_LINKS_PER_WINDOW ? { blocked: true, retryAfterMinutes: WINDOW_MINUTES } : { blocked: false };
+	return (row?.count ?? 0) >= MAX_LINKS_PER_WINDOW
+		? { blocked: true, retryAfterMinutes: WINDOW_MINUTES }
+		: { blocked: false };
 }

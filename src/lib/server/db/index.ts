@@ -10,6 +10,9 @@ function open(): ReturnType<typeof createDb> {
 // `vite build` imports server modules to analyse them; it must not need a database.
 const opened = building ? null : open();
 
+// adapter-node announces a graceful shutdown once requests have drained; close the pool then.
+process.on('sveltekit:shutdown', () => void opened?.pool.end());
+
 export const db = opened?.db as Database;
 export const pool = opened?.pool as ReturnType<typeof createDb>['pool'];
 export type { Database, Executor, Transaction } from './client';

@@ -46,7 +46,11 @@ export const actions: Actions = {
 		const userId = String(formData.get('userId') ?? '');
 		if (!parsed.ok) return fail(400, { userId, values: keepValues(formData, ['reason']), errors: parsed.errors });
 		if (parsed.data.userId === admin.id) {
-			return fail(400, { userId, values: keepValues(formData, ['reason']), errors: { form: ['You cannot suspend your own account.'] } });
+			return fail(400, {
+				userId,
+				values: keepValues(formData, ['reason']),
+				errors: { form: ['You cannot suspend your own account.'] }
+			});
 		}
 		await accounts.suspend({ userId: parsed.data.userId, reason: parsed.data.reason, actorId: admin.id });
 		return { userId, done: 'suspended' as const };

@@ -1,15 +1,5 @@
 import { sql } from 'drizzle-orm';
-import {
-	boolean,
-	index,
-	integer,
-	pgEnum,
-	pgTable,
-	primaryKey,
-	text,
-	timestamp,
-	uuid
-} from 'drizzle-orm/pg-core';
+import { boolean, index, integer, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { id, createdAt, updatedAt, instant } from './columns';
 
 export const userRole = pgEnum('user_role', ['customer', 'tailor', 'admin']);
@@ -62,10 +52,7 @@ export const account = pgTable(
 		id_token: text('id_token'),
 		session_state: text('session_state')
 	},
-	(t) => [
-		primaryKey({ columns: [t.provider, t.providerAccountId] }),
-		index('account_user_idx').on(t.userId)
-	]
+	(t) => [primaryKey({ columns: [t.provider, t.providerAccountId] }), index('account_user_idx').on(t.userId)]
 );
 
 export const session = pgTable(

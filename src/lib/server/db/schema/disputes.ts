@@ -1,15 +1,5 @@
 import { sql } from 'drizzle-orm';
-import {
-	char,
-	check,
-	index,
-	integer,
-	pgEnum,
-	pgTable,
-	text,
-	uniqueIndex,
-	uuid
-} from 'drizzle-orm/pg-core';
+import { char, check, index, integer, pgEnum, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
 import { id, createdAt, updatedAt, instant } from './columns';
 import { user } from './auth';
 import { order } from './orders';

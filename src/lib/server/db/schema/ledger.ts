@@ -1,15 +1,5 @@
 import { sql } from 'drizzle-orm';
-import {
-	bigint,
-	char,
-	check,
-	index,
-	pgEnum,
-	pgTable,
-	text,
-	uniqueIndex,
-	uuid
-} from 'drizzle-orm/pg-core';
+import { bigint, char, check, index, pgEnum, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
 import { id, createdAt, instant } from './columns';
 import { order } from './orders';
 

@@ -1,15 +1,5 @@
 import { sql } from 'drizzle-orm';
-import {
-	char,
-	check,
-	date,
-	index,
-	integer,
-	pgEnum,
-	pgTable,
-	text,
-	uuid
-} from 'drizzle-orm/pg-core';
+import { char, check, date, index, integer, pgEnum, pgTable, text, uuid } from 'drizzle-orm/pg-core';
 import { id, createdAt, updatedAt, instant } from './columns';
 import { user } from './auth';
 import { commission } from './commissions';

@@ -1,14 +1,5 @@
 import { sql } from 'drizzle-orm';
-import {
-	check,
-	index,
-	pgEnum,
-	pgTable,
-	smallint,
-	text,
-	unique,
-	uuid
-} from 'drizzle-orm/pg-core';
+import { check, index, pgEnum, pgTable, smallint, text, unique, uuid } from 'drizzle-orm/pg-core';
 import { id, instant } from './columns';
 import { user } from './auth';
 import { order } from './orders';

@@ -1,15 +1,5 @@
 import { sql } from 'drizzle-orm';
-import {
-	boolean,
-	check,
-	doublePrecision,
-	index,
-	integer,
-	pgEnum,
-	pgTable,
-	text,
-	uuid
-} from 'drizzle-orm/pg-core';
+import { boolean, check, doublePrecision, index, integer, pgEnum, pgTable, text, uuid } from 'drizzle-orm/pg-core';
 import { id, createdAt, updatedAt } from './columns';
 import { user } from './auth';
 
@@ -27,7 +17,10 @@ export const tailorProfile = pgTable(
 		slug: text('slug').notNull().unique(),
 		bio: text('bio').notNull().default(''),
 		/** Garment type ids from the catalogue in code. */
-		specialties: text('specialties').array().notNull().default(sql`'{}'::text[]`),
+		specialties: text('specialties')
+			.array()
+			.notNull()
+			.default(sql`'{}'::text[]`),
 		city: text('city').notNull(),
 		district: text('district'),
 		lat: doublePrecision('lat').notNull(),
