@@ -16,6 +16,8 @@ declare global {
 			user: SessionUser | null;
 			/** The session belongs to a suspended account: treated as signed out. */
 			suspended: boolean;
+			/** Set once the route has called requireUser/requireRole; the area gate checks it. */
+			guarded: boolean;
 		}
 	}
 }

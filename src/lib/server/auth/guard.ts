@@ -10,6 +10,7 @@ function isApiRequest(pathname: string) {
 /** The signed-in, non-suspended user, or a redirect to sign in (pages) / 401 (API). */
 export function requireUser(): SessionUser {
 	const { locals, url } = getRequestEvent();
+	locals.guarded = true;
 	if (locals.user) return locals.user;
 	if (isApiRequest(url.pathname)) error(401, { message: 'Sign in first.', code: 'unauthenticated' });
 	if (locals.suspended) redirect(303, '/sign-in?suspended=1');

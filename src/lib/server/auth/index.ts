@@ -28,7 +28,7 @@ export const { handle, signIn, signOut } = SvelteKitAuth(() =>
 		trustHost: true,
 		secret: env.AUTH_SECRET,
 		basePath: '/auth',
-		pages: { signIn: '/sign-in', error: '/sign-in', verifyRequest: '/sign-in' },
+		pages: { signIn: '/sign-in', signOut: '/sign-out', error: '/sign-in', verifyRequest: '/sign-in' },
 		providers: [
 			Credentials({
 				credentials: { email: {}, password: {} },
