@@ -1,7 +1,8 @@
 import { sequence } from '@sveltejs/kit/hooks';
 import type { HandleServerError } from '@sveltejs/kit';
 import { handle as authjs } from '$lib/server/auth';
-import { gateAreas, loadUser } from '$lib/server/auth/handle';
+import { gateAreas } from '$lib/server/auth/area-gate';
+import { loadUser } from '$lib/server/auth/handle';
 
 export const handle = sequence(authjs, loadUser, gateAreas);
 

@@ -64,8 +64,8 @@ test('a customer is kept out of the tailor workroom', async ({ page }) => {
 	await expect(page).toHaveURL(/\/commissions$/);
 	const response = await page.goto('/workroom');
 	expect(response?.status()).toBe(403);
-	await expect(page.getByRole('heading', { level: 1 })).toBeVisible();
-	await expect(page.getByText('This area is not part of your account.')).toBeVisible();
+	await expect(page.getByRole('heading', { level: 1 })).toHaveText('That page isn’t open to your account');
+	await expect(page.getByRole('link', { name: 'Back to the home page' })).toBeVisible();
 });
 
 test('the admin reaches the resolution desk', async ({ page }) => {

@@ -28,6 +28,12 @@ export const { handle, signIn, signOut } = SvelteKitAuth(() =>
 		trustHost: true,
 		secret: env.AUTH_SECRET,
 		basePath: '/auth',
+		// A wrong password is an expected outcome, answered on the form; only real failures are logged.
+		logger: {
+			error(error) {
+				if (!(error instanceof CredentialsSignin)) console.error('[auth]', error);
+			}
+		},
 		pages: { signIn: '/sign-in', signOut: '/sign-out', error: '/sign-in', verifyRequest: '/sign-in' },
 		providers: [
 			Credentials({
