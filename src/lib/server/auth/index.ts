@@ -1,5 +1,5 @@
 import { DrizzleAdapter } from '@auth/drizzle-adapter';
-import { CredentialsSignin, SvelteKitAuth } from '@auth/sveltekit';
+import { AuthError, CredentialsSignin, SvelteKitAuth } from '@auth/sveltekit';
 import Credentials from '@auth/sveltekit/providers/credentials';
 import Nodemailer from '@auth/sveltekit/providers/nodemailer';
 import { env } from '$env/dynamic/private';
@@ -28,13 +28,17 @@ export const { handle, signIn, signOut } = SvelteKitAuth(() =>
 		trustHost: true,
 		secret: env.AUTH_SECRET,
 		basePath: '/auth',
-		// A wrong password is an expected outcome, answered on the form; only real failures are logged.
+		// Wrong passwords and stale links are expected outcomes, answered on the page; log them briefly.
 		logger: {
 			error(error) {
-				if (!(error instanceof CredentialsSignin)) console.error('[auth]', error);
+				if (error instanceof CredentialsSignin) return;
+				if (error instanceof AuthError && error.type === 'Verification') {
+					console.warn('[auth] an expired or already used sign-in link was opened');
+					return;
+				}
+				console.error('[auth]', error);
 			}
 		},
-		pages: { signIn: '/sign-in', signOut: '/sign-out', error: '/sign-in', verifyRequest: '/sign-in' },
 		providers: [
 			Credentials({
 				credentials: { email: {}, password: {} },
