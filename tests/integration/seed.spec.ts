@@ -1,0 +1,47 @@
+import { eq, sql } from 'drizzle-orm';
+import { afterAll, describe, expect, it } from 'vitest';
+import { seedDemo } from '../../scripts/demo/seed-demo';
+import { checkMeasurements, type Measurements } from '../../src/lib/drafting';
+import { commission, measurementProfile, quote, tailorProfile, user } from '../../src/lib/server/db/schema';
+import { testDb } from './db';
+
+const { db, pool } = testDb();
+afterAll(() => pool.end());
+
+const demoTables = { user, tailorProfile, measurementProfile, commission, quote };
+
+async function demoCounts() {
+	const entries = await Promise.all(
+		Object.entries(demoTables).map(async ([name, table]) => {
+			const [row] = await db
+				.select({ n: sql<number>`count(*)::int` })
+				.from(table)
+				.where(name === 'user' ? sql`${user.email} like '%@tackline.test'` : undefined);
+			return [name, row.n] as const;
+		})
+	);
+	return Object.fromEntries(entries);
+}
+
+describe('demo seed', () => {
+	it('is idempotent, and restores a missing row without touching the rest', async () => {
+		const before = await demoCounts();
+		expect(before.user).toBeGreaterThanOrEqual(15);
+		expect(await seedDemo(db)).toBe('already-seeded');
+
+		await db.delete(user).where(eq(user.email, 'admin@tackline.test'));
+		expect(await seedDemo(db)).toBe('seeded');
+		expect(await demoCounts()).toEqual(before);
+	});
+
+	it('gives every demo measurement profile values the measurement checks accept', async () => {
+		const profiles = await db
+			.select({ label: measurementProfile.label, valuesMm: measurementProfile.valuesMm })
+			.from(measurementProfile);
+		expect(profiles.length).toBeGreaterThan(0);
+		for (const profile of profiles) {
+			const result = checkMeasurements(profile.valuesMm as Measurements, 'cm');
+			expect(result.errors, profile.label).toEqual([]);
+		}
+	});
+});
