@@ -18,6 +18,8 @@ declare global {
 			suspended: boolean;
 			/** Set once the route has called requireUser/requireRole; the area gate checks it. */
 			guarded: boolean;
+			/** Signed in through an emailed link in the last few minutes (may reset the password). */
+			recentLinkSignIn: boolean;
 		}
 	}
 }

@@ -1,6 +1,7 @@
 import { and, desc, eq, ilike, lt, or, sql, type SQL } from 'drizzle-orm';
 import { db, type Executor } from '../db';
-import { user, type UserRole } from '../db/schema';
+import { user, type LengthUnit, type UserRole } from '../db/schema';
+import * as mail from '../mail';
 import { hashPassword, verifyPassword } from '../auth/password';
 import * as audit from '../audit';
 import type { SessionUser } from '$lib/types/user';
@@ -167,4 +168,63 @@ export async function list({
 	const page = rows.slice(0, limit).map(({ suspendedAt, ...row }) => ({ ...row, suspended: suspendedAt !== null }));
 	const last = page.at(-1);
 	return { users: page, next: rows.length > limit && last ? { createdAt: last.createdAt, id: last.id } : null };
+}
+
+export async function getProfile({ id }: { id: string }) {
+	const [row] = await db
+		.select({
+			name: user.name,
+			email: user.email,
+			units: user.units,
+			timeZone: user.timeZone,
+			hasPassword: sql<boolean>`${user.passwordHash} is not null`
+		})
+		.from(user)
+		.where(eq(user.id, id))
+		.limit(1);
+	return row ?? null;
+}
+
+export async function updateProfile(input: { userId: string; name: string; units: LengthUnit; timeZone: string }) {
+	await db
+		.update(user)
+		.set({ name: input.name, units: input.units, timeZone: input.timeZone })
+		.where(eq(user.id, input.userId));
+}
+
+export class WrongPassword extends Error {
+	constructor() {
+		super('That is not your current password.');
+	}
+}
+
+/**
+ * Needs the current password, unless the account has none yet or the person has just signed in
+ * through an emailed link (which is how a forgotten password is replaced).
+ */
+export async function changePassword(input: {
+	userId: string;
+	currentPassword: string;
+	newPassword: string;
+	maySkipCurrent: boolean;
+}) {
+	const [row] = await db
+		.select({ email: user.email, passwordHash: user.passwordHash })
+		.from(user)
+		.where(eq(user.id, input.userId));
+	if (!row) throw new Error('account not found');
+	if (row.passwordHash && !input.maySkipCurrent && !(await verifyPassword(row.passwordHash, input.currentPassword))) {
+		throw new WrongPassword();
+	}
+	const passwordHash = await hashPassword(input.newPassword);
+	await db.transaction(async (tx) => {
+		await tx.update(user).set({ passwordHash }).where(eq(user.id, input.userId));
+		await audit.record(tx, {
+			actorId: input.userId,
+			action: 'account.password_changed',
+			subjectType: 'user',
+			subjectId: input.userId
+		});
+	});
+	await mail.send(mail.passwordChangedMail(row.email));
 }

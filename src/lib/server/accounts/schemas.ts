@@ -32,3 +32,24 @@ export const passwordSignIn = z.object({
 });
 
 export const magicLinkRequest = z.object({ email, redirectTo: z.string().optional() });
+
+const timeZones = new Set(Intl.supportedValuesOf('timeZone').concat('UTC'));
+
+export const profileUpdate = z.object({
+	name: signUp.shape.name,
+	units: z.enum(['cm', 'in'], { error: 'Choose centimetres or inches.' }),
+	timeZone: z
+		.string({ error: 'Choose your time zone.' })
+		.refine((zone) => timeZones.has(zone), 'Choose a time zone from the list.')
+});
+
+export const passwordChange = z
+	.object({
+		currentPassword: z.string().max(200).optional().default(''),
+		newPassword,
+		confirmPassword: z.string({ error: 'Type the new password again.' })
+	})
+	.refine((v) => v.newPassword === v.confirmPassword, {
+		path: ['confirmPassword'],
+		message: 'The two new passwords do not match.'
+	});

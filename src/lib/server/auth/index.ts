@@ -68,12 +68,18 @@ export const { handle, signIn, signOut } = SvelteKitAuth(() =>
 				if (!found) return false;
 				return found.suspendedAt ? '/sign-in?suspended=1' : true;
 			},
-			jwt({ token, user: signedIn }) {
-				if (signedIn?.id) token.sub = signedIn.id;
+			jwt({ token, user: signedIn, account: via }) {
+				if (signedIn?.id) {
+					token.sub = signedIn.id;
+					token.signedInWith = via?.provider;
+					token.signedInAt = Date.now();
+				}
 				return token;
 			},
 			session({ session: current, token }) {
 				if (token.sub) current.user.id = token.sub;
+				current.signedInWith = token.signedInWith;
+				current.signedInAt = token.signedInAt;
 				return current;
 			}
 		}

@@ -28,3 +28,11 @@ export function signInLinkMail(to: string, url: string): Mail {
 		html: `<p>Hello,</p><p>Use this link to sign in to Tackline at ${host}:</p><p><a href="${escapeAttribute(url)}">Sign in to Tackline</a></p><p>The link works once and expires in 24 hours. If you did not ask for it, you can ignore this email.</p><p>— Tackline</p>`
 	};
 }
+
+export function passwordChangedMail(to: string): Mail {
+	return {
+		to,
+		subject: 'Your Tackline password was changed',
+		text: `Hello,\n\nThe password of your Tackline account (${to}) was just changed.\n\nIf that was you, there is nothing more to do. If it was not, ask for a sign-in link on the sign-in page, choose a new password in your account settings, and write to support@tackline.test.\n\n— Tackline`
+	};
+}

@@ -1,0 +1,49 @@
+import { error, fail } from '@sveltejs/kit';
+import * as accounts from '$lib/server/accounts';
+import { passwordChange, profileUpdate } from '$lib/server/accounts/schemas';
+import { requireUser } from '$lib/server/auth/guard';
+import { keepValues, parseForm } from '$lib/server/forms';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async ({ locals }) => {
+	const user = requireUser();
+	const profile = await accounts.getProfile({ id: user.id });
+	if (!profile) error(404, { message: 'Account not found.' });
+	return {
+		profile,
+		needsCurrentPassword: profile.hasPassword && !locals.recentLinkSignIn,
+		timeZones: Intl.supportedValuesOf('timeZone')
+	};
+};
+
+export const actions: Actions = {
+	profile: async ({ request }) => {
+		const user = requireUser();
+		const formData = await request.formData();
+		const values = keepValues(formData, ['name', 'units', 'timeZone']);
+		const parsed = parseForm(profileUpdate, formData);
+		if (!parsed.ok) return fail(400, { action: 'profile' as const, values, errors: parsed.errors });
+		await accounts.updateProfile({ userId: user.id, ...parsed.data });
+		return { action: 'profile' as const, saved: true };
+	},
+
+	password: async ({ request, locals }) => {
+		const user = requireUser();
+		const parsed = parseForm(passwordChange, await request.formData());
+		if (!parsed.ok) return fail(400, { action: 'password' as const, errors: parsed.errors });
+		try {
+			await accounts.changePassword({
+				userId: user.id,
+				currentPassword: parsed.data.currentPassword,
+				newPassword: parsed.data.newPassword,
+				maySkipCurrent: locals.recentLinkSignIn
+			});
+		} catch (cause) {
+			if (cause instanceof accounts.WrongPassword) {
+				return fail(400, { action: 'password' as const, errors: { currentPassword: [cause.message] } });
+			}
+			throw cause;
+		}
+		return { action: 'password' as const, saved: true };
+	}
+};
