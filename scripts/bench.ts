@@ -13,6 +13,7 @@ import {
 	toMm,
 	type DraftRequest
 } from '../src/lib/drafting/index';
+import { hopperTurtonC1P1 } from '../src/lib/drafting/strip-packing-instances';
 
 const warmUp = 200;
 const iterations = 2000;
@@ -71,25 +72,8 @@ for (const garment of garments) {
 	]);
 }
 
-const c1p1 = [
-	[2, 12],
-	[7, 12],
-	[8, 6],
-	[3, 6],
-	[3, 5],
-	[5, 5],
-	[3, 12],
-	[3, 7],
-	[5, 7],
-	[2, 6],
-	[3, 2],
-	[4, 2],
-	[3, 4],
-	[4, 4],
-	[9, 2],
-	[11, 2]
-].map(([w, h]) => ({ w, h }));
-const strip = time(() => packStrip(c1p1, 20));
+const c1p1 = hopperTurtonC1P1.items;
+const strip = time(() => packStrip(c1p1, hopperTurtonC1P1.width));
 
 const widths = rows[0].map((_, col) => Math.max(...rows.map((r) => r[col].length)));
 console.log(`Tackline drafting bench — ${iterations} calls after ${warmUp} warm-up, Node ${process.version}\n`);

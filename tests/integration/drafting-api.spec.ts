@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { hopperTurtonC1P1 } from '../../src/lib/drafting/strip-packing-instances';
 
 const baseUrl = process.env.TACKLINE_BASE_URL ?? 'http://localhost:3000';
 
@@ -153,28 +154,10 @@ describe('POST /api/v1/layouts', () => {
 	});
 
 	it('stays within the FFDH bound on Hopper–Turton C1-P1 (W 20, OPT 20, h_max 12)', async () => {
-		const items = [
-			[2, 12],
-			[7, 12],
-			[8, 6],
-			[3, 6],
-			[3, 5],
-			[5, 5],
-			[3, 12],
-			[3, 7],
-			[5, 7],
-			[2, 6],
-			[3, 2],
-			[4, 2],
-			[3, 4],
-			[4, 4],
-			[9, 2],
-			[11, 2]
-		];
 		const { body } = await post('/api/v1/layouts', {
 			width: 20,
 			unit: 'in',
-			pieces: items.map(([w, h]) => ({ w, h }))
+			pieces: hopperTurtonC1P1.items
 		});
 		// Coffman, Garey, Johnson & Tarjan (1980): FFDH ≤ 1.7·OPT + h_max = 46; never below OPT.
 		expect(body.length).toBeGreaterThanOrEqual(20);

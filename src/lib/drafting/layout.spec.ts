@@ -1,27 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { packFfdh, packNfdh, packSkyline, packStrip, type PackResult, type RectItem } from './layout';
+import { hopperTurtonC1P1 } from './strip-packing-instances';
 
-// Hopper & Turton (2001) class C, instance C1-P1 (2DPackLib, University of Bologna): a zero-waste packing,
-// so OPT = A/W = 400/20 = 20; h_max = 12.
-const c1p1: RectItem[] = [
-	[2, 12],
-	[7, 12],
-	[8, 6],
-	[3, 6],
-	[3, 5],
-	[5, 5],
-	[3, 12],
-	[3, 7],
-	[5, 7],
-	[2, 6],
-	[3, 2],
-	[4, 2],
-	[3, 4],
-	[4, 4],
-	[9, 2],
-	[11, 2]
-].map(([w, h]) => ({ w, h }));
+// Hopper & Turton (2001) class C, instance C1-P1: OPT = A/W = 20, h_max = 12.
+const c1p1: RectItem[] = hopperTurtonC1P1.items;
 
 function overlaps(a: { x: number; y: number; w: number; h: number }, b: typeof a): boolean {
 	const eps = 1e-9;
