@@ -1,6 +1,6 @@
 import { wearingEase } from '../ease';
-import { fitOf, fitOption, homeSeamAllowance, inch, lengthOption, need, num } from './common';
-import { skirtPiece, skirtShaping, skirtWaistband, type SkirtInput } from './skirt-common';
+import { fitOf, fitOption, homeSeamAllowance, inch, lengthOption, need, num, waistbandPiece } from './common';
+import { skirtPiece, skirtShaping, type SkirtInput } from './skirt-common';
 import type { GarmentTemplate } from './types';
 
 export const aLineSkirt: GarmentTemplate = {
@@ -45,7 +45,13 @@ export const aLineSkirt: GarmentTemplate = {
 			pieces: [
 				skirtPiece('front', input, shaping, extra),
 				skirtPiece('back', input, shaping, extra),
-				skirtWaistband(input.waist + input.waistEase, num(options, 'waistbandDepth'), input.seam, inch(1.5))
+				waistbandPiece({
+					finishedWaist: input.waist + input.waistEase,
+					depth: num(options, 'waistbandDepth'),
+					seam: input.seam,
+					overlap: inch(1.5),
+					lengthLabel: 'Cut length (waist + ease + overlap + seams)'
+				})
 			],
 			allowances: [
 				{ id: 'seam', label: 'Seam allowance', mm: input.seam },

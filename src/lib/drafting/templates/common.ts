@@ -1,6 +1,8 @@
 import type { MeasurementCode } from '../measurements';
 import { mmPerInch } from '../units';
 import { fits, type Fit } from '../ease';
+import { pt } from '../geometry';
+import type { DraftPiece } from '../pieces';
 import type { BodyMm, ChoiceOption, LengthOption, ResolvedOptions } from './types';
 
 export const inch = (value: number) => value * mmPerInch;
@@ -42,4 +44,39 @@ export function need(body: BodyMm, code: MeasurementCode): number {
 	const value = body[code];
 	if (value === undefined) throw new TypeError(`Measurement ${code} is required`);
 	return value;
+}
+
+/**
+ * A straight waistband cut double and folded lengthwise: cut width = 2 × finished depth + 2 seams,
+ * length = finished waist + overlap + 2 seams (common practice).
+ */
+export function waistbandPiece(band: {
+	finishedWaist: number;
+	depth: number;
+	seam: number;
+	overlap: number;
+	lengthLabel: string;
+}): DraftPiece {
+	const w = 2 * band.depth + 2 * band.seam;
+	const h = band.finishedWaist + band.overlap + 2 * band.seam;
+	return {
+		id: 'waistband',
+		label: 'Waistband',
+		cut: { quantity: 1, onFold: false, pair: false, grain: 'lengthwise' },
+		outline: [pt(0, 0), pt(w, 0), pt(w, h), pt(0, h)],
+		marks: [{ kind: 'fold', points: [pt(w / 2, 0), pt(w / 2, h)], label: 'fold' }],
+		lines: [
+			{ id: 'cut_width', label: 'Cut width', mm: w, dimension: { from: pt(0, h), to: pt(w, h) } },
+			{ id: 'finished_depth', label: 'Finished depth', mm: band.depth },
+			{
+				id: 'length',
+				label: band.lengthLabel,
+				mm: h,
+				dimension: { from: pt(-inch(0.6), 0), to: pt(-inch(0.6), h) }
+			},
+			{ id: 'overlap', label: 'Overlap', mm: band.overlap },
+			{ id: 'seam_allowance', label: 'Seam allowance', mm: band.seam }
+		],
+		grainline: [pt(w * 0.7, inch(2)), pt(w * 0.7, h - inch(2))]
+	};
 }

@@ -157,27 +157,3 @@ function dartPositions(waistToSide: number, count: number): number[] {
 	if (count === 1) return [waistToSide * 0.45];
 	return [waistToSide * 0.35, waistToSide * 0.65];
 }
-
-export function skirtWaistband(finishedWaist: number, depth: number, seam: number, overlap: number): DraftPiece {
-	const w = 2 * depth + 2 * seam;
-	const h = finishedWaist + overlap + 2 * seam;
-	return {
-		id: 'waistband',
-		label: 'Waistband',
-		cut: { quantity: 1, onFold: false, pair: false, grain: 'lengthwise' },
-		outline: [pt(0, 0), pt(w, 0), pt(w, h), pt(0, h)],
-		marks: [{ kind: 'fold', points: [pt(w / 2, 0), pt(w / 2, h)], label: 'fold' }],
-		lines: [
-			{ id: 'cut_width', label: 'Cut width', mm: w, dimension: { from: pt(0, h), to: pt(w, h) } },
-			{ id: 'finished_depth', label: 'Finished depth', mm: depth },
-			{
-				id: 'length',
-				label: 'Cut length (waist + ease + overlap + seams)',
-				mm: h,
-				dimension: { from: pt(-inch(0.6), 0), to: pt(-inch(0.6), h) }
-			},
-			{ id: 'overlap', label: 'Overlap', mm: overlap }
-		],
-		grainline: [pt(w * 0.7, inch(2)), pt(w * 0.7, h - inch(2))]
-	};
-}

@@ -1,6 +1,6 @@
 import { wearingEase } from '../ease';
-import { fitOf, fitOption, homeSeamAllowance, inch, lengthOption, need, num } from './common';
-import { skirtPiece, skirtShaping, skirtWaistband, type SkirtInput } from './skirt-common';
+import { fitOf, fitOption, homeSeamAllowance, inch, lengthOption, need, num, waistbandPiece } from './common';
+import { skirtPiece, skirtShaping, type SkirtInput } from './skirt-common';
 import type { GarmentTemplate } from './types';
 
 export const straightSkirt: GarmentTemplate = {
@@ -48,7 +48,13 @@ export const straightSkirt: GarmentTemplate = {
 			pieces: [
 				skirtPiece('front', input, shaping, extra),
 				skirtPiece('back', input, shaping, extra),
-				skirtWaistband(input.waist + input.waistEase, num(options, 'waistbandDepth'), input.seam, overlap)
+				waistbandPiece({
+					finishedWaist: input.waist + input.waistEase,
+					depth: num(options, 'waistbandDepth'),
+					seam: input.seam,
+					overlap: overlap,
+					lengthLabel: 'Cut length (waist + ease + overlap + seams)'
+				})
 			],
 			allowances: [
 				{ id: 'seam', label: 'Seam allowance', mm: input.seam },

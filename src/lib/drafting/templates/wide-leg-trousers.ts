@@ -1,6 +1,6 @@
 import { distance, offsetSegment, pt, quadCurve, type Point } from '../geometry';
 import type { DraftPiece } from '../pieces';
-import { fitOf, fitOption, inch, lengthOption, need, num } from './common';
+import { fitOf, fitOption, inch, lengthOption, need, num, waistbandPiece } from './common';
 import type { Fit, GarmentTemplate } from './types';
 
 /*
@@ -36,8 +36,6 @@ export interface TrouserFigures {
 	thighWidth: number;
 	legLength: number;
 	foldWidth: number;
-	waistbandCutWidth: number;
-	waistbandLength: number;
 }
 
 export function trouserFigures(
@@ -69,9 +67,7 @@ export function trouserFigures(
 		waistWidth: body.waist / 4 + ease.waist + o.seamAllowance,
 		thighWidth: (body.thigh + o.seamAllowance) / 2,
 		legLength: o.length - o.waistbandDepth + o.hem,
-		foldWidth: quarterHip + ease.hip + foldRoom,
-		waistbandCutWidth: 2 * o.waistbandDepth + 2 * o.waistbandSeam,
-		waistbandLength: body.waist + o.overlap + 2 * o.waistbandSeam
+		foldWidth: quarterHip + ease.hip + foldRoom
 	};
 }
 
@@ -223,31 +219,6 @@ function backPiece(f: TrouserFigures, zip: { length: number; width: number }): D
 	};
 }
 
-function waistbandPiece(f: TrouserFigures, depth: number, seam: number, overlap: number): DraftPiece {
-	const w = f.waistbandCutWidth;
-	const h = f.waistbandLength;
-	return {
-		id: 'waistband',
-		label: 'Waistband',
-		cut: { quantity: 1, onFold: false, pair: false, grain: 'lengthwise' },
-		outline: [pt(0, 0), pt(w, 0), pt(w, h), pt(0, h)],
-		marks: [{ kind: 'fold', points: [pt(w / 2, 0), pt(w / 2, h)], label: 'fold' }],
-		lines: [
-			{ id: 'cut_width', label: 'Cut width', mm: w, dimension: { from: pt(0, h), to: pt(w, h) } },
-			{ id: 'finished_depth', label: 'Finished depth', mm: depth },
-			{
-				id: 'length',
-				label: 'Cut length (waist + overlap + seams)',
-				mm: h,
-				dimension: { from: pt(-inch(0.6), 0), to: pt(-inch(0.6), h) }
-			},
-			{ id: 'overlap', label: 'Overlap', mm: overlap },
-			{ id: 'seam_allowance', label: 'Seam allowance', mm: seam }
-		],
-		grainline: [pt(w / 2 + w / 5, inch(2)), pt(w / 2 + w / 5, h - inch(2))]
-	};
-}
-
 function guide(label: string, x0: number, x1: number, y: number) {
 	return { kind: 'guide' as const, points: [pt(x0, y), pt(x1, y)], label };
 }
@@ -296,7 +267,17 @@ export const wideLegTrousers: GarmentTemplate = {
 		);
 		const zip = { length: num(options, 'zipLength'), width: inch(1) };
 		return {
-			pieces: [frontPiece(f), backPiece(f, zip), waistbandPiece(f, o.waistbandDepth, o.waistbandSeam, o.overlap)],
+			pieces: [
+				frontPiece(f),
+				backPiece(f, zip),
+				waistbandPiece({
+					finishedWaist: need(body, 'waist_girth'),
+					depth: o.waistbandDepth,
+					seam: o.waistbandSeam,
+					overlap: o.overlap,
+					lengthLabel: 'Cut length (waist + overlap + seams)'
+				})
+			],
 			allowances: [
 				{ id: 'seam', label: 'Seam allowance (included in widths)', mm: o.seamAllowance },
 				{ id: 'hem', label: 'Hem allowance', mm: o.hem },
