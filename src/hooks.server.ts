@@ -3,8 +3,9 @@ import type { HandleServerError } from '@sveltejs/kit';
 import { handle as authjs } from '$lib/server/auth';
 import { gateAreas } from '$lib/server/auth/area-gate';
 import { loadUser } from '$lib/server/auth/handle';
+import { securityHeaders } from '$lib/server/http/security-headers';
 
-export const handle = sequence(authjs, loadUser, gateAreas);
+export const handle = sequence(securityHeaders, authjs, loadUser, gateAreas);
 
 export const handleError: HandleServerError = ({ error, event, status, message }) => {
 	if (status >= 500) console.error(`${event.request.method} ${event.url.pathname}`, error);

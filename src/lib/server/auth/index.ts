@@ -28,6 +28,7 @@ export const { handle, signIn, signOut } = SvelteKitAuth(() =>
 		trustHost: true,
 		secret: env.AUTH_SECRET,
 		basePath: '/auth',
+		pages: { signIn: '/sign-in', signOut: '/sign-out', error: '/sign-in', verifyRequest: '/sign-in' },
 		// Wrong passwords and stale links are expected outcomes, answered on the page; log them briefly.
 		logger: {
 			error(error) {

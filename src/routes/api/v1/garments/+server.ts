@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import { listGarments, units } from '$lib/drafting';
-import { invalidInput } from '$lib/server/api/respond';
+import { invalidInput } from '$lib/server/http/respond';
 import type { RequestHandler } from './$types';
 
 const query = z.object({ unit: z.enum(units).default('cm') });

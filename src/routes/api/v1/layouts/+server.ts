@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import { layoutRectangles, layoutRequestSchema } from '$lib/drafting';
-import { invalidInput, readJson } from '$lib/server/api/respond';
+import { invalidInput, readJson } from '$lib/server/http/respond';
 import type { RequestHandler } from './$types';
 
 export const POST: RequestHandler = async ({ request }) => {
