@@ -26,3 +26,14 @@ export async function readJson(
 		return { ok: false, response: apiError(400, 'invalid_json', 'The request body must be JSON.') };
 	}
 }
+
+/** Reads a JSON body and validates it: the parsed data, or the 400 response to send. */
+export async function parseJsonBody<S extends z.ZodType>(
+	request: Request,
+	schema: S
+): Promise<{ ok: true; data: z.output<S> } | { ok: false; response: Response }> {
+	const body = await readJson(request);
+	if (!body.ok) return body;
+	const parsed = schema.safeParse(body.body);
+	return parsed.success ? { ok: true, data: parsed.data } : { ok: false, response: invalidInput(parsed.error) };
+}

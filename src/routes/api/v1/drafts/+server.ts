@@ -1,12 +1,10 @@
 import { json } from '@sveltejs/kit';
 import { draftGarment, draftRequestSchema } from '$lib/drafting';
-import { invalidInput, readJson } from '$lib/server/http/respond';
+import { parseJsonBody } from '$lib/server/http/respond';
 import type { RequestHandler } from './$types';
 
 export const POST: RequestHandler = async ({ request }) => {
-	const body = await readJson(request);
-	if (!body.ok) return body.response;
-	const parsed = draftRequestSchema.safeParse(body.body);
-	if (!parsed.success) return invalidInput(parsed.error);
+	const parsed = await parseJsonBody(request, draftRequestSchema);
+	if (!parsed.ok) return parsed.response;
 	return json(draftGarment(parsed.data));
 };
