@@ -71,19 +71,18 @@ export function trouserFigures(
 	};
 }
 
-function frontPiece(f: TrouserFigures): DraftPiece {
-	const sideWaist = pt(f.hipWidth - f.waistWidth, 0);
-	const centreWaist = pt(f.hipWidth, centreFrontDrop);
+/**
+ * What front and back share below the hip line: the crotch curve out to the extension, the leg
+ * (thigh width kept to the hem) and the side seam curving back up to the side waist.
+ */
+function lowerBody(f: TrouserFigures, crotchExtension: number, sideWaist: Point) {
 	const centreHip = pt(f.hipWidth, f.hipLineDepth);
-	const crotchPoint = pt(f.hipWidth + f.frontCrotchExtension, f.crotchDepth);
+	const crotchPoint = pt(f.hipWidth + crotchExtension, f.crotchDepth);
 	const legCentre = crotchPoint.x / 2;
 	const inThigh = pt(legCentre + f.thighWidth / 2, f.thighLineDepth);
 	const outThigh = pt(legCentre - f.thighWidth / 2, f.thighLineDepth);
 	const sideHip = pt(0, f.hipLineDepth);
-	const outline: Point[] = [
-		sideWaist,
-		centreWaist,
-		centreHip,
+	const seatAndLeg: Point[] = [
 		...quadCurve(centreHip, pt(f.hipWidth, f.crotchDepth), crotchPoint),
 		inThigh,
 		pt(inThigh.x, f.legLength),
@@ -93,6 +92,19 @@ function frontPiece(f: TrouserFigures): DraftPiece {
 		sideHip,
 		...quadCurve(sideHip, pt(0, f.hipLineDepth * 0.35), sideWaist)
 	];
+	return { crotchPoint, legCentre, inThigh, outThigh, sideHip, seatAndLeg };
+}
+
+function frontPiece(f: TrouserFigures): DraftPiece {
+	const sideWaist = pt(f.hipWidth - f.waistWidth, 0);
+	const centreWaist = pt(f.hipWidth, centreFrontDrop);
+	const centreHip = pt(f.hipWidth, f.hipLineDepth);
+	const { crotchPoint, legCentre, inThigh, outThigh, sideHip, seatAndLeg } = lowerBody(
+		f,
+		f.frontCrotchExtension,
+		sideWaist
+	);
+	const outline: Point[] = [sideWaist, centreWaist, centreHip, ...seatAndLeg];
 	const depthAt = (step: number) => -inch(1.1) * step;
 	return {
 		id: 'front',
@@ -160,29 +172,14 @@ function backPiece(f: TrouserFigures, zip: { length: number; width: number }): D
 	const run = Math.sqrt(Math.max(f.waistWidth ** 2 - backWaistRaise ** 2, 0));
 	const sideWaist = pt(centreWaist.x - run, 0);
 	const centreHip = pt(f.hipWidth, f.hipLineDepth);
-	const crotchPoint = pt(f.hipWidth + f.backCrotchExtension, f.crotchDepth);
-	const legCentre = crotchPoint.x / 2;
-	const inThigh = pt(legCentre + f.thighWidth / 2, f.thighLineDepth);
-	const outThigh = pt(legCentre - f.thighWidth / 2, f.thighLineDepth);
-	const sideHip = pt(0, f.hipLineDepth);
+	const { crotchPoint, legCentre, inThigh, outThigh, sideHip, seatAndLeg } = lowerBody(
+		f,
+		f.backCrotchExtension,
+		sideWaist
+	);
 	const zipEnd = alongSegment(centreWaist, centreHip, zip.length);
 	const [zipTop, zipBottom] = offsetSegment(centreWaist, zipEnd, zip.width);
-	const outline: Point[] = [
-		sideWaist,
-		centreWaist,
-		zipTop,
-		zipBottom,
-		zipEnd,
-		centreHip,
-		...quadCurve(centreHip, pt(f.hipWidth, f.crotchDepth), crotchPoint),
-		inThigh,
-		pt(inThigh.x, f.legLength),
-		pt(outThigh.x, f.legLength),
-		outThigh,
-		pt(0, f.crotchDepth),
-		sideHip,
-		...quadCurve(sideHip, pt(0, f.hipLineDepth * 0.35), sideWaist)
-	];
+	const outline: Point[] = [sideWaist, centreWaist, zipTop, zipBottom, zipEnd, centreHip, ...seatAndLeg];
 	return {
 		id: 'back',
 		label: 'Back',
