@@ -68,52 +68,7 @@ function layItems(pieces: readonly DraftPiece[], folded: boolean): LayItem[] {
 		const box = boundingBox(piece.outline);
 		const area = polygonArea(piece.outline);
 		const { quantity, onFold, pair } = piece.cut;
-		if (folded) {
-			if (onFold)
-				return {
-					piece,
-					w: box.width,
-					h: box.height,
-					quantity,
-					anchorLeft: true,
-					unfolded: false,
-					yields: 1,
-					areaPerCut: 2 * area
-				};
-			if (pair)
-				return {
-					piece,
-					w: box.width,
-					h: box.height,
-					quantity: Math.ceil(quantity / 2),
-					anchorLeft: false,
-					unfolded: false,
-					yields: 2,
-					areaPerCut: area
-				};
-			return {
-				piece,
-				w: box.width,
-				h: box.height,
-				quantity,
-				anchorLeft: false,
-				unfolded: false,
-				yields: 1,
-				areaPerCut: area
-			};
-		}
-		if (onFold)
-			return {
-				piece,
-				w: 2 * box.width,
-				h: box.height,
-				quantity,
-				anchorLeft: false,
-				unfolded: true,
-				yields: 1,
-				areaPerCut: 2 * area
-			};
-		return {
+		const plain: LayItem = {
 			piece,
 			w: box.width,
 			h: box.height,
@@ -123,6 +78,12 @@ function layItems(pieces: readonly DraftPiece[], folded: boolean): LayItem[] {
 			yields: 1,
 			areaPerCut: area
 		};
+		// On folded cloth a fold piece sits against the fold, and one cut gives both halves of a pair.
+		if (folded && onFold) return { ...plain, anchorLeft: true, areaPerCut: 2 * area };
+		if (folded && pair) return { ...plain, quantity: Math.ceil(quantity / 2), yields: 2 };
+		// On open cloth a fold piece is cut out whole, twice as wide.
+		if (!folded && onFold) return { ...plain, w: 2 * box.width, unfolded: true, areaPerCut: 2 * area };
+		return plain;
 	});
 }
 

@@ -1,6 +1,5 @@
-import { wearingEase } from '../ease';
-import { fitOf, fitOption, homeSeamAllowance, inch, lengthOption, need, num, waistbandPiece } from './common';
-import { skirtPiece, skirtShaping, type SkirtInput } from './skirt-common';
+import { fitOption, homeSeamAllowance, inch, lengthOption, num, waistbandPiece } from './common';
+import { skirtInput, skirtPiece, skirtShaping } from './skirt-common';
 import type { GarmentTemplate } from './types';
 
 export const aLineSkirt: GarmentTemplate = {
@@ -17,6 +16,7 @@ export const aLineSkirt: GarmentTemplate = {
 			help: 'Extra width at the hem on each side seam.'
 		}),
 		lengthOption('seamAllowance', 'Seam allowance', homeSeamAllowance, [inch(0.25), inch(1.25)]),
+		// A curved hem turns up less cloth than a straight one: a narrower hem (common practice).
 		lengthOption('hem', 'Hem allowance', inch(1), [inch(0.5), inch(3)]),
 		lengthOption('waistbandDepth', 'Finished waistband depth', inch(1.25), [inch(0.75), inch(3)]),
 		lengthOption('zipLength', 'Zip opening', inch(7), [inch(5), inch(10)])
@@ -25,20 +25,7 @@ export const aLineSkirt: GarmentTemplate = {
 	method:
 		'Quarter-hip skirt block with flare added at the side seam from the hip line (common practice); ease from CWU “Ease in Clothing”.',
 	draft(body, options) {
-		const ease = wearingEase[fitOf(options)];
-		const input: SkirtInput = {
-			waist: need(body, 'waist_girth'),
-			hip: need(body, 'hip_girth'),
-			waistToHip: need(body, 'waist_to_hip'),
-			length: num(options, 'length'),
-			waistEase: ease.skirtWaist,
-			hipEase: ease.hip,
-			seam: num(options, 'seamAllowance'),
-			// A curved hem turns up less cloth than a straight one: a narrower hem (common practice).
-			hem: num(options, 'hem'),
-			flare: num(options, 'flare'),
-			maxDartsPerQuarter: 1
-		};
+		const input = skirtInput(body, options, { flare: num(options, 'flare'), maxDartsPerQuarter: 1 });
 		const shaping = skirtShaping(input);
 		const extra = { zipLength: num(options, 'zipLength'), centreBackSeam: inch(1), slitLength: 0 };
 		return {

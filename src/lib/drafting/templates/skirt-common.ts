@@ -1,6 +1,8 @@
 import { pt, quadCurve, type Point } from '../geometry';
 import type { DraftPiece, PieceLine, PieceMark } from '../pieces';
-import { inch } from './common';
+import { wearingEase } from '../ease';
+import { fitOf, inch, need, num } from './common';
+import type { BodyMm, ResolvedOptions } from './types';
 
 /*
  * A skirt drafted on quarters of hip and waist, the usual block construction (common practice): a rectangle
@@ -26,6 +28,26 @@ export interface SkirtInput {
 	/** Extra width at the hem on each side seam; null for a straight skirt. */
 	flare: number | null;
 	maxDartsPerQuarter: 1 | 2;
+}
+
+/** The measurements, ease and allowances every skirt template reads the same way. */
+export function skirtInput(
+	body: BodyMm,
+	options: ResolvedOptions,
+	shape: { flare: number | null; maxDartsPerQuarter: 1 | 2 }
+): SkirtInput {
+	const ease = wearingEase[fitOf(options)];
+	return {
+		waist: need(body, 'waist_girth'),
+		hip: need(body, 'hip_girth'),
+		waistToHip: need(body, 'waist_to_hip'),
+		length: num(options, 'length'),
+		waistEase: ease.skirtWaist,
+		hipEase: ease.hip,
+		seam: num(options, 'seamAllowance'),
+		hem: num(options, 'hem'),
+		...shape
+	};
 }
 
 export interface SkirtShaping {

@@ -1,6 +1,5 @@
-import { wearingEase } from '../ease';
-import { fitOf, fitOption, homeSeamAllowance, inch, lengthOption, need, num, waistbandPiece } from './common';
-import { skirtPiece, skirtShaping, type SkirtInput } from './skirt-common';
+import { fitOption, homeSeamAllowance, inch, lengthOption, num, waistbandPiece } from './common';
+import { skirtInput, skirtPiece, skirtShaping } from './skirt-common';
 import type { GarmentTemplate } from './types';
 
 export const straightSkirt: GarmentTemplate = {
@@ -23,19 +22,7 @@ export const straightSkirt: GarmentTemplate = {
 	method:
 		'Quarter-hip skirt block with waist darts (common practice); wearing ease from CWU “Ease in Clothing” (hip 2–2¾ in, skirt waist ½–¾ in).',
 	draft(body, options) {
-		const ease = wearingEase[fitOf(options)];
-		const input: SkirtInput = {
-			waist: need(body, 'waist_girth'),
-			hip: need(body, 'hip_girth'),
-			waistToHip: need(body, 'waist_to_hip'),
-			length: num(options, 'length'),
-			waistEase: ease.skirtWaist,
-			hipEase: ease.hip,
-			seam: num(options, 'seamAllowance'),
-			hem: num(options, 'hem'),
-			flare: null,
-			maxDartsPerQuarter: 2
-		};
+		const input = skirtInput(body, options, { flare: null, maxDartsPerQuarter: 2 });
 		const shaping = skirtShaping(input);
 		// Centre back carries a wider allowance for the zip: up to 1 in where fitting room is needed (industry practice).
 		const extra = {
