@@ -1,5 +1,5 @@
-import { fitOption, homeSeamAllowance, inch, lengthOption, num, waistbandPiece } from './common';
-import { skirtInput, skirtPiece, skirtShaping } from './skirt-common';
+import { inch, lengthOption, num, waistbandPiece } from './common';
+import { skirtInput, skirtOptions, skirtPiece, skirtShaping } from './skirt-common';
 import type { GarmentTemplate } from './types';
 
 export const aLineSkirt: GarmentTemplate = {
@@ -9,18 +9,12 @@ export const aLineSkirt: GarmentTemplate = {
 	category: 'skirt',
 	requiredMeasurements: ['waist_girth', 'hip_girth', 'waist_to_hip'],
 	optionalMeasurements: [],
-	options: [
-		fitOption,
-		lengthOption('length', 'Finished length (waist seam to hem)', 600, [300, 1100]),
+	// A curved hem turns up less cloth than a straight one: a narrower hem (common practice).
+	options: skirtOptions(inch(1), [
 		lengthOption('flare', 'Flare at each side seam', inch(2.5), [0, inch(8)], {
 			help: 'Extra width at the hem on each side seam.'
-		}),
-		lengthOption('seamAllowance', 'Seam allowance', homeSeamAllowance, [inch(0.25), inch(1.25)]),
-		// A curved hem turns up less cloth than a straight one: a narrower hem (common practice).
-		lengthOption('hem', 'Hem allowance', inch(1), [inch(0.5), inch(3)]),
-		lengthOption('waistbandDepth', 'Finished waistband depth', inch(1.25), [inch(0.75), inch(3)]),
-		lengthOption('zipLength', 'Zip opening', inch(7), [inch(5), inch(10)])
-	],
+		})
+	]),
 	defaultLabourHours: 4,
 	method:
 		'Quarter-hip skirt block with flare added at the side seam from the hip line (common practice); ease from CWU “Ease in Clothing”.',

@@ -1,8 +1,8 @@
 import { pt, quadCurve, type Point } from '../geometry';
 import type { DraftPiece, PieceLine, PieceMark } from '../pieces';
 import { wearingEase } from '../ease';
-import { fitOf, inch, need, num } from './common';
-import type { BodyMm, ResolvedOptions } from './types';
+import { fitOf, fitOption, homeSeamAllowance, inch, lengthOption, need, num } from './common';
+import type { BodyMm, OptionSpec, ResolvedOptions } from './types';
 
 /*
  * A skirt drafted on quarters of hip and waist, the usual block construction (common practice): a rectangle
@@ -28,6 +28,19 @@ export interface SkirtInput {
 	/** Extra width at the hem on each side seam; null for a straight skirt. */
 	flare: number | null;
 	maxDartsPerQuarter: 1 | 2;
+}
+
+/** Options every skirt offers; a template adds its own (flare, slit) and its hem default. */
+export function skirtOptions(hemDefault: number, extra: readonly OptionSpec[] = []): OptionSpec[] {
+	return [
+		fitOption,
+		lengthOption('length', 'Finished length (waist seam to hem)', 600, [300, 1100]),
+		lengthOption('seamAllowance', 'Seam allowance', homeSeamAllowance, [inch(0.25), inch(1.25)]),
+		lengthOption('hem', 'Hem allowance', hemDefault, [inch(0.5), inch(3)]),
+		lengthOption('waistbandDepth', 'Finished waistband depth', inch(1.25), [inch(0.75), inch(3)]),
+		lengthOption('zipLength', 'Zip opening', inch(7), [inch(5), inch(10)]),
+		...extra
+	];
 }
 
 /** The measurements, ease and allowances every skirt template reads the same way. */

@@ -1,5 +1,5 @@
-import { fitOption, homeSeamAllowance, inch, lengthOption, num, waistbandPiece } from './common';
-import { skirtInput, skirtPiece, skirtShaping } from './skirt-common';
+import { inch, lengthOption, num, waistbandPiece } from './common';
+import { skirtInput, skirtOptions, skirtPiece, skirtShaping } from './skirt-common';
 import type { GarmentTemplate } from './types';
 
 export const straightSkirt: GarmentTemplate = {
@@ -9,15 +9,7 @@ export const straightSkirt: GarmentTemplate = {
 	category: 'skirt',
 	requiredMeasurements: ['waist_girth', 'hip_girth', 'waist_to_hip'],
 	optionalMeasurements: [],
-	options: [
-		fitOption,
-		lengthOption('length', 'Finished length (waist seam to hem)', 600, [300, 1100]),
-		lengthOption('seamAllowance', 'Seam allowance', homeSeamAllowance, [inch(0.25), inch(1.25)]),
-		lengthOption('hem', 'Hem allowance', inch(1.5), [inch(0.5), inch(3)]),
-		lengthOption('waistbandDepth', 'Finished waistband depth', inch(1.25), [inch(0.75), inch(3)]),
-		lengthOption('zipLength', 'Zip opening', inch(7), [inch(5), inch(10)]),
-		lengthOption('slitLength', 'Walking slit at centre back', inch(6), [0, inch(12)])
-	],
+	options: skirtOptions(inch(1.5), [lengthOption('slitLength', 'Walking slit at centre back', inch(6), [0, inch(12)])]),
 	defaultLabourHours: 5,
 	method:
 		'Quarter-hip skirt block with waist darts (common practice); wearing ease from CWU “Ease in Clothing” (hip 2–2¾ in, skirt waist ½–¾ in).',
