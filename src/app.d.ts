@@ -1,4 +1,5 @@
 import type { SessionUser } from '$lib/types/user';
+import type { Database } from '$lib/server/db/client';
 
 declare global {
 	namespace NodeJS {
@@ -13,6 +14,8 @@ declare global {
 			code?: string;
 		}
 		interface Locals {
+			/** The database handle routes pass to domain functions (routes never import db/ themselves). */
+			db: Database;
 			user: SessionUser | null;
 			/** The session belongs to a suspended account: treated as signed out. */
 			suspended: boolean;

@@ -1,11 +1,18 @@
 import { sequence } from '@sveltejs/kit/hooks';
-import type { HandleServerError } from '@sveltejs/kit';
+import type { Handle, HandleServerError } from '@sveltejs/kit';
 import { handle as authjs } from '$lib/server/auth';
 import { gateAreas } from '$lib/server/auth/area-gate';
 import { loadUser } from '$lib/server/auth/handle';
+import { db } from '$lib/server/db';
 import { securityHeaders } from '$lib/server/http/security-headers';
 
-export const handle = sequence(securityHeaders, authjs, loadUser, gateAreas);
+/** Routes hand this to domain functions; tests and scripts pass their own handle. */
+const provideDb: Handle = ({ event, resolve }) => {
+	event.locals.db = db;
+	return resolve(event);
+};
+
+export const handle = sequence(securityHeaders, provideDb, authjs, loadUser, gateAreas);
 
 export const handleError: HandleServerError = ({ error, event, status, message }) => {
 	if (status >= 500) console.error(`${event.request.method} ${event.url.pathname}`, error);
