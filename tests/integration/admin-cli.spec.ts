@@ -5,7 +5,7 @@ import { newClient, signIn, uniqueEmail } from './http';
 
 const run = promisify(execFile);
 
-it('makes an administrator from the command line, who then reaches the resolution desk', async () => {
+it('makes an administrator from the command line, who then reaches the desk', async () => {
 	const email = uniqueEmail('ops');
 	const { stdout } = await run(
 		'node_modules/.bin/tsx',

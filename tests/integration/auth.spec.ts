@@ -101,7 +101,7 @@ describe('suspension', () => {
 	});
 });
 
-describe('suspension from the resolution desk', () => {
+describe('suspension from the desk', () => {
 	it('lets an admin suspend and reinstate an account, with a reason and an audit trail', async () => {
 		const email = uniqueEmail('rulebreaker');
 		const member = newClient();

@@ -3,6 +3,7 @@ import * as accounts from '$lib/server/accounts';
 import { passwordChange, profileUpdate } from '$lib/server/accounts/schemas';
 import { requireUser } from '$lib/server/auth/guard';
 import { keepValues, parseForm } from '$lib/server/forms';
+import { timeZoneGroups } from '$lib/format/time-zones';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ locals }) => {
@@ -12,7 +13,7 @@ export const load: PageServerLoad = async ({ locals }) => {
 	return {
 		profile,
 		needsCurrentPassword: profile.hasPassword && !locals.recentLinkSignIn,
-		timeZones: Intl.supportedValuesOf('timeZone')
+		timeZones: timeZoneGroups(new Date())
 	};
 };
 

@@ -37,13 +37,25 @@ export class EmailTaken extends Error {
 	}
 }
 
-export async function register(input: { name: string; email: string; password: string; role: UserRole }) {
+export async function register(input: {
+	name: string;
+	email: string;
+	password: string;
+	role: UserRole;
+	timeZone?: string;
+}) {
 	const passwordHash = await hashPassword(input.password);
 	return db.transaction(async (tx) => {
 		if (await findByEmail({ email: input.email }, tx)) throw new EmailTaken();
 		const [created] = await tx
 			.insert(user)
-			.values({ name: input.name, email: input.email.toLowerCase(), passwordHash, role: input.role })
+			.values({
+				name: input.name,
+				email: input.email.toLowerCase(),
+				passwordHash,
+				role: input.role,
+				timeZone: input.timeZone
+			})
 			.onConflictDoNothing({ target: user.email })
 			.returning({ id: user.id, role: user.role });
 		if (!created) throw new EmailTaken();

@@ -9,7 +9,8 @@ describe('signUp', () => {
 			name: 'Ada Quill',
 			email: 'ada@example.test',
 			password: 'ten chars!',
-			role: 'customer'
+			role: 'customer',
+			timeZone: 'UTC'
 		});
 	});
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { canonicalTimeZone, fallbackTimeZone } from '$lib/format/time-zones';
 import { MIN_PASSWORD_LENGTH } from '../auth/password';
 
 export const email = z
@@ -14,6 +15,14 @@ export const newPassword = z
 	.min(MIN_PASSWORD_LENGTH, `Use at least ${MIN_PASSWORD_LENGTH} characters.`)
 	.max(200, 'Use at most 200 characters.');
 
+/** A real IANA zone, stored under the name the zone list uses. */
+export const timeZone = z.string({ error: 'Choose your time zone.' }).transform((zone, ctx) => {
+	const canonical = canonicalTimeZone(zone.trim());
+	if (canonical) return canonical;
+	ctx.addIssue({ code: 'custom', message: 'Choose a time zone from the list.' });
+	return z.NEVER;
+});
+
 export const signUp = z.object({
 	name: z
 		.string({ error: 'Tell us your name.' })
@@ -22,7 +31,9 @@ export const signUp = z.object({
 		.max(80, 'Use at most 80 characters.'),
 	email,
 	password: newPassword,
-	role: z.enum(['customer', 'tailor'], { error: 'Choose whether you want clothes made or make clothes.' })
+	role: z.enum(['customer', 'tailor'], { error: 'Choose whether you want clothes made or make clothes.' }),
+	// Sent by the browser unseen; without JavaScript (or with an odd value) the account starts in UTC.
+	timeZone: timeZone.catch(fallbackTimeZone)
 });
 
 export const passwordSignIn = z.object({
@@ -33,14 +44,10 @@ export const passwordSignIn = z.object({
 
 export const magicLinkRequest = z.object({ email, redirectTo: z.string().optional() });
 
-const timeZones = new Set(Intl.supportedValuesOf('timeZone').concat('UTC'));
-
 export const profileUpdate = z.object({
 	name: signUp.shape.name,
 	units: z.enum(['cm', 'in'], { error: 'Choose centimetres or inches.' }),
-	timeZone: z
-		.string({ error: 'Choose your time zone.' })
-		.refine((zone) => timeZones.has(zone), 'Choose a time zone from the list.')
+	timeZone
 });
 
 export const passwordChange = z

@@ -22,3 +22,4 @@ function clientAddress(): string | null {
 export async function record(tx: Executor, entry: AuditEntry) {
 	await tx.insert(auditEvent).values({ ...entry, data: entry.data ?? {}, ip: clientAddress() });
 }
+export { historiesFor, historyFor, type HistoryEntry } from './history';

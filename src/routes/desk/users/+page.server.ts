@@ -1,6 +1,8 @@
 import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import * as accounts from '$lib/server/accounts';
+import * as audit from '$lib/server/audit';
+import { fallbackTimeZone } from '$lib/format/time-zones';
 import { requireRole } from '$lib/server/auth/guard';
 import { keepValues, parseForm } from '$lib/server/forms';
 import type { Actions, PageServerLoad } from './$types';
@@ -19,14 +21,19 @@ const filters = z.object({
 		.catch(undefined)
 });
 
-export const load: PageServerLoad = async ({ url }) => {
+export const load: PageServerLoad = async ({ url, locals }) => {
 	const admin = requireRole('admin');
 	const { q, role, after } = filters.parse(Object.fromEntries(url.searchParams));
-	const { users, next } = await accounts.list({ search: q || undefined, role, after });
+	const [{ users, next }, profile] = await Promise.all([
+		accounts.list({ search: q || undefined, role, after }),
+		accounts.getProfile({ id: admin.id })
+	]);
+	const histories = await audit.historiesFor(locals.db, { subjectType: 'user', subjectIds: users.map((u) => u.id) });
 	return {
 		adminId: admin.id,
+		timeZone: profile?.timeZone ?? fallbackTimeZone,
 		filters: { q: q ?? '', role: role ?? '' },
-		users,
+		users: users.map((u) => ({ ...u, history: histories.get(u.id) ?? [] })),
 		nextCursor: next ? `${next.createdAt.getTime()}_${next.id}` : null,
 		isFirstPage: !after
 	};

@@ -1,0 +1,39 @@
+import { minorUnitExponent } from '../drafting/quote';
+
+/** Integer minor units as an exact decimal string ("-12.50"), so money never passes through a float. */
+function toDecimal(amountMinor: number, exponent: number): string {
+	if (!Number.isSafeInteger(amountMinor)) throw new RangeError('Money must be a whole number of minor units');
+	const digits = String(Math.abs(amountMinor)).padStart(exponent + 1, '0');
+	const major = exponent ? `${digits.slice(0, -exponent)}.${digits.slice(-exponent)}` : digits;
+	return amountMinor < 0 ? `-${major}` : major;
+}
+
+/** Whole units when every amount shown is whole (€450), the currency's minor digits otherwise (€60.50). */
+function formatterFor(amountsMinor: number[], currency: string, locale: string) {
+	const exponent = minorUnitExponent(currency);
+	const whole = amountsMinor.every((amount) => amount % 10 ** exponent === 0);
+	const digits = whole ? 0 : exponent;
+	const formatter = new Intl.NumberFormat(locale, {
+		style: 'currency',
+		currency,
+		minimumFractionDigits: digits,
+		maximumFractionDigits: digits
+	});
+	return { formatter, exponent };
+}
+
+// Intl formats decimal strings exactly (Intl.NumberFormat v3); its types still say number.
+type Exact = number & string;
+
+/** One amount in integer minor units of an ISO 4217 currency: "€450", "€60.50", "¥19,500". */
+export function formatMoney(amountMinor: number, currency: string, locale = 'en'): string {
+	const { formatter, exponent } = formatterFor([amountMinor], currency, locale);
+	return formatter.format(toDecimal(amountMinor, exponent) as Exact);
+}
+
+/** A range such as a budget, the way the locale writes ranges: "€450 – €650"; one amount when both ends agree. */
+export function formatMoneyRange(minMinor: number, maxMinor: number, currency: string, locale = 'en'): string {
+	if (minMinor === maxMinor) return formatMoney(minMinor, currency, locale);
+	const { formatter, exponent } = formatterFor([minMinor, maxMinor], currency, locale);
+	return formatter.formatRange(toDecimal(minMinor, exponent) as Exact, toDecimal(maxMinor, exponent) as Exact);
+}
