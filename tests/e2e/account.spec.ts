@@ -2,6 +2,8 @@ import { expect, test } from '@playwright/test';
 import { signUp, uniqueEmail } from './helpers';
 
 test.use({ timezoneId: 'America/Sao_Paulo', extraHTTPHeaders: { 'x-forwarded-for': '198.19.0.21' } });
+// Signing up or in hashes a password; give a busy machine room.
+test.setTimeout(90_000);
 
 test('a new account starts in the browser’s time zone, and its first save works', async ({ page }) => {
 	await signUp(page, 'customer', uniqueEmail('zone'), 'a long enough password');

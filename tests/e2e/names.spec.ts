@@ -2,6 +2,8 @@ import { expect, test } from '@playwright/test';
 import { signInWithPassword } from './helpers';
 
 test.use({ extraHTTPHeaders: { 'x-forwarded-for': '198.19.0.24' } });
+// Signing up or in hashes a password; give a busy machine room.
+test.setTimeout(90_000);
 
 test('visitors are offered both sides in our own words', async ({ page }) => {
 	await page.goto('/');
