@@ -10,6 +10,8 @@ export async function signInWithPassword(page: Page, email: string, password: st
 	await form.getByLabel('Email address').fill(email);
 	await form.getByLabel('Password').fill(password);
 	await form.getByRole('button', { name: 'Sign in' }).click();
+	// Checking the password hash takes a moment on a busy machine.
+	await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'), { timeout: 30_000 });
 }
 
 /** Signs a new account up through the form and waits for its home page. */
