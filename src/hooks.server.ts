@@ -1,10 +1,11 @@
 import { sequence } from '@sveltejs/kit/hooks';
 import type { Handle, HandleServerError } from '@sveltejs/kit';
-import { handle as authjs } from '$lib/server/auth';
 import { gateAreas } from '$lib/server/auth/area-gate';
+import { authEndpoints } from '$lib/server/auth/endpoints';
 import { loadUser } from '$lib/server/auth/handle';
 import { db } from '$lib/server/db';
 import { securityHeaders } from '$lib/server/http/security-headers';
+import { limitPublicApi } from '$lib/server/limits/handle';
 
 /** Routes hand this to domain functions; tests and scripts pass their own handle. */
 const provideDb: Handle = ({ event, resolve }) => {
@@ -12,7 +13,7 @@ const provideDb: Handle = ({ event, resolve }) => {
 	return resolve(event);
 };
 
-export const handle = sequence(securityHeaders, provideDb, authjs, loadUser, gateAreas);
+export const handle = sequence(securityHeaders, provideDb, limitPublicApi, authEndpoints, loadUser, gateAreas);
 
 export const handleError: HandleServerError = ({ error, event, status, message }) => {
 	if (status >= 500) console.error(`${event.request.method} ${event.url.pathname}`, error);

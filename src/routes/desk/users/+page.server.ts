@@ -19,10 +19,10 @@ const filters = z.object({
 		.catch(undefined)
 });
 
-export const load: PageServerLoad = async ({ url }) => {
+export const load: PageServerLoad = async ({ url, locals }) => {
 	const admin = requireRole('admin');
 	const { q, role, after } = filters.parse(Object.fromEntries(url.searchParams));
-	const { users, next } = await accounts.list({ search: q || undefined, role, after });
+	const { users, next } = await accounts.list(locals.db, { search: q || undefined, role, after });
 	return {
 		adminId: admin.id,
 		filters: { q: q ?? '', role: role ?? '' },
@@ -36,10 +36,10 @@ const suspension = z.object({
 	userId: z.uuid(),
 	reason: z.string().trim().min(3, 'Say briefly why (at least 3 characters).').max(500, 'Keep it under 500 characters.')
 });
-const reinstatement = z.object({ userId: z.uuid() });
+const oneUser = z.object({ userId: z.uuid() });
 
 export const actions: Actions = {
-	suspend: async ({ request }) => {
+	suspend: async ({ request, locals }) => {
 		const admin = requireRole('admin');
 		const formData = await request.formData();
 		const parsed = parseForm(suspension, formData);
@@ -52,14 +52,21 @@ export const actions: Actions = {
 				errors: { form: ['You cannot suspend your own account.'] }
 			});
 		}
-		await accounts.suspend({ userId: parsed.data.userId, reason: parsed.data.reason, actorId: admin.id });
+		await accounts.suspend(locals.db, { userId: parsed.data.userId, reason: parsed.data.reason, actorId: admin.id });
 		return { userId, done: 'suspended' as const };
 	},
-	reinstate: async ({ request }) => {
+	reinstate: async ({ request, locals }) => {
 		const admin = requireRole('admin');
-		const parsed = parseForm(reinstatement, await request.formData());
+		const parsed = parseForm(oneUser, await request.formData());
 		if (!parsed.ok) return fail(400, { userId: '', values: {}, errors: parsed.errors });
-		await accounts.reinstate({ userId: parsed.data.userId, actorId: admin.id });
+		await accounts.reinstate(locals.db, { userId: parsed.data.userId, actorId: admin.id });
 		return { userId: parsed.data.userId, done: 'reinstated' as const };
+	},
+	endSessions: async ({ request, locals }) => {
+		const admin = requireRole('admin');
+		const parsed = parseForm(oneUser, await request.formData());
+		if (!parsed.ok) return fail(400, { userId: '', values: {}, errors: parsed.errors });
+		await accounts.endAllSessions(locals.db, { userId: parsed.data.userId, actorId: admin.id });
+		return { userId: parsed.data.userId, done: 'signed out everywhere' as const };
 	}
 };
