@@ -15,6 +15,9 @@ async function confirmationLink(email: string) {
 	throw new Error(`no confirmation mail for ${email}`);
 }
 
+// Sign-up, confirmation and sign-in each hash a password: give these flows room on a loaded machine.
+test.describe.configure({ timeout: 120_000 });
+
 function uniqueEmail(prefix: string) {
 	return `${prefix}.${Date.now().toString(36)}${Math.floor(Math.random() * 1e4)}@example.test`;
 }
@@ -25,6 +28,8 @@ async function signInWithPassword(page: Page, email: string, password: string) {
 	await form.getByLabel('Email address').fill(email);
 	await form.getByLabel('Password').fill(password);
 	await form.getByRole('button', { name: 'Sign in' }).click();
+	// argon2 is slow on purpose, and slower still on a busy machine.
+	await page.waitForURL((url) => url.pathname !== '/sign-in', { timeout: 30_000 });
 }
 
 async function signOut(page: Page) {
