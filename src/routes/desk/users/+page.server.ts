@@ -1,4 +1,4 @@
-import { fail } from '@sveltejs/kit';
+import { fail, type RequestEvent } from '@sveltejs/kit';
 import { z } from 'zod';
 import * as accounts from '$lib/server/accounts';
 import { requireRole } from '$lib/server/auth/guard';
@@ -38,6 +38,20 @@ const suspension = z.object({
 });
 const oneUser = z.object({ userId: z.uuid() });
 
+/** An admin's one-button action on one account: check the id, do it, say what was done. */
+function onOneUser<Done extends string>(
+	done: Done,
+	act: (db: App.Locals['db'], input: { userId: string; actorId: string }) => Promise<unknown>
+) {
+	return async ({ request, locals }: RequestEvent) => {
+		const admin = requireRole('admin');
+		const parsed = parseForm(oneUser, await request.formData());
+		if (!parsed.ok) return fail(400, { userId: '', values: {}, errors: parsed.errors });
+		await act(locals.db, { userId: parsed.data.userId, actorId: admin.id });
+		return { userId: parsed.data.userId, done };
+	};
+}
+
 export const actions: Actions = {
 	suspend: async ({ request, locals }) => {
 		const admin = requireRole('admin');
@@ -55,18 +69,6 @@ export const actions: Actions = {
 		await accounts.suspend(locals.db, { userId: parsed.data.userId, reason: parsed.data.reason, actorId: admin.id });
 		return { userId, done: 'suspended' as const };
 	},
-	reinstate: async ({ request, locals }) => {
-		const admin = requireRole('admin');
-		const parsed = parseForm(oneUser, await request.formData());
-		if (!parsed.ok) return fail(400, { userId: '', values: {}, errors: parsed.errors });
-		await accounts.reinstate(locals.db, { userId: parsed.data.userId, actorId: admin.id });
-		return { userId: parsed.data.userId, done: 'reinstated' as const };
-	},
-	endSessions: async ({ request, locals }) => {
-		const admin = requireRole('admin');
-		const parsed = parseForm(oneUser, await request.formData());
-		if (!parsed.ok) return fail(400, { userId: '', values: {}, errors: parsed.errors });
-		await accounts.endAllSessions(locals.db, { userId: parsed.data.userId, actorId: admin.id });
-		return { userId: parsed.data.userId, done: 'signed out everywhere' as const };
-	}
+	reinstate: onOneUser('reinstated', accounts.reinstate),
+	endSessions: onOneUser('signed out everywhere', accounts.endAllSessions)
 };
