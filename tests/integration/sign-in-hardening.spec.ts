@@ -212,3 +212,17 @@ describe('after sign-in', () => {
 		expect(page.headers.get('location')).toBe('/commissions');
 	});
 });
+
+describe('the development inbox', () => {
+	it('is for administrators only', async () => {
+		expect((await newClient().get('/dev/inbox')).headers.get('location')).toBe('/sign-in?redirectTo=%2Fdev%2Finbox');
+		const customer = newClient();
+		await signIn(customer, demoCustomer, 'tackline-demo');
+		expect((await customer.get('/dev/inbox')).status).toBe(403);
+		const admin = newClient();
+		await signIn(admin, 'admin@tackline.test', 'tackline-demo');
+		const inbox = await admin.get('/dev/inbox');
+		expect(inbox.status).toBe(200);
+		expect(await inbox.text()).toContain(subjects.signInLink);
+	});
+});
