@@ -32,10 +32,14 @@ const database = await startDatabase({
 	database: 'tackline'
 });
 await migrateAndSeed(database.url, { seed: true });
-const standins = await startStandins({
-	smtp: Number(process.env.TACKLINE_SMTP_PORT ?? 2525),
-	mailApi: Number(process.env.TACKLINE_MAIL_API_PORT ?? 2526)
-});
+const standins = await startStandins(
+	{
+		smtp: Number(process.env.TACKLINE_SMTP_PORT ?? 2525),
+		mailApi: Number(process.env.TACKLINE_MAIL_API_PORT ?? 2526),
+		s3: Number(process.env.TACKLINE_S3_PORT ?? 2527)
+	},
+	{ s3DataDir: join(dataDir, 's3') }
+);
 if (!dev) await buildIfNeeded({ devTools });
 
 const origin = `http://localhost:${port}`;

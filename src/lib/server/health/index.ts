@@ -1,6 +1,7 @@
 import { sql } from 'drizzle-orm';
 import { db } from '../db';
 import * as mail from '../mail';
+import * as storage from '../services/storage';
 
 export type HealthReport = { status: 'ok' | 'degraded'; checks: Record<string, string> };
 
@@ -15,7 +16,7 @@ async function database(): Promise<string> {
 
 /** Each hosted service adds its check here. */
 export async function report(): Promise<HealthReport> {
-	const [databaseCheck, mailCheck] = await Promise.all([database(), mail.check()]);
-	const checks = { database: databaseCheck, mail: mailCheck };
+	const [databaseCheck, mailCheck, storageCheck] = await Promise.all([database(), mail.check(), storage.check()]);
+	const checks = { database: databaseCheck, mail: mailCheck, storage: storageCheck };
 	return { status: Object.values(checks).every((c) => c === 'ok') ? 'ok' : 'degraded', checks };
 }
