@@ -1,7 +1,7 @@
 // Photos stored through the S3 client in the local stand-in that `npm test` starts (S3_* variables).
 import sharp from 'sharp';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { deletePhoto, processUpload, signedUrl, storePhoto } from '../../src/lib/server/photos';
+import { deletePhoto, processUpload, readPhoto, signedUrl, storePhoto } from '../../src/lib/server/photos';
 import { check } from '../../src/lib/server/services/storage';
 
 async function storedPhoto() {
@@ -44,6 +44,16 @@ describe('photo storage', () => {
 		const thumb = await fetchBytes(await signedUrl(keys.thumbKey, 60));
 		expect(Buffer.from(thumb.bytes).equals(Buffer.from(photo.thumbBytes))).toBe(true);
 		expect(await sharp(thumb.bytes).metadata()).toMatchObject({ format: 'webp', width: 480, height: 320 });
+	});
+
+	it('reads a stored photo back as a stream for an authorising route', async () => {
+		const { photo, keys } = await storedPhoto();
+		const read = await readPhoto(keys.key);
+		expect(read?.size).toBe(photo.bytes.byteLength);
+		const bytes = new Uint8Array(await new Response(read?.body).arrayBuffer());
+		expect(Buffer.from(bytes).equals(Buffer.from(photo.bytes))).toBe(true);
+		await deletePhoto(keys);
+		expect(await readPhoto(keys.key)).toBeNull();
 	});
 
 	it('never serves a photo without a valid signature', async () => {

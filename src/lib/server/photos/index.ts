@@ -8,4 +8,4 @@ export {
 	type PhotoRefusalCode,
 	type ProcessedPhoto
 } from './process';
-export { defaultUrlSeconds, deletePhoto, signedUrl, storePhoto, type PhotoKeys } from './store';
+export { defaultUrlSeconds, deletePhoto, readPhoto, signedUrl, storePhoto, type PhotoKeys } from './store';

@@ -57,8 +57,7 @@ const svgStart = /^\uFEFF?\s*(<\?xml[^>]*>\s*)?(<!--[\s\S]*?-->\s*)*(<!DOCTYPE s
 async function checkType(bytes: Uint8Array) {
 	const type = await fileTypeFromBuffer(bytes);
 	if (type && accepted.has(type.mime)) return;
-	if (type?.mime === 'image/heic' || type?.mime === 'image/heif' || type?.ext === 'heic')
-		throw new PhotoRefused('heic');
+	if (type && /^image\/hei[cf]/.test(type.mime)) throw new PhotoRefused('heic');
 	const head = new TextDecoder('utf-8', { fatal: false }).decode(bytes.subarray(0, 4096));
 	if (svgStart.test(head)) throw new PhotoRefused('svg');
 	throw new PhotoRefused('unsupported-type');

@@ -1,5 +1,5 @@
 import { randomBytes } from 'node:crypto';
-import { DeleteObjectCommand, GetObjectCommand, PutObjectCommand } from '@aws-sdk/client-s3';
+import { DeleteObjectCommand, GetObjectCommand, NoSuchKey, PutObjectCommand } from '@aws-sdk/client-s3';
 import { getSignedUrl } from '@aws-sdk/s3-request-presigner';
 import { storage } from '../services/storage';
 import type { ProcessedPhoto } from './process';
@@ -10,6 +10,10 @@ export type PhotoKeys = { key: string; thumbKey: string };
 export const defaultUrlSeconds = 300;
 const maxUrlSeconds = 3600;
 const keyPattern = /^photos\/[0-9a-f]{32}\/(full|thumb)\.webp$/;
+
+function assertPhotoKey(key: string) {
+	if (!keyPattern.test(key)) throw new Error('Not a photo key');
+}
 
 async function put(key: string, body: Uint8Array) {
 	const { client, bucket } = storage();
@@ -43,11 +47,28 @@ export async function storePhoto(photo: Pick<ProcessedPhoto, 'bytes' | 'thumbByt
  * whoever holds it can fetch the image until it expires.
  */
 export async function signedUrl(key: string, seconds = defaultUrlSeconds): Promise<string> {
-	if (!keyPattern.test(key)) throw new Error('Not a photo key');
+	assertPhotoKey(key);
 	if (!Number.isInteger(seconds) || seconds < 1 || seconds > maxUrlSeconds)
 		throw new Error(`A photo URL lives between 1 and ${maxUrlSeconds} seconds`);
 	const { client, bucket } = storage();
 	return getSignedUrl(client, new GetObjectCommand({ Bucket: bucket, Key: key }), { expiresIn: seconds });
+}
+
+/**
+ * The stored WebP as a stream, for a same-origin route that has checked who may see it (pages allow
+ * images only from their own origin); null when it is gone.
+ */
+export async function readPhoto(key: string): Promise<{ body: ReadableStream<Uint8Array>; size: number } | null> {
+	assertPhotoKey(key);
+	const { client, bucket } = storage();
+	try {
+		const object = await client.send(new GetObjectCommand({ Bucket: bucket, Key: key }));
+		if (!object.Body) return null;
+		return { body: object.Body.transformToWebStream(), size: object.ContentLength ?? 0 };
+	} catch (error) {
+		if (error instanceof NoSuchKey) return null;
+		throw error;
+	}
 }
 
 /** Removes a photo and its thumbnail; removing one that is already gone is not an error. */
