@@ -3,8 +3,8 @@ import sharp from 'sharp';
 
 export const maxUploadBytes = 15 * 1024 * 1024;
 export const maxInputPixels = 50_000_000;
-export const longestSide = 2048;
-export const thumbLongestSide = 480;
+const longestSide = 2048;
+const thumbLongestSide = 480;
 
 const accepted = new Set(['image/jpeg', 'image/png', 'image/webp']);
 
