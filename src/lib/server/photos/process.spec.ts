@@ -81,7 +81,8 @@ async function refusal(bytes: Uint8Array): Promise<PhotoRefused> {
 	return error as PhotoRefused;
 }
 
-describe('processUpload refuses what is not a photo it can safely read', () => {
+// Image work is slow on a busy two-core machine; these never wait on anything else.
+describe('processUpload refuses what is not a photo it can safely read', { timeout: 30_000 }, () => {
 	const cases: [string, () => Promise<Uint8Array> | Uint8Array, PhotoRefusalCode][] = [
 		[
 			'an HTML page named .jpg',
@@ -138,7 +139,7 @@ describe('processUpload refuses what is not a photo it can safely read', () => {
 	});
 });
 
-describe('processUpload re-encodes', () => {
+describe('processUpload re-encodes', { timeout: 30_000 }, () => {
 	it('goes by content, not name: a PNG saved as setup.exe is read as a PNG', async () => {
 		const file = new File([await solid(120, 80).png().toBuffer()], 'setup.exe', { type: 'application/x-msdownload' });
 		const photo = await processUpload(new Uint8Array(await file.arrayBuffer()));
@@ -152,7 +153,7 @@ describe('processUpload re-encodes', () => {
 	});
 
 	it('fits the photo in 2048 px and the thumbnail in 480 px, keeping the proportions', async () => {
-		const photo = await processUpload(await noisy(2400, 800).jpeg().toBuffer());
+		const photo = await processUpload(await solid(2400, 800).jpeg().toBuffer());
 		expect(photo).toMatchObject({ width: 2048, height: 683 });
 		const thumb = await sharp(photo.thumbBytes).metadata();
 		expect([thumb.format, thumb.width, thumb.height]).toEqual(['webp', 480, 160]);
