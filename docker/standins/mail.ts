@@ -34,7 +34,7 @@ export async function startMailStandin(options: { smtpPort: number; apiPort: num
 					counter += 1;
 					messages.unshift({
 						id: `${Date.now().toString(36)}-${counter}`,
-						from: mail.from?.text ?? session.envelope.mailFrom?.toString() ?? '',
+						from: mail.from?.text ?? (session.envelope.mailFrom ? session.envelope.mailFrom.address : ''),
 						to: session.envelope.rcptTo.map((r) => r.address),
 						subject: mail.subject ?? '',
 						text: mail.text ?? '',

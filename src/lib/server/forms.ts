@@ -14,7 +14,13 @@ export function parseForm<S extends z.ZodType>(schema: S, formData: FormData): P
 	return { ok: false, errors: { ...flat.fieldErrors, form: flat.formErrors.length ? flat.formErrors : undefined } };
 }
 
+/** A submitted text field's value; '' when it is missing or a file. */
+export function formValue(formData: FormData, field: string) {
+	const value = formData.get(field);
+	return typeof value === 'string' ? value : '';
+}
+
 /** The submitted text fields, minus secrets, to refill a form after a failure. */
 export function keepValues(formData: FormData, fields: string[]) {
-	return Object.fromEntries(fields.map((field) => [field, String(formData.get(field) ?? '')]));
+	return Object.fromEntries(fields.map((field) => [field, formValue(formData, field)]));
 }

@@ -79,13 +79,12 @@ export function skirtShaping(
 	const quarterWaist = (input.waist + input.waistEase) / 4;
 	const suppression = Math.max(quarterHip - quarterWaist, 0);
 	let sideShaping = Math.min(suppression / 2, inch(1));
-	let rest = suppression - sideShaping;
+	const rest = suppression - sideShaping;
 	const dartCount = rest <= 0.5 ? 0 : rest <= maxDartIntake ? 1 : input.maxDartsPerQuarter;
 	let dartIntake = dartCount ? rest / dartCount : 0;
 	if (dartIntake > maxDartIntake) {
 		sideShaping += (dartIntake - maxDartIntake) * dartCount;
 		dartIntake = maxDartIntake;
-		rest = dartIntake * dartCount;
 	}
 	return { quarterHip, quarterWaist, sideShaping, dartCount, dartIntake };
 }

@@ -22,7 +22,7 @@ export const { handle, signIn, signOut } = SvelteKitAuth(() =>
 			accountsTable: account,
 			sessionsTable: session,
 			verificationTokensTable: verificationToken
-		} as never),
+		}),
 		// Credentials sign-in requires JWT sessions; the user row is re-read on every request in hooks.
 		session: { strategy: 'jwt', maxAge: 30 * 24 * 60 * 60 },
 		trustHost: true,

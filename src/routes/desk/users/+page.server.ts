@@ -2,7 +2,7 @@ import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import * as accounts from '$lib/server/accounts';
 import { requireRole } from '$lib/server/auth/guard';
-import { keepValues, parseForm } from '$lib/server/forms';
+import { formValue, keepValues, parseForm } from '$lib/server/forms';
 import type { Actions, PageServerLoad } from './$types';
 
 const filters = z.object({
@@ -43,7 +43,7 @@ export const actions: Actions = {
 		const admin = requireRole('admin');
 		const formData = await request.formData();
 		const parsed = parseForm(suspension, formData);
-		const userId = String(formData.get('userId') ?? '');
+		const userId = formValue(formData, 'userId');
 		if (!parsed.ok) return fail(400, { userId, values: keepValues(formData, ['reason']), errors: parsed.errors });
 		if (parsed.data.userId === admin.id) {
 			return fail(400, {
