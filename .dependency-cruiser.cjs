@@ -2,14 +2,18 @@
 // `$app/*` and `$env/*` are Kit's virtual modules: they stay unresolved and are matched by name.
 const serverArea = '^src/lib/server/(?!db/|services/)[^/]+/';
 
-// Modules still being moved to `db: Executor` arguments on other branches; delete each line as it lands.
+// Known debts, each to be paid and its line deleted; nothing new goes here.
+// Modules that still import the app's database singleton instead of taking `db: Executor`:
 const pendingConversion = [
 	'^src/lib/server/accounts/index\\.ts$',
 	'^src/lib/server/auth/rate-limit\\.ts$',
-	'^src/lib/server/health/index\\.ts$'
+	'^src/lib/server/health/index\\.ts$',
+	'^src/lib/server/mail/mail\\.db\\.spec\\.ts$',
+	// builds rate-limiter-flexible's store on the app's pool: a configured client, due in services/
+	'^src/lib/server/limits/index\\.ts$'
 ];
-// The accounts ↔ auth folder cycle, being broken on another branch; delete when it lands.
-const pendingCycle = '^src/lib/server/(accounts|auth)$';
+// Folders still in an import cycle: accounts ↔ auth, mail ↔ jobs.
+const pendingCycle = '^src/lib/server/(accounts|auth|mail|jobs)$';
 
 /** @type {import('dependency-cruiser').IConfiguration} */
 module.exports = {
@@ -126,6 +130,8 @@ function areaGlue() {
 		'^src/lib/server/auth/guard\\.ts$',
 		// The hook that loads the signed-in user per request.
 		'^src/lib/server/auth/handle\\.ts$',
+		// The public origin for mailed links comes from configuration (ORIGIN / AUTH_URL), never the request.
+		'^src/lib/server/auth/origin\\.ts$',
 		// The development inbox reads where the mail stand-in listens; it is compiled only into dev and test builds.
 		'^src/lib/server/dev/'
 	];

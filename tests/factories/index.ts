@@ -3,8 +3,7 @@
  * any role, workrooms and commissions, each returning what a test needs to act on it.
  */
 import { randomInt } from 'node:crypto';
-import { city, currency, districts } from '../../scripts/demo/city';
-import { hashPassword } from '../../src/lib/server/auth/password';
+import { hash } from '@node-rs/argon2';
 import type { Executor } from '../../src/lib/server/db/client';
 import {
 	commission,
@@ -16,13 +15,17 @@ import {
 	type UserRole
 } from '../../src/lib/server/db/schema';
 
+// Only the db layer is imported, so factories stay usable from any area's specs without import cycles.
+const place = { city: 'Merrowgate', district: 'Old Quay', lat: 46.8512, lng: 3.2089, currency: 'EUR' };
+
 /** A password every factory-made person has unless told otherwise. */
 export const knownPassword = 'harbour lantern quilting 47';
 
-// argon2id is deliberately slow; hash each distinct password once per test file.
+// argon2id (the library's default; sign-in verifies any stored parameters) is deliberately slow:
+// hash each distinct password once per test file.
 const hashes = new Map<string, Promise<string>>();
 function hashOnce(password: string) {
-	if (!hashes.has(password)) hashes.set(password, hashPassword(password));
+	if (!hashes.has(password)) hashes.set(password, hash(password));
 	return hashes.get(password)!;
 }
 
@@ -76,10 +79,10 @@ export async function createWorkroom(
 	const slug = options.profile?.slug ?? unique('workroom');
 	const shopName = options.profile?.shopName ?? `Workroom ${slug}`;
 	await db.insert(tailorProfile).values({
-		city,
-		district: districts.oldQuay.name,
-		lat: districts.oldQuay.lat,
-		lng: districts.oldQuay.lng,
+		city: place.city,
+		district: place.district,
+		lat: place.lat,
+		lng: place.lng,
 		specialties: ['straight-skirt', 'wide-leg-trousers'],
 		...options.profile,
 		userId: tailor.id,
@@ -109,9 +112,9 @@ export async function createCommission(
 			sizeBand: 'waist 72–76 cm, hip 98–102 cm',
 			budgetMinMinor: 6000,
 			budgetMaxMinor: 9000,
-			currency,
-			city,
-			district: districts.oldQuay.name,
+			currency: place.currency,
+			city: place.city,
+			district: place.district,
 			approxLat: 46.85,
 			approxLng: 3.21,
 			measurementSnapshot: posted
