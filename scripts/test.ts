@@ -108,7 +108,10 @@ async function main() {
 		PORT: String(port),
 		// Tests present each client as its own address, so per-address sign-in limits stay apart.
 		ADDRESS_HEADER: 'x-forwarded-for',
-		TACKLINE_BASE_URL: baseUrl
+		TACKLINE_BASE_URL: baseUrl,
+		// Mail gives up after three quick retries, so the dead-letter tests do not wait an hour.
+		MAIL_RETRY_LIMIT: '3',
+		MAIL_RETRY_DELAY_SECONDS: '1'
 	};
 
 	for (const [suite, script] of [

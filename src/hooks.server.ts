@@ -1,11 +1,20 @@
 import { sequence } from '@sveltejs/kit/hooks';
-import type { Handle, HandleServerError } from '@sveltejs/kit';
+import type { Handle, HandleServerError, ServerInit } from '@sveltejs/kit';
 import { gateAreas } from '$lib/server/auth/area-gate';
 import { authEndpoints } from '$lib/server/auth/endpoints';
 import { loadUser } from '$lib/server/auth/handle';
 import { db } from '$lib/server/db';
 import { securityHeaders } from '$lib/server/http/security-headers';
 import { limitPublicApi } from '$lib/server/limits/handle';
+import { startJobs, stopJobs } from '$lib/server/jobs/runner';
+import * as mail from '$lib/server/mail';
+
+/** Background jobs (mail and later ones) run in the app process; adapter-node's shutdown lets them finish. */
+export const init: ServerInit = async () => {
+	process.once('sveltekit:shutdown', () => void stopJobs());
+	await startJobs();
+	void mail.relayStatus(); // warm the health check's cache
+};
 
 /** Routes hand this to domain functions; tests and scripts pass their own handle. */
 const provideDb: Handle = ({ event, resolve }) => {
