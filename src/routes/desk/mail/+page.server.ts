@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { requireRole } from '$lib/server/auth/guard';
 import { parseForm } from '$lib/server/forms';
 import * as mail from '$lib/server/mail';
-import type { Actions, PageServerLoad } from './$types';
+import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 export const load: PageServerLoad = async ({ locals }) => {
 	requireRole('admin');
@@ -11,24 +11,23 @@ export const load: PageServerLoad = async ({ locals }) => {
 };
 
 const chosen = z.object({ id: z.uuid() });
-const notChosen = { errors: { form: ['Choose a mail from the list.'] } };
-const goneMessage = 'That mail was already sent again or discarded.';
+
+/** Both buttons name one dead letter; a second click on a handled one is told so. */
+function onDeadLetter(act: typeof mail.resendDeadLetter, done: string) {
+	return async ({ request, locals }: RequestEvent) => {
+		const admin = requireRole('admin');
+		const parsed = parseForm(chosen, await request.formData());
+		if (!parsed.ok) return fail(400, { errors: { form: ['Choose a mail from the list.'] } });
+		const handled = await act(locals.db, { id: parsed.data.id, actorId: admin.id });
+		if (!handled) return fail(404, { errors: { form: ['That mail was already sent again or discarded.'] } });
+		return { done };
+	};
+}
 
 export const actions: Actions = {
-	resend: async ({ request, locals }) => {
-		const admin = requireRole('admin');
-		const parsed = parseForm(chosen, await request.formData());
-		if (!parsed.ok) return fail(400, notChosen);
-		const done = await mail.resendDeadLetter(locals.db, { id: parsed.data.id, actorId: admin.id });
-		if (!done) return fail(404, { errors: { form: [goneMessage] } });
-		return { done: 'Queued to send again. It leaves the list now and is retried if the relay is still away.' };
-	},
-	discard: async ({ request, locals }) => {
-		const admin = requireRole('admin');
-		const parsed = parseForm(chosen, await request.formData());
-		if (!parsed.ok) return fail(400, notChosen);
-		const done = await mail.discardDeadLetter(locals.db, { id: parsed.data.id, actorId: admin.id });
-		if (!done) return fail(404, { errors: { form: [goneMessage] } });
-		return { done: 'Discarded. It will not be sent.' };
-	}
+	resend: onDeadLetter(
+		mail.resendDeadLetter,
+		'Queued to send again. It leaves the list now and is retried if the relay is still away.'
+	),
+	discard: onDeadLetter(mail.discardDeadLetter, 'Discarded. It will not be sent.')
 };
