@@ -3,7 +3,7 @@ import * as accounts from '$lib/server/accounts';
 import { signUp } from '$lib/server/accounts/schemas';
 import { homeFor } from '$lib/server/auth/guard';
 import { callAuthSignIn } from '$lib/server/auth/sign-in';
-import { keepValues, parseForm } from '$lib/server/forms';
+import { keepValues, parseForm, readForm } from '$lib/server/forms';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ locals }) => {
@@ -12,7 +12,9 @@ export const load: PageServerLoad = ({ locals }) => {
 
 export const actions: Actions = {
 	default: async (event) => {
-		const formData = await event.request.formData();
+		const form = await readForm(event.request);
+		if (!form.ok) return fail(form.status, { values: form.values, errors: form.errors });
+		const formData = form.data;
 		const values = keepValues(formData, ['name', 'email', 'role']);
 		const parsed = parseForm(signUp, formData);
 		if (!parsed.ok) return fail(400, { values, errors: parsed.errors });
