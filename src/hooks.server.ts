@@ -16,6 +16,16 @@ const provideDb: Handle = ({ event, resolve }) => {
 
 export const handle = sequence(httpHandles, provideDb, authjs, loadUser, gateAreas);
 
+const clientErrors: Record<number, App.Error> = {
+	404: { message: 'There is nothing at this address.', code: 'not_found' },
+	405: { message: 'This address does not answer that method.', code: 'method_not_allowed' },
+	413: { message: 'The request is larger than this address accepts.', code: 'too_large' },
+	415: {
+		message: 'This address takes web forms (URL-encoded or multipart); the request was sent another way.',
+		code: 'unsupported_media_type'
+	}
+};
+
 export const handleError: HandleServerError = ({ error, event, status, message }) => {
 	const where = redact(`${event.request.method} ${event.url.pathname}`);
 	if (isDatabaseUnavailable(error)) {
@@ -27,12 +37,6 @@ export const handleError: HandleServerError = ({ error, event, status, message }
 		console.error(`${where}\n${describeForLog(error)}`);
 		return { message: 'Something went wrong on our side. Please try again.', code: 'internal' };
 	}
-	// 4xx raised by SvelteKit itself (an unknown action, a body it refuses): the message says what was wrong.
-	const codes: Record<number, string> = {
-		404: 'not_found',
-		405: 'method_not_allowed',
-		413: 'too_large',
-		415: 'unsupported_media_type'
-	};
-	return { message, code: codes[status] ?? 'bad_request' };
+	// 4xx raised by SvelteKit itself: an unknown address or action, a body it will not read.
+	return clientErrors[status] ?? { message, code: 'bad_request' };
 };

@@ -26,7 +26,10 @@ function openPool(): Promise<Pool> {
 async function startPool(): Promise<Pool> {
 	// A dynamic import keeps the worker module in a chunk of its own in the server build, and its
 	// import.meta.url says where that chunk is. Under Vite (dev, tests) it is the .ts source, run through tsx.
-	const { workerUrl } = await import('./worker');
+	const worker = await import('./worker');
+	// Referencing the default export here also keeps the bundler from shaking it out of the chunk.
+	if (typeof worker.default !== 'function') throw new Error('The compute worker module exports no task function');
+	const workerUrl = worker.workerUrl;
 	pool ??= new Piscina({
 		filename: workerUrl,
 		execArgv: workerUrl.endsWith('.ts') ? ['--import', 'tsx'] : [],
