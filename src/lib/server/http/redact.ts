@@ -1,6 +1,6 @@
 /** Error text for the server log, with what must never be logged taken out. */
 
-const passwordHash = /\$(argon2(?:id|i|d)|2[abxy]?|scrypt|pbkdf2[\w-]*)\$[^\s,'")\]}]+/gi;
+const passwordHash = /\$(argon2(?:id|i|d)|2[abxy]?|scrypt|pbkdf2[\w-]*)\$[\w+/=.,$-]+/gi;
 const emailAddress = /[\w.!#$%&'*+/=?^`{|}~-]+@[\w-]+(?:\.[\w-]+)+/g;
 // Drizzle puts a failed query's parameters in the message: names, addresses, hashes, anything.
 const queryParams = /(params:)[^\n]*/gi;
