@@ -48,12 +48,32 @@ const crossSiteBody = JSON.stringify({
 
 let closing = false;
 
+/** What a refused body may still send before its connection is cut. */
+const discardLimit = 1024 * 1024;
+
+/**
+ * adapter-node starts reading every body and pauses when nothing consumes it, so a response sent without
+ * reading the body (a 405, a 415, an early 413) would leave the connection stuck mid-body: throw the rest away.
+ * @param {http.IncomingMessage} req
+ */
+function discardUnreadBody(req) {
+	if (req.complete || req.destroyed) return;
+	req.removeAllListeners('data');
+	let left = discardLimit;
+	req.on('data', (/** @type {Buffer} */ chunk) => {
+		left -= chunk.length;
+		if (left < 0) req.destroy();
+	});
+	req.resume();
+}
+
 const server = http.createServer((req, res) => {
 	const origin = originOf(req);
 	for (const [name, value] of Object.entries(protectiveHeaders({ https: origin.startsWith('https:') }))) {
 		res.setHeader(name, value);
 	}
 	if (closing) res.setHeader('connection', 'close');
+	res.on('finish', () => discardUnreadBody(req));
 	if (isCrossSiteApiForm(req, origin)) {
 		res.writeHead(403, { 'content-type': 'application/json' }).end(crossSiteBody);
 		return;

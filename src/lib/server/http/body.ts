@@ -33,10 +33,22 @@ export function mediaType(request: Request) {
 const isPayloadTooLarge = (error: unknown) =>
 	typeof error === 'object' && error !== null && (error as { status?: unknown }).status === 413;
 
+/**
+ * Reads the rest of a refused body and throws it away (in the background). Left unread, adapter-node keeps
+ * the connection paused mid-body and the client's next request on it hangs; BODY_SIZE_LIMIT bounds the work.
+ */
+function discard(reader: ReadableStreamDefaultReader<Uint8Array>) {
+	const next = (): Promise<void> => reader.read().then(({ done }) => (done ? undefined : next()));
+	void next().catch(() => {});
+}
+
 /** The whole body, refusing (413) as soon as it passes `limit` bytes, declared or streamed. */
 export async function readLimited(request: Request, limit: number): Promise<Uint8Array<ArrayBuffer>> {
 	const declared = Number(request.headers.get('content-length'));
-	if (Number.isFinite(declared) && declared > limit) throw tooLarge(limit);
+	if (Number.isFinite(declared) && declared > limit) {
+		if (request.body) discard(request.body.getReader());
+		throw tooLarge(limit);
+	}
 	if (!request.body) return new Uint8Array(0);
 	const reader = request.body.getReader();
 	const chunks: Uint8Array[] = [];
@@ -47,7 +59,7 @@ export async function readLimited(request: Request, limit: number): Promise<Uint
 			if (done) break;
 			size += value.byteLength;
 			if (size > limit) {
-				await reader.cancel().catch(() => {});
+				discard(reader);
 				throw tooLarge(limit);
 			}
 			chunks.push(value);
