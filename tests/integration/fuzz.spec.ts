@@ -178,7 +178,8 @@ async function send(
 function check(target: Target, result: Awaited<ReturnType<typeof send>>) {
 	const label = `${target.method} ${target.path} → ${result.status}`;
 	expect(result.status, label).toBeLessThan(500);
-	if (target.path.startsWith('/api/') && result.status >= 400) {
+	// 431: Node's HTTP parser refuses an oversized query before any of our code runs.
+	if (target.path.startsWith('/api/') && result.status >= 400 && result.status !== 431) {
 		expect(result.contentType, label).toContain('application/json');
 		expect(JSON.parse(result.text).error.code, label).toBeTypeOf('string');
 	}

@@ -1,4 +1,5 @@
-import { isRedirect, redirect } from '@sveltejs/kit';
+import { fail, isRedirect, redirect } from '@sveltejs/kit';
+import { readForm } from '$lib/server/forms';
 import { signOut } from '$lib/server/auth';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -7,6 +8,9 @@ export const load: PageServerLoad = () => redirect(303, '/');
 
 export const actions: Actions = {
 	default: async (event) => {
+		// Auth.js reads the body as a form itself; refuse anything else here rather than let it throw.
+		const form = await readForm(event.request.clone());
+		if (!form.ok) return fail(form.status, { errors: form.errors });
 		try {
 			await signOut(event);
 		} catch (error) {

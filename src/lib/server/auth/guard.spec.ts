@@ -25,3 +25,12 @@ describe('safeRedirectTarget', () => {
 		}
 	});
 });
+
+describe('safeRedirectTarget after the URL parser', () => {
+	it('refuses targets the parser turns into another host, and encodes what a header cannot carry', () => {
+		expect(safeRedirectTarget('/\t/evil.example', '/home')).toBe('/home');
+		expect(safeRedirectTarget('/\r\n/evil.example', '/home')).toBe('/home');
+		expect(safeRedirectTarget('/\r\nevil', '/home')).toBe('/evil');
+		expect(safeRedirectTarget('/\u3000evil', '/home')).toBe('/%E3%80%80evil');
+	});
+});

@@ -31,8 +31,17 @@ export function homeFor(role: UserRole) {
 	return { customer: '/commissions', tailor: '/workroom', admin: '/desk' }[role];
 }
 
-/** Only same-site paths are followed after sign-in. */
+/** Only same-site paths are followed after sign-in, as the URL parser reads them (tabs, newlines, backslashes). */
 export function safeRedirectTarget(target: string | null | undefined, fallback: string) {
 	if (!target || !target.startsWith('/') || target.startsWith('//') || target.startsWith('/\\')) return fallback;
-	return target;
+	const base = 'http://same.invalid';
+	let parsed: URL;
+	try {
+		parsed = new URL(target, base);
+	} catch {
+		return fallback;
+	}
+	if (parsed.origin !== base) return fallback;
+	// The parser percent-encodes what a Location header cannot carry (an ideographic space, say).
+	return parsed.pathname + parsed.search + parsed.hash;
 }
