@@ -39,3 +39,10 @@ describe('toApiError', () => {
 		expect(await toApiError(ok)).toBe(ok);
 	});
 });
+
+describe("an endpoint's own JSON", () => {
+	it('is left alone, like the health report answered with 503', async () => {
+		const report = Response.json({ status: 'down', checks: { database: 'down' } }, { status: 503 });
+		expect(await toApiError(report)).toBe(report);
+	});
+});

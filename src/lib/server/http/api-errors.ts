@@ -34,8 +34,9 @@ export async function toApiError(response: Response): Promise<Response> {
 			.clone()
 			.json()
 			.catch(() => null);
-		if (body?.error?.code) return response;
-		if (typeof body?.message === 'string' && response.status < 500) message = body.message;
+		// Already our shape, or an endpoint's own report (the health check's 503): leave it as it is.
+		if (body && (body.error?.code || typeof body.message !== 'string')) return response;
+		if (body && response.status < 500) message = body.message;
 		if (typeof body?.code === 'string') code = body.code;
 	}
 	if (response.status === 405) {
