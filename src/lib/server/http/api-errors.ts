@@ -1,4 +1,5 @@
-import type { Handle } from '@sveltejs/kit';
+import { isHttpError, isRedirect, type Handle } from '@sveltejs/kit';
+import { describeForLog } from './redact';
 import { apiError } from './respond';
 
 export const isApiPath = (pathname: string) => pathname === '/api' || pathname.startsWith('/api/');
@@ -60,5 +61,15 @@ export const apiErrorShape: Handle = async ({ event, resolve }) => {
 	} catch {
 		// immutable headers: the HTML error page is replaced by the default message instead
 	}
-	return toApiError(await resolve(event));
+	let response: Response;
+	try {
+		response = await resolve(event);
+	} catch (error) {
+		// Thrown by a later handle, so SvelteKit would answer outside this shape.
+		if (isRedirect(error)) throw error;
+		if (isHttpError(error)) return toApiError(Response.json(error.body, { status: error.status }));
+		console.error(`${event.request.method} ${event.url.pathname}\n${describeForLog(error)}`);
+		return apiError(500, 'internal', fallbackFor(500).message);
+	}
+	return toApiError(response);
 };
