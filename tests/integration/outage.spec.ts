@@ -1,24 +1,13 @@
 /** A second server whose database is unreachable: signed-in pages answer a calm 503, never a 500. */
 import { spawn, type ChildProcess } from 'node:child_process';
-import { createServer } from 'node:net';
 import { join } from 'node:path';
 import { afterAll, beforeAll, expect, it } from 'vitest';
+import { freePort } from '../../scripts/lib/local';
 import { newClient, signIn } from './http';
 
 const root = join(import.meta.dirname, '../..');
 let server: ChildProcess;
 let url = '';
-
-function freePort(): Promise<number> {
-	return new Promise((resolve, reject) => {
-		const probe = createServer();
-		probe.once('error', reject);
-		probe.listen(0, '127.0.0.1', () => {
-			const address = probe.address();
-			probe.close(() => resolve(typeof address === 'object' && address ? address.port : 0));
-		});
-	});
-}
 
 beforeAll(async () => {
 	const [port, closedPort] = [await freePort(), await freePort()];
