@@ -8,11 +8,19 @@ export const load: PageServerLoad = () => redirect(303, '/');
 
 export const actions: Actions = {
 	default: async (event) => {
-		// Auth.js reads the body as a form itself; refuse anything else here rather than let it throw.
-		const form = await readForm(event.request.clone());
+		const form = await readForm(event.request);
 		if (!form.ok) return fail(form.status, { errors: form.errors });
+		// Auth.js takes its options from the submitted fields; hand it a fixed body instead of whatever was sent.
+		const headers = new Headers(event.request.headers);
+		headers.delete('content-length');
+		headers.set('content-type', 'application/x-www-form-urlencoded');
+		const request = new Request(event.request.url, {
+			method: 'POST',
+			headers,
+			body: new URLSearchParams({ redirectTo: '/' })
+		});
 		try {
-			await signOut(event);
+			await signOut({ ...event, request });
 		} catch (error) {
 			// Auth.js answers with a redirect of its own; where to go is ours to decide.
 			if (!isRedirect(error)) throw error;
