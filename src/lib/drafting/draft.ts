@@ -1,4 +1,4 @@
-import { checkMeasurements, type Finding } from './checks';
+import { checkMeasurements, isChildBody, type Finding } from './checks';
 import { defaultFabricSpec, estimateFabric, type FabricSpec } from './fabric';
 import { boundingBox } from './geometry';
 import type { GarmentId, MeasurementCode, Measurements } from './measurements';
@@ -62,10 +62,9 @@ export interface DraftInputMm {
 	bodyMm: Measurements;
 	optionsMm?: GivenOptions;
 	fabric?: Partial<FabricSpec>;
+	/** The person has confirmed the numbers are in `unit`, answering a suspected unit mix-up. */
+	unitConfirmed?: boolean;
 }
-
-/** Below the adult p1 of NHANES 2017–2020 (143.9 cm): likely a child (EN 14682 covers children up to 14). */
-const childStatureMm = 1400;
 
 export const childCaution: Caution = {
 	code: 'child_garment',
@@ -82,7 +81,7 @@ const line = (id: string, label: string, mm: number, unit: Unit): LineOut => ({
 
 function cautionsFor(body: Measurements, templateCautions: Caution[]): Caution[] {
 	const cautions = [...templateCautions];
-	if (body.stature !== undefined && body.stature < childStatureMm) cautions.push(childCaution);
+	if (isChildBody(body)) cautions.push(childCaution);
 	return cautions;
 }
 
@@ -103,7 +102,9 @@ function pieceOut(piece: DraftPiece, unit: Unit): PieceOut {
 export function draftGarmentMm(input: DraftInputMm): DraftResponse {
 	const template = getTemplate(input.garment);
 	const { unit, bodyMm } = input;
-	const checks = checkMeasurements(bodyMm, unit, template.requiredMeasurements);
+	const checks = checkMeasurements(bodyMm, unit, template.requiredMeasurements, {
+		unitConfirmed: input.unitConfirmed
+	});
 	const resolved = resolveOptions(template, input.optionsMm ?? {}, bodyMm, unit);
 	const errors = [...checks.errors, ...resolved.errors];
 	const base = {
@@ -144,6 +145,9 @@ export function draftGarmentMm(input: DraftInputMm): DraftResponse {
 }
 
 /** POST /api/v1/drafts: measurements, length options and fabric in the request's unit. */
+/** Errors that mean the numbers themselves cannot be drafted (an API client answers 422 for them). */
+export const implausibleCodes: ReadonlySet<Finding['code']> = new Set(['likely_typo', 'unit_mixup']);
+
 export function draftGarment(request: DraftRequest): DraftResponse {
 	const parsed = draftRequestSchema.parse(request);
 	const { unit } = parsed;
@@ -165,5 +169,12 @@ export function draftGarment(request: DraftRequest): DraftResponse {
 		shrinkagePercent: parsed.fabric.shrinkage,
 		repeatMm: toMm(parsed.fabric.repeat, unit)
 	};
-	return draftGarmentMm({ garment: parsed.garment, unit, bodyMm, optionsMm, fabric });
+	return draftGarmentMm({
+		garment: parsed.garment,
+		unit,
+		bodyMm,
+		optionsMm,
+		fabric,
+		unitConfirmed: parsed.unitConfirmed
+	});
 }

@@ -27,7 +27,9 @@ export const draftRequestSchema = z
 		unit,
 		measurements: measurementsSchema,
 		options: z.record(z.string(), z.union([z.number().finite(), z.string(), z.boolean()])).default({}),
-		fabric: fabricSchema.optional()
+		fabric: fabricSchema.optional(),
+		/** True once the person has confirmed the numbers are in `unit` (answers a suspected unit mix-up). */
+		unitConfirmed: z.boolean().default(false)
 	})
 	.strict()
 	.superRefine((request, ctx) => {

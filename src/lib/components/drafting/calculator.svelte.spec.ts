@@ -32,10 +32,31 @@ describe('DraftCalculator', () => {
 		expect(calc.result.pieces).toEqual([]);
 	});
 
-	it('attaches warnings to the field they are about', () => {
+	it('attaches findings to the field they are about', () => {
 		const calc = new DraftCalculator('a-line-skirt', 'cm');
 		calc.measurementTexts = { waist_girth: '72', hip_girth: '38', waist_to_hip: '20' };
-		expect(calc.findingsFor('hip_girth').warnings[0].code).toBe('unit_mixup');
+		expect(calc.findingsFor('hip_girth').errors[0].code).toBe('unit_mixup');
+	});
+
+	it('stops a cm form typed in inches and drafts it after one click on “read as inches”', () => {
+		// The EN 13402-3 body 88-72-96 cm in inches: waist 28 ¼, hip 37 ¾, waist to hip 8 ⅛.
+		const calc = new DraftCalculator('straight-skirt', 'cm');
+		calc.measurementTexts = { waist_girth: '28 1/4', hip_girth: '37 3/4', waist_to_hip: '8 1/8' };
+		expect(calc.result.pieces).toEqual([]);
+		expect(calc.suggestedUnit).toBe('in');
+		calc.readAs('in');
+		expect(calc.measurementTexts.hip_girth).toBe('37 3/4');
+		expect(calc.result.errors).toEqual([]);
+		expect(calc.result.pieces.length).toBeGreaterThan(0);
+	});
+
+	it('drafts the numbers as typed once the person confirms the unit', () => {
+		const calc = new DraftCalculator('straight-skirt', 'cm');
+		calc.measurementTexts = { waist_girth: '28', hip_girth: '38', waist_to_hip: '20' };
+		expect(calc.unitQuestion).toBe(true);
+		calc.confirmUnit();
+		expect(calc.unitQuestion).toBe(false);
+		expect(calc.result.pieces.length).toBeGreaterThan(0);
 	});
 
 	it('keeps the fabric width preset when switching units (45 in ↔ 115 cm)', () => {

@@ -75,6 +75,8 @@ export class DraftCalculator {
 	directional = $state(false);
 	shrinkage = $state('0');
 	repeatText = $state('');
+	/** The person has said the numbers are right in this unit (answers a suspected unit mix-up). */
+	unitConfirmed = $state(false);
 
 	template = $derived(getTemplate(this.garment));
 	fields = $derived<MeasurementCode[]>([...this.template.requiredMeasurements, ...this.template.optionalMeasurements]);
@@ -101,9 +103,17 @@ export class DraftCalculator {
 				directional: this.directional,
 				shrinkagePercent: Number.isFinite(shrinkage) ? Math.min(Math.max(shrinkage, 0), 20) : 0,
 				repeatMm: this.repeat.mm.repeat ?? 0
-			}
+			},
+			unitConfirmed: this.unitConfirmed
 		});
 	});
+
+	/** The unit the typed numbers look like, when the draft is stopped by a suspected unit mix-up. */
+	suggestedUnit = $derived(
+		this.unitConfirmed ? undefined : this.result.errors.find((e) => e.code === 'unit_mixup')?.suggestedUnit
+	);
+	/** A suspected mix-up the person has not answered yet. */
+	unitQuestion = $derived(!this.unitConfirmed && this.result.errors.some((e) => e.code === 'unit_mixup'));
 
 	/** How many required measurements are still empty or unreadable. */
 	missingCount = $derived(
@@ -131,6 +141,16 @@ export class DraftCalculator {
 		this.unit = next;
 	}
 
+	/** Keep the numbers as typed and read them in another unit: the one-click answer to a unit mix-up. */
+	readAs(next: Unit) {
+		this.unit = next;
+		this.unitConfirmed = false;
+	}
+
+	confirmUnit() {
+		this.unitConfirmed = true;
+	}
+
 	chooseGarment(next: GarmentId) {
 		this.garment = next;
 		this.optionTexts = {};
@@ -143,11 +163,13 @@ export class DraftCalculator {
 		this.measurementTexts = { ...example.measurements };
 		this.optionTexts = { ...(example.options ?? {}) };
 		this.fit = 'regular';
+		this.unitConfirmed = false;
 	}
 
 	clear() {
 		this.measurementTexts = {};
 		this.optionTexts = {};
+		this.unitConfirmed = false;
 	}
 
 	/** Warnings and errors from the draft that name this field. */
