@@ -38,6 +38,12 @@ export interface FabricOut {
 	lengthDisplay: string;
 	efficiency: number;
 	svg: string;
+	/** Length the layout takes on the cloth before shrinkage is added back (request unit). */
+	packedLength: number;
+	shrinkagePercent: number;
+	/** What rounding up to the buying step (⅛ yd or 10 cm) added (request unit). */
+	roundingAdded: number;
+	notes: string[];
 }
 
 export interface DraftResponse {
@@ -131,7 +137,11 @@ export function draftGarmentMm(input: DraftInputMm): DraftResponse {
 		buyUnit: estimate.rounded.buyUnit,
 		lengthDisplay: estimate.rounded.display,
 		efficiency: Math.round(estimate.efficiency * 1000) / 1000,
-		svg: layoutSvg(estimate, draft.pieces, unit)
+		svg: layoutSvg(estimate, draft.pieces, unit),
+		packedLength: toUnitValue(estimate.packedMm, unit),
+		shrinkagePercent: estimate.shrinkagePercent,
+		roundingAdded: toUnitValue(estimate.rounded.mm - estimate.lengthMm, unit),
+		notes: estimate.notes
 	};
 	return {
 		...base,
