@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { garmentIds, measurementCodes } from './measurements';
+import { optionInUnit } from './options';
 import { isCurrencyCode } from './quote';
 import { templates } from './templates/index';
 import { formatLength, toMm, units } from './units';
@@ -35,7 +36,8 @@ export const draftRequestSchema = z
 	.superRefine((request, ctx) => {
 		const template = templates[request.garment];
 		for (const [id, value] of Object.entries(request.options)) {
-			const spec = template.options.find((o) => o.id === id);
+			const found = template.options.find((o) => o.id === id);
+			const spec = found && optionInUnit(found, request.unit);
 			const path = ['options', id];
 			if (!spec) {
 				ctx.addIssue({

@@ -3,7 +3,7 @@ import { DraftCalculator } from './calculator.svelte';
 
 describe('DraftCalculator', () => {
 	it('drafts the trousers worked example in inches (common practice: hip 40 → hip width 11)', () => {
-		const calc = new DraftCalculator('wide-leg-trousers');
+		const calc = new DraftCalculator('wide-leg-trousers', 'in');
 		calc.fillExample();
 		expect(calc.unit).toBe('in');
 		expect(calc.missingCount).toBe(0);
@@ -13,7 +13,7 @@ describe('DraftCalculator', () => {
 	});
 
 	it('switching units rewrites the entries without changing the body', () => {
-		const calc = new DraftCalculator('wide-leg-trousers');
+		const calc = new DraftCalculator('wide-leg-trousers', 'in');
 		calc.fillExample();
 		calc.setUnit('cm');
 		expect(calc.measurementTexts.hip_girth).toBe('101.6');
@@ -62,8 +62,26 @@ describe('DraftCalculator', () => {
 	it('keeps the fabric width preset when switching units (45 in ↔ 115 cm)', () => {
 		const calc = new DraftCalculator('tunic', 'in');
 		calc.fillExample();
+		calc.setUnit('cm');
 		expect(calc.widthPresets[calc.widthIndex]).toBe(115);
 		calc.setUnit('in');
 		expect(calc.widthPresets[calc.widthIndex]).toBe(45);
+	});
+
+	it('fills the worked example in the unit and on the cloth already chosen', () => {
+		const calc = new DraftCalculator('wide-leg-trousers', 'cm');
+		calc.widthIndex = 2;
+		calc.fillExample();
+		expect(calc.unit).toBe('cm');
+		expect(calc.measurementTexts.hip_girth).toBe('101.6');
+		expect(calc.widthPresets[calc.widthIndex]).toBe(140);
+	});
+
+	it('offers round metric allowances in centimetres (metric patterns use 1.5 cm for the ⅝ in seam; common practice)', () => {
+		const calc = new DraftCalculator('straight-skirt', 'cm');
+		calc.fillExample();
+		expect(calc.result.allowances.find((a) => a.id === 'seam')!.display).toBe('1.5 cm');
+		calc.setUnit('in');
+		expect(calc.result.allowances.find((a) => a.id === 'seam')!.display).toBe('5/8 in');
 	});
 });

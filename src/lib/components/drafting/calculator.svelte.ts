@@ -3,6 +3,7 @@ import {
 	fabricWidthPresets,
 	formatForInput,
 	getTemplate,
+	metricDefaultMm,
 	parseLength,
 	toMm,
 	type DraftResponse,
@@ -85,6 +86,17 @@ export class DraftCalculator {
 	repeat = $derived(parseAll({ repeat: this.repeatText }, this.unit));
 	widthPresets = $derived(fabricWidthPresets[this.unit]);
 
+	/** In centimetres, empty length options take round metric defaults (1.5 cm, not 1.6 cm for ⅝ in). */
+	metricDefaults = $derived.by(() => {
+		const defaults: Record<string, number> = {};
+		if (this.unit !== 'cm') return defaults;
+		for (const spec of this.template.options) {
+			const mm = spec.kind === 'length' ? metricDefaultMm(spec) : null;
+			if (mm !== null) defaults[spec.id] = mm;
+		}
+		return defaults;
+	});
+
 	result: DraftResponse = $derived.by(() => {
 		const bodyMm: Measurements = {};
 		for (const code of this.fields) {
@@ -96,7 +108,7 @@ export class DraftCalculator {
 			garment: this.garment,
 			unit: this.unit,
 			bodyMm,
-			optionsMm: { ...this.options.mm, fit: this.fit, ...this.switches },
+			optionsMm: { ...this.metricDefaults, ...this.options.mm, fit: this.fit, ...this.switches },
 			fabric: {
 				widthMm: toMm(this.widthPresets[this.widthIndex], this.unit),
 				folded: this.folded,
@@ -157,11 +169,18 @@ export class DraftCalculator {
 		this.switches = {};
 	}
 
+	/** The worked example in the unit and on the cloth already chosen. */
 	fillExample() {
 		const example = examples[this.garment];
-		this.unit = example.unit;
-		this.measurementTexts = { ...example.measurements };
-		this.optionTexts = { ...(example.options ?? {}) };
+		const inUnit = (texts: Texts = {}) =>
+			Object.fromEntries(
+				Object.entries(texts).map(([key, text]) => {
+					const parsed = parseLength(text, example.unit);
+					return [key, parsed.ok && example.unit !== this.unit ? formatForInput(parsed.mm, this.unit) : text];
+				})
+			);
+		this.measurementTexts = inUnit(example.measurements);
+		this.optionTexts = inUnit(example.options);
 		this.fit = 'regular';
 		this.unitConfirmed = false;
 	}
