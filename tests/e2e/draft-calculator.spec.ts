@@ -69,7 +69,7 @@ test('on a 360 px phone in centimetres: no alert before typing, metric allowance
 	await page.getByText('Allowances and details').click();
 	// Metric patterns give the seam as 1.5 cm (common practice), not 1.6 cm for ⅝ in.
 	await expect(page.getByLabel('Seam allowance')).toHaveAttribute('placeholder', '1.5');
-	await expect(page.getByText(/0\.5–3 cm\./).first()).toBeVisible();
+	await expect(page.getByText(/0\.5–3\.5 cm\./).first()).toBeVisible();
 	await page.getByRole('button', { name: 'Fill in a worked example' }).click();
 	await expect(page.getByRole('radio', { name: 'Centimetres' })).toBeChecked();
 	await expect(page.getByTestId('fabric-explained')).toContainText('the pieces take');
