@@ -121,7 +121,7 @@ async function main() {
 
 	await vitestSuite('unit', 'unit', env);
 
-	await buildIfNeeded({ force: true });
+	await buildIfNeeded({ force: true, devTools: true });
 	const server = startServer(env);
 	cleanups.unshift(() => stopProcess(server));
 	await waitForHealth(baseUrl);

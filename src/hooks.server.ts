@@ -1,12 +1,13 @@
 import { sequence } from '@sveltejs/kit/hooks';
 import type { Handle, HandleServerError } from '@sveltejs/kit';
-import { handle as authjs } from '$lib/server/auth';
 import { gateAreas } from '$lib/server/auth/area-gate';
+import { authEndpoints } from '$lib/server/auth/endpoints';
 import { loadUser } from '$lib/server/auth/handle';
 import { db } from '$lib/server/db';
 import { httpHandles } from '$lib/server/http';
 import { isDatabaseUnavailable, noteDatabaseOutage } from '$lib/server/http/outage';
 import { describeForLog, redact } from '$lib/server/http/redact';
+import { limitPublicApi } from '$lib/server/limits/handle';
 
 /** Routes hand this to domain functions; tests and scripts pass their own handle. */
 const provideDb: Handle = ({ event, resolve }) => {
@@ -14,7 +15,7 @@ const provideDb: Handle = ({ event, resolve }) => {
 	return resolve(event);
 };
 
-export const handle = sequence(httpHandles, provideDb, authjs, loadUser, gateAreas);
+export const handle = sequence(httpHandles, provideDb, limitPublicApi, authEndpoints, loadUser, gateAreas);
 
 const clientErrors: Record<number, App.Error> = {
 	404: { message: 'There is nothing at this address.', code: 'not_found' },

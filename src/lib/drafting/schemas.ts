@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { garmentIds, measurementCodes } from './measurements';
+import { optionInUnit } from './options';
 import { isCurrencyCode } from './quote';
 import { templates } from './templates/index';
 import { formatLength, toMm, units } from './units';
@@ -49,7 +50,9 @@ export const draftRequestSchema = z
 		unit,
 		measurements: measurementsSchema,
 		options: z.record(z.string(), z.union([z.number().finite(), z.string(), z.boolean()])).default({}),
-		fabric: fabricSchema.optional()
+		fabric: fabricSchema.optional(),
+		/** True once the person has confirmed the numbers are in `unit` (answers a suspected unit mix-up). */
+		unitConfirmed: z.boolean().default(false)
 	})
 	.strict()
 	.superRefine((request, ctx) => {
@@ -59,7 +62,8 @@ export const draftRequestSchema = z
 		}
 		const template = templates[request.garment];
 		for (const [id, value] of Object.entries(request.options)) {
-			const spec = template.options.find((o) => o.id === id);
+			const found = template.options.find((o) => o.id === id);
+			const spec = found && optionInUnit(found, request.unit);
 			const path = ['options', id];
 			if (!spec) {
 				ctx.addIssue({

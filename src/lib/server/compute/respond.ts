@@ -3,10 +3,17 @@ import { apiError } from '../http/respond';
 import { Busy, compute, OverBudget } from './index';
 import type { Task, TaskResult } from './tasks';
 
-/** Runs the task off the request thread and answers its JSON, 422 when it ran over budget, 503 when busy. */
-export async function computeResponse<K extends Task['kind']>(task: Extract<Task, { kind: K }>): Promise<Response> {
+/**
+ * Runs the task off the request thread and answers its JSON, 422 when it ran over budget, 503 when busy.
+ * `refuse` may turn a computed result into an error answer instead.
+ */
+export async function computeResponse<K extends Task['kind']>(
+	task: Extract<Task, { kind: K }>,
+	refuse?: (result: TaskResult[K]) => Response | null
+): Promise<Response> {
 	try {
-		return json(await compute<K>(task));
+		const result = await compute<K>(task);
+		return refuse?.(result) ?? json(result);
 	} catch (error) {
 		if (error instanceof OverBudget) {
 			return apiError(

@@ -25,20 +25,6 @@ export async function check(): Promise<'ok' | string> {
 	}
 }
 
-function escapeAttribute(value: string) {
-	return value.replaceAll('&', '&amp;').replaceAll('"', '&quot;').replaceAll('<', '&lt;');
-}
-
-export function signInLinkMail(to: string, url: string): Mail {
-	const host = new URL(url).host;
-	return {
-		to,
-		subject: 'Your Tackline sign-in link',
-		text: `Hello,\n\nUse this link to sign in to Tackline at ${host}:\n\n${url}\n\nThe link works once and expires in 24 hours. If you did not ask for it, you can ignore this email.\n\n— Tackline`,
-		html: `<p>Hello,</p><p>Use this link to sign in to Tackline at ${host}:</p><p><a href="${escapeAttribute(url)}">Sign in to Tackline</a></p><p>The link works once and expires in 24 hours. If you did not ask for it, you can ignore this email.</p><p>— Tackline</p>`
-	};
-}
-
 export function passwordChangedMail(to: string): Mail {
 	return {
 		to,

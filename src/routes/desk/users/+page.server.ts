@@ -1,4 +1,4 @@
-import { fail } from '@sveltejs/kit';
+import { fail, type RequestEvent } from '@sveltejs/kit';
 import { z } from 'zod';
 import * as accounts from '$lib/server/accounts';
 import { requireRole } from '$lib/server/auth/guard';
@@ -20,10 +20,10 @@ const filters = z.object({
 		.catch(undefined)
 });
 
-export const load: PageServerLoad = async ({ url }) => {
+export const load: PageServerLoad = async ({ url, locals }) => {
 	const admin = requireRole('admin');
 	const { q, role, after } = filters.parse(Object.fromEntries(url.searchParams));
-	const { users, next } = await accounts.list({ search: q || undefined, role, after });
+	const { users, next } = await accounts.list(locals.db, { search: q || undefined, role, after });
 	return {
 		adminId: admin.id,
 		filters: { q: q ?? '', role: role ?? '' },
@@ -43,10 +43,26 @@ const suspension = z.object({
 		tooLong: 'Keep it under 500 characters.'
 	})
 });
-const reinstatement = z.object({ userId: z.uuid() });
+const oneUser = z.object({ userId: z.uuid() });
+
+/** An admin's one-button action on one account: check the id, do it, say what was done. */
+function onOneUser<Done extends string>(
+	done: Done,
+	act: (db: App.Locals['db'], input: { userId: string; actorId: string }) => Promise<unknown>
+) {
+	return async ({ request, locals }: RequestEvent) => {
+		const admin = requireRole('admin');
+		const form = await readForm(request);
+		if (!form.ok) return fail(form.status, { userId: '', values: form.values, errors: form.errors });
+		const parsed = parseForm(oneUser, form.data);
+		if (!parsed.ok) return fail(400, { userId: '', values: {}, errors: parsed.errors });
+		await act(locals.db, { userId: parsed.data.userId, actorId: admin.id });
+		return { userId: parsed.data.userId, done };
+	};
+}
 
 export const actions: Actions = {
-	suspend: async ({ request }) => {
+	suspend: async ({ request, locals }) => {
 		const admin = requireRole('admin');
 		const form = await readForm(request);
 		if (!form.ok) return fail(form.status, { userId: '', values: form.values, errors: form.errors });
@@ -61,16 +77,9 @@ export const actions: Actions = {
 				errors: { form: ['You cannot suspend your own account.'] }
 			});
 		}
-		await accounts.suspend({ userId: parsed.data.userId, reason: parsed.data.reason, actorId: admin.id });
+		await accounts.suspend(locals.db, { userId: parsed.data.userId, reason: parsed.data.reason, actorId: admin.id });
 		return { userId, done: 'suspended' as const };
 	},
-	reinstate: async ({ request }) => {
-		const admin = requireRole('admin');
-		const form = await readForm(request);
-		if (!form.ok) return fail(form.status, { userId: '', values: form.values, errors: form.errors });
-		const parsed = parseForm(reinstatement, form.data);
-		if (!parsed.ok) return fail(400, { userId: '', values: {}, errors: parsed.errors });
-		await accounts.reinstate({ userId: parsed.data.userId, actorId: admin.id });
-		return { userId: parsed.data.userId, done: 'reinstated' as const };
-	}
+	reinstate: onOneUser('reinstated', accounts.reinstate),
+	endSessions: onOneUser('signed out everywhere', accounts.endAllSessions)
 };
