@@ -52,7 +52,7 @@ export default ts.config(
 	},
 	{
 		// Configuration files outside the TypeScript project.
-		files: ['*.js', '*.cjs'],
+		files: ['*.js', '*.cjs', 'server/**/*.js', 'scripts/**/*.mjs'],
 		ignores: ['svelte.config.js'],
 		...ts.configs.disableTypeChecked
 	}

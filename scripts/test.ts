@@ -106,7 +106,10 @@ async function main() {
 		AUTH_SECRET: randomBytes(32).toString('base64url'),
 		AUTH_TRUST_HOST: 'true',
 		// Tests present each client as its own address, so per-address sign-in limits stay apart.
-		ADDRESS_HEADER: 'x-forwarded-for'
+		ADDRESS_HEADER: 'x-forwarded-for',
+		// Mail gives up after three quick retries, so the dead-letter tests do not wait an hour.
+		MAIL_RETRY_LIMIT: '3',
+		MAIL_RETRY_DELAY_SECONDS: '1'
 	};
 
 	for (const [suite, script] of [
@@ -121,7 +124,7 @@ async function main() {
 
 	await vitestSuite('unit', 'unit', env);
 
-	await buildIfNeeded({ force: true });
+	await buildIfNeeded({ force: true, devTools: true });
 	await vitestSuite('integration', 'integration', env);
 
 	const browserDatabase = await copyDatabase(database.url, 'browser');

@@ -17,6 +17,8 @@ declare global {
 			/** The database handle routes pass to domain functions (routes never import db/ themselves). */
 			db: Database;
 			user: SessionUser | null;
+			/** The live session of the signed-in user (ended by sign-out, a password change or an admin). */
+			sessionId: string | null;
 			/** The session belongs to a suspended account: treated as signed out. */
 			suspended: boolean;
 			/** Set once the route has called requireUser/requireRole; the area gate checks it. */

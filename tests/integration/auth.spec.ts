@@ -3,52 +3,73 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { auditEvent, user } from '../../src/lib/server/db/schema';
 import { createUser, createWorkroom } from '../factories';
 import { testDb } from './db';
-import { newClient, signIn, signUp, uniqueEmail } from './http';
+import { newClient, openLink, postSignUp, signIn, signUp, uniqueEmail } from './http';
+import { linkIn, subjects, waitForMail } from './inbox';
 
 const { db, pool } = testDb();
 afterAll(() => pool.end());
 
 describe('sign-up', () => {
-	it('creates a customer, signs them in and opens their area', async () => {
+	it('creates a customer who confirms the address through the mailed link and lands in their area', async () => {
 		const client = newClient();
 		const email = uniqueEmail('ada');
-		const response = await signUp(client, { name: 'Ada Quill', email, role: 'customer' });
+		const response = await postSignUp(client, { name: 'Ada Quill', email, role: 'customer' });
 		expect(response.status).toBe(303);
-		expect(response.headers.get('location')).toBe('/commissions?welcome=1');
+		expect(response.headers.get('location')).toBe('/sign-up?sent=1');
+		expect(await (await client.get('/sign-up?sent=1')).text()).toContain('Check your inbox');
 
+		// Until the address is confirmed the password does not sign in, with the usual answer.
+		const early = await signIn(newClient(), email, 'correct horse staple');
+		expect(early.status).toBe(400);
+		expect(await early.text()).toContain('Incorrect email or password');
+
+		const mail = await waitForMail(email, { subject: subjects.confirm });
+		expect(mail.text).toContain('expires in 15 minutes');
+		const opened = await openLink(client, linkIn(mail));
+		expect(opened.headers.get('location')).toMatch(/\/commissions\?welcome=1$/);
 		const area = await client.get('/commissions');
 		expect(area.status).toBe(200);
 		expect(await area.text()).toContain('Ada Quill');
 
-		const [row] = await db.select({ role: user.role, hash: user.passwordHash }).from(user).where(eq(user.email, email));
+		const [row] = await db
+			.select({ role: user.role, hash: user.passwordHash, verified: user.emailVerified })
+			.from(user)
+			.where(eq(user.email, email));
 		expect(row.role).toBe('customer');
 		expect(row.hash).toMatch(/^\$argon2id\$/);
+		expect(row.verified).not.toBeNull();
+		expect((await signIn(newClient(), email, 'correct horse staple')).status).toBe(303);
 	});
 
-	it('refuses a second account with the same email, whatever its case, and keeps what was typed', async () => {
-		const email = uniqueEmail('twice');
-		expect((await signUp(newClient(), { email, role: 'customer' })).status).toBe(303);
-		const again = await signUp(newClient(), { name: 'Second Try', email: email.toUpperCase(), role: 'tailor' });
-		expect(again.status).toBe(400);
-		const page = await again.text();
-		expect(page).toContain('already exists');
-		expect(page).toContain('Second Try');
+	it('answers a taken address exactly as a free one, and tells the owner by mail', async () => {
+		const taken = uniqueEmail('twice');
+		expect((await signUp(newClient(), { email: taken, role: 'customer' })).status).toBe(303);
+		const fields = { name: 'Second Try', role: 'tailor' as const, password: 'another good passphrase' };
+		const again = await postSignUp(newClient(), { ...fields, email: taken.toUpperCase() });
+		const fresh = await postSignUp(newClient(), { ...fields, email: uniqueEmail('fresh') });
+		expect(again.status).toBe(fresh.status);
+		expect(again.headers.get('location')).toBe(fresh.headers.get('location'));
+		expect(again.headers.get('set-cookie')).toBe(fresh.headers.get('set-cookie'));
+		expect(await again.text()).toBe(await fresh.text());
+
+		await waitForMail(taken, { subject: subjects.accountExists });
+		expect(await db.select().from(user).where(eq(user.email, taken))).toHaveLength(1);
+		const [row] = await db.select({ name: user.name, role: user.role }).from(user).where(eq(user.email, taken));
+		expect(row).toEqual({ name: 'Test Person', role: 'customer' });
 	});
 
-	it('rejects a short password with a clear message', async () => {
-		const response = await signUp(newClient(), {
-			name: 'Short Pw',
-			email: uniqueEmail('short'),
-			password: 'abc12345',
-			role: 'customer'
-		});
+	it.each([
+		['abc12345', 'at least 10 characters'],
+		['password123!', 'Choose a harder password']
+	])('rejects the password %s with a clear message', async (password, message) => {
+		const response = await postSignUp(newClient(), { email: uniqueEmail('weak'), password, role: 'customer' });
 		expect(response.status).toBe(400);
-		expect(await response.text()).toContain('at least 10 characters');
+		expect(await response.text()).toContain(message);
 	});
 
 	it('never creates an admin from the sign-up form', async () => {
 		const email = uniqueEmail('sneaky');
-		const response = await signUp(newClient(), { email, role: 'admin' as 'customer' });
+		const response = await postSignUp(newClient(), { email, role: 'admin' as 'customer' });
 		expect(response.status).toBe(400);
 		expect(await db.select().from(user).where(eq(user.email, email))).toHaveLength(0);
 	});
@@ -111,7 +132,7 @@ describe('a suspended account', () => {
 	});
 });
 
-describe('suspension from the resolution desk', () => {
+describe('suspension from the desk', () => {
 	it('lets an admin suspend and reinstate an account, with a reason and an audit trail', async () => {
 		const email = uniqueEmail('rulebreaker');
 		const member = newClient();

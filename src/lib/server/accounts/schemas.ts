@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { MIN_PASSWORD_LENGTH } from '../auth/password';
+import { MIN_PASSWORD_LENGTH } from './password';
+import { passwordWeakness } from './password-policy';
 
 export const email = z
 	.string({ error: 'Enter your email address.' })
@@ -14,16 +15,23 @@ export const newPassword = z
 	.min(MIN_PASSWORD_LENGTH, `Use at least ${MIN_PASSWORD_LENGTH} characters.`)
 	.max(200, 'Use at most 200 characters.');
 
-export const signUp = z.object({
-	name: z
-		.string({ error: 'Tell us your name.' })
-		.trim()
-		.min(1, 'Tell us your name.')
-		.max(80, 'Use at most 80 characters.'),
-	email,
-	password: newPassword,
-	role: z.enum(['customer', 'tailor'], { error: 'Choose whether you want clothes made or make clothes.' })
-});
+const name = z
+	.string({ error: 'Tell us your name.' })
+	.trim()
+	.min(1, 'Tell us your name.')
+	.max(80, 'Use at most 80 characters.');
+
+export const signUp = z
+	.object({
+		name,
+		email,
+		password: newPassword,
+		role: z.enum(['customer', 'tailor'], { error: 'Choose whether you want clothes made or make clothes.' })
+	})
+	.superRefine((value, ctx) => {
+		const weakness = passwordWeakness(value.password, value);
+		if (weakness) ctx.addIssue({ code: 'custom', path: ['password'], message: weakness });
+	});
 
 export const passwordSignIn = z.object({
 	email,
@@ -36,20 +44,27 @@ export const magicLinkRequest = z.object({ email, redirectTo: z.string().optiona
 const timeZones = new Set(Intl.supportedValuesOf('timeZone').concat('UTC'));
 
 export const profileUpdate = z.object({
-	name: signUp.shape.name,
+	name,
 	units: z.enum(['cm', 'in'], { error: 'Choose centimetres or inches.' }),
 	timeZone: z
 		.string({ error: 'Choose your time zone.' })
 		.refine((zone) => timeZones.has(zone), 'Choose a time zone from the list.')
 });
 
-export const passwordChange = z
-	.object({
-		currentPassword: z.string().max(200).optional().default(''),
-		newPassword,
-		confirmPassword: z.string({ error: 'Type the new password again.' })
-	})
-	.refine((v) => v.newPassword === v.confirmPassword, {
-		path: ['confirmPassword'],
-		message: 'The two new passwords do not match.'
-	});
+/** The new password is also checked against the account's own address and name. */
+export function passwordChange(account: { email: string; name: string | null }) {
+	return z
+		.object({
+			currentPassword: z.string().max(200).optional().default(''),
+			newPassword,
+			confirmPassword: z.string({ error: 'Type the new password again.' })
+		})
+		.refine((v) => v.newPassword === v.confirmPassword, {
+			path: ['confirmPassword'],
+			message: 'The two new passwords do not match.'
+		})
+		.superRefine((value, ctx) => {
+			const weakness = passwordWeakness(value.newPassword, { email: account.email, name: account.name ?? undefined });
+			if (weakness) ctx.addIssue({ code: 'custom', path: ['newPassword'], message: weakness });
+		});
+}
