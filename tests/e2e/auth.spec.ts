@@ -15,6 +15,12 @@ async function confirmationLink(email: string) {
 	throw new Error(`no confirmation mail for ${email}`);
 }
 
+async function linkMailsToCustomer() {
+	const response = await fetch(`${process.env.MAIL_INBOX_URL}/messages?to=customer%40tackline.test`);
+	const mails: { subject: string }[] = await response.json();
+	return mails.filter((m) => m.subject === 'Your Tackline sign-in link').length;
+}
+
 // Sign-up, confirmation and sign-in each hash a password: give these flows room on a loaded machine.
 test.describe.configure({ timeout: 120_000 });
 
@@ -70,11 +76,15 @@ test('a customer signs up, signs out and signs back in', async ({ page }) => {
 });
 
 test('an emailed sign-in link, read by the admin in the dev inbox, signs the customer in', async ({ page }) => {
+	const before = await linkMailsToCustomer();
 	await page.goto('/sign-in');
 	const linkForm = page.getByRole('region', { name: 'With a link, no password' });
 	await linkForm.getByLabel('Email address').fill('customer@tackline.test');
 	await linkForm.getByRole('button', { name: /email me/i }).click();
 	await expect(page.getByText('Check your inbox')).toBeVisible();
+
+	// The job queue mails the link a moment later.
+	await expect.poll(linkMailsToCustomer, { timeout: 20_000 }).toBeGreaterThan(before);
 
 	expect((await page.goto('/dev/inbox'))?.url()).toMatch(/\/sign-in\?redirectTo=%2Fdev%2Finbox$/);
 	await signInWithPassword(page, 'admin@tackline.test', 'tackline-demo');

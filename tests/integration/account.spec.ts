@@ -2,16 +2,17 @@ import { eq } from 'drizzle-orm';
 import { afterAll, describe, expect, it } from 'vitest';
 import { user } from '../../src/lib/server/db/schema';
 import { testDb } from './db';
-import { newClient, openLink, signIn, signUp, uniqueEmail } from './http';
+import { createUser } from '../factories';
+import { newClient, openLink, signIn } from './http';
 import { linkIn, subjects, waitForMail } from './inbox';
 
 const { db, pool } = testDb();
 afterAll(() => pool.end());
 
 async function newMember(password = 'first password') {
+	const { email } = await createUser(db, { password });
 	const client = newClient();
-	const email = uniqueEmail('member');
-	await signUp(client, { email, role: 'customer', password });
+	expect((await signIn(client, email, password)).status).toBe(303);
 	return { client, email };
 }
 

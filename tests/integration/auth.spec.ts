@@ -1,6 +1,7 @@
 import { eq } from 'drizzle-orm';
 import { afterAll, describe, expect, it } from 'vitest';
 import { auditEvent, user } from '../../src/lib/server/db/schema';
+import { createUser, createWorkroom } from '../factories';
 import { testDb } from './db';
 import { newClient, openLink, postSignUp, signIn, signUp, uniqueEmail } from './http';
 import { linkIn, subjects, waitForMail } from './inbox';
@@ -106,9 +107,9 @@ describe('password sign-in', () => {
 
 describe('suspension', () => {
 	it('ends a live session at once and refuses sign-in', async () => {
+		const { email } = await createUser(db, { password: 'suspend me please' });
 		const client = newClient();
-		const email = uniqueEmail('suspended');
-		await signUp(client, { email, role: 'customer', password: 'suspend me please' });
+		await signIn(client, email, 'suspend me please');
 		expect((await client.get('/commissions')).status).toBe(200);
 
 		await db.update(user).set({ suspendedAt: new Date(), suspendedReason: 'test' }).where(eq(user.email, email));
@@ -119,6 +120,15 @@ describe('suspension', () => {
 		const again = await signIn(newClient(), email, 'suspend me please');
 		expect(again.status).toBe(403);
 		expect(await again.text()).toContain('This account is suspended');
+	});
+});
+
+describe('a suspended account', () => {
+	it('cannot sign in with the right password', async () => {
+		const person = await createUser(db, { role: 'tailor', suspended: 'Left the city' });
+		const response = await signIn(newClient(), person.email, person.password);
+		expect(response.status).toBe(403);
+		expect(await response.text()).toContain('This account is suspended');
 	});
 });
 
@@ -195,7 +205,8 @@ describe('areas by role', () => {
 describe('sign-out', () => {
 	it('happens only on POST', async () => {
 		const client = newClient();
-		await signUp(client, { email: uniqueEmail('leaver'), role: 'tailor' });
+		const tailor = await createWorkroom(db);
+		await signIn(client, tailor.email, tailor.password);
 		expect((await client.get('/sign-out')).status).toBe(303);
 		expect((await client.get('/workroom')).status).toBe(200);
 		const out = await client.post('/sign-out');

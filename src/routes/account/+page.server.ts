@@ -2,9 +2,9 @@ import { error, fail } from '@sveltejs/kit';
 import * as accounts from '$lib/server/accounts';
 import { passwordChange, profileUpdate } from '$lib/server/accounts/schemas';
 import { requireUser } from '$lib/server/auth/guard';
+import { keepValues, parseForm, readForm } from '$lib/server/forms';
 import * as limits from '$lib/server/limits';
 import { clientAddress } from '$lib/server/limits/handle';
-import { keepValues, parseForm } from '$lib/server/forms';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ locals }) => {
@@ -21,7 +21,9 @@ export const load: PageServerLoad = async ({ locals }) => {
 export const actions: Actions = {
 	profile: async ({ request, locals }) => {
 		const user = requireUser();
-		const formData = await request.formData();
+		const form = await readForm(request);
+		if (!form.ok) return fail(form.status, { action: 'profile' as const, values: form.values, errors: form.errors });
+		const formData = form.data;
 		const values = keepValues(formData, ['name', 'units', 'timeZone']);
 		const parsed = parseForm(profileUpdate, formData);
 		if (!parsed.ok) return fail(400, { action: 'profile' as const, values, errors: parsed.errors });
@@ -32,7 +34,9 @@ export const actions: Actions = {
 	password: async (event) => {
 		const { request, locals } = event;
 		const user = requireUser();
-		const parsed = parseForm(passwordChange(user), await request.formData());
+		const form = await readForm(request);
+		if (!form.ok) return fail(form.status, { action: 'password' as const, errors: form.errors });
+		const parsed = parseForm(passwordChange(user), form.data);
 		if (!parsed.ok) return fail(400, { action: 'password' as const, errors: parsed.errors });
 		const gate = await limits.passwordChange({ userId: user.id, address: clientAddress(event) });
 		if (!gate.allowed) {

@@ -6,7 +6,7 @@ import { magicLinkRequest, passwordSignIn } from '$lib/server/accounts/schemas';
 import { homeFor, safeRedirectTarget } from '$lib/server/auth/guard';
 import * as limits from '$lib/server/limits';
 import { clientAddress } from '$lib/server/limits/handle';
-import { keepValues, parseForm } from '$lib/server/forms';
+import { keepValues, parseForm, readForm } from '$lib/server/forms';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ locals, url }) => {
@@ -18,7 +18,9 @@ const incorrect = 'Incorrect email or password. Just signed up? Open the link we
 
 export const actions: Actions = {
 	password: async (event) => {
-		const formData = await event.request.formData();
+		const form = await readForm(event.request);
+		if (!form.ok) return fail(form.status, { action: 'password' as const, values: form.values, errors: form.errors });
+		const formData = form.data;
 		const values = keepValues(formData, ['email']);
 		const parsed = parseForm(passwordSignIn, formData);
 		if (!parsed.ok) return fail(400, { action: 'password' as const, values, errors: parsed.errors });
@@ -60,7 +62,9 @@ export const actions: Actions = {
 	},
 
 	magicLink: async (event) => {
-		const formData = await event.request.formData();
+		const form = await readForm(event.request);
+		if (!form.ok) return fail(form.status, { action: 'magicLink' as const, values: form.values, errors: form.errors });
+		const formData = form.data;
 		const values = keepValues(formData, ['email']);
 		const parsed = parseForm(magicLinkRequest, formData);
 		if (!parsed.ok) return fail(400, { action: 'magicLink' as const, values, errors: parsed.errors });

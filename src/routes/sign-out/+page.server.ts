@@ -1,5 +1,6 @@
-import { isRedirect, redirect } from '@sveltejs/kit';
+import { fail, isRedirect, redirect } from '@sveltejs/kit';
 import { callAuthSignOut } from '$lib/server/auth/sign-in';
+import { readForm } from '$lib/server/forms';
 import type { Actions, PageServerLoad } from './$types';
 
 // Signing out is a POST only; a GET (a prefetch, a pasted link) just goes home.
@@ -8,6 +9,8 @@ export const load: PageServerLoad = () => redirect(303, '/');
 export const actions: Actions = {
 	/** Ends the session on the server too (Auth.js's signOut event), so a copied cookie stops working. */
 	default: async (event) => {
+		const form = await readForm(event.request);
+		if (!form.ok) return fail(form.status, { errors: form.errors });
 		try {
 			await callAuthSignOut(event);
 		} catch (error) {

@@ -4,9 +4,9 @@ import { signUp } from '$lib/server/accounts/schemas';
 import { homeFor } from '$lib/server/auth/guard';
 import { publicOrigin } from '$lib/server/auth/origin';
 import { callAuthSignIn } from '$lib/server/auth/sign-in';
+import { keepValues, parseForm, readForm } from '$lib/server/forms';
 import * as limits from '$lib/server/limits';
 import { clientAddress } from '$lib/server/limits/handle';
-import { keepValues, parseForm } from '$lib/server/forms';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ locals, url }) => {
@@ -20,7 +20,9 @@ export const actions: Actions = {
 	 * learns from this form who has an account. The new account signs in through its emailed link.
 	 */
 	default: async (event) => {
-		const formData = await event.request.formData();
+		const form = await readForm(event.request);
+		if (!form.ok) return fail(form.status, { values: form.values, errors: form.errors });
+		const formData = form.data;
 		const values = keepValues(formData, ['name', 'email', 'role']);
 		const parsed = parseForm(signUp, formData);
 		if (!parsed.ok) return fail(400, { values, errors: parsed.errors });

@@ -19,7 +19,7 @@ function attempt(
 		locals
 	} as unknown as RequestEvent;
 	let reachedRoute = false;
-	const resolve = async () => {
+	const resolve = () => {
 		reachedRoute = true;
 		if (options.routeGuards) locals.guarded = true;
 		return new Response('page', { status: options.routeGuards ? 403 : 200 });

@@ -41,3 +41,12 @@ describe('safeRedirectTarget', () => {
 		expect(safeRedirectTarget('/%2F%2Fevil.example', '/')).toBe('/%2F%2Fevil.example');
 	});
 });
+
+describe('safeRedirectTarget after the URL parser', () => {
+	it('refuses targets the parser would turn into another host, and anything a header cannot carry', () => {
+		expect(safeRedirectTarget('/\t/evil.example', '/home')).toBe('/home');
+		expect(safeRedirectTarget('/\r\n/evil.example', '/home')).toBe('/home');
+		expect(safeRedirectTarget('/\r\nevil', '/home')).toBe('/home');
+		expect(safeRedirectTarget('/\u3000evil', '/home')).toBe('/home');
+	});
+});

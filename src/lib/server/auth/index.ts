@@ -23,7 +23,7 @@ export const { handle, signIn, signOut } = SvelteKitAuth(() =>
 			accountsTable: account,
 			sessionsTable: session,
 			verificationTokensTable: verificationToken
-		} as never),
+		}),
 		// Credentials sign-in requires JWT sessions; each token names a session row (accounts/sessions.ts),
 		// and hooks re-read the user and that row on every request, so sessions can be ended.
 		session: { strategy: 'jwt', maxAge: SESSION_MAX_AGE_SECONDS },

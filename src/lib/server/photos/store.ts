@@ -64,7 +64,7 @@ export async function readPhoto(key: string): Promise<{ body: ReadableStream<Uin
 	try {
 		const object = await client.send(new GetObjectCommand({ Bucket: bucket, Key: key }));
 		if (!object.Body) return null;
-		return { body: object.Body.transformToWebStream(), size: object.ContentLength ?? 0 };
+		return { body: object.Body.transformToWebStream() as ReadableStream<Uint8Array>, size: object.ContentLength ?? 0 };
 	} catch (error) {
 		if (error instanceof NoSuchKey) return null;
 		throw error;

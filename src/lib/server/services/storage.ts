@@ -42,8 +42,8 @@ async function headBucket(): Promise<string> {
 	}
 }
 
-/** Whether the bucket answers (HeadBucket), remembered for a few seconds so health polls stay cheap. */
-export function check(): Promise<'ok' | string> {
+/** 'ok' when the bucket answers (HeadBucket), else what went wrong; remembered a few seconds so health polls stay cheap. */
+export function check(): Promise<string> {
 	if (!lastCheck || Date.now() - lastCheck.at > checkCacheMs) lastCheck = { at: Date.now(), result: headBucket() };
 	return lastCheck.result;
 }

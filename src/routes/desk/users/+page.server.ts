@@ -2,19 +2,20 @@ import { fail, type RequestEvent } from '@sveltejs/kit';
 import { z } from 'zod';
 import * as accounts from '$lib/server/accounts';
 import { requireRole } from '$lib/server/auth/guard';
-import { keepValues, parseForm } from '$lib/server/forms';
+import { formValue, keepValues, parseForm, readForm, text } from '$lib/server/forms';
 import type { Actions, PageServerLoad } from './$types';
 
 const filters = z.object({
-	q: z.string().trim().max(100).optional().catch(undefined),
+	q: text({ max: 100 }).optional().catch(undefined),
 	role: z.enum(['customer', 'tailor', 'admin']).optional().catch(undefined),
 	after: z
 		.string()
-		.regex(/^\d+_[0-9a-f-]{36}$/)
+		.regex(/^\d{1,15}_[0-9a-f-]{36}$/)
 		.transform((value) => {
 			const [ms, id] = value.split('_');
 			return { createdAt: new Date(Number(ms)), id };
 		})
+		.refine(({ createdAt, id }) => !Number.isNaN(createdAt.getTime()) && z.uuid().safeParse(id).success)
 		.optional()
 		.catch(undefined)
 });
@@ -34,7 +35,13 @@ export const load: PageServerLoad = async ({ url, locals }) => {
 
 const suspension = z.object({
 	userId: z.uuid(),
-	reason: z.string().trim().min(3, 'Say briefly why (at least 3 characters).').max(500, 'Keep it under 500 characters.')
+	reason: text({
+		min: 3,
+		max: 500,
+		multiline: true,
+		tooShort: 'Say briefly why (at least 3 characters).',
+		tooLong: 'Keep it under 500 characters.'
+	})
 });
 const oneUser = z.object({ userId: z.uuid() });
 
@@ -45,7 +52,9 @@ function onOneUser<Done extends string>(
 ) {
 	return async ({ request, locals }: RequestEvent) => {
 		const admin = requireRole('admin');
-		const parsed = parseForm(oneUser, await request.formData());
+		const form = await readForm(request);
+		if (!form.ok) return fail(form.status, { userId: '', values: form.values, errors: form.errors });
+		const parsed = parseForm(oneUser, form.data);
 		if (!parsed.ok) return fail(400, { userId: '', values: {}, errors: parsed.errors });
 		await act(locals.db, { userId: parsed.data.userId, actorId: admin.id });
 		return { userId: parsed.data.userId, done };
@@ -55,9 +64,11 @@ function onOneUser<Done extends string>(
 export const actions: Actions = {
 	suspend: async ({ request, locals }) => {
 		const admin = requireRole('admin');
-		const formData = await request.formData();
+		const form = await readForm(request);
+		if (!form.ok) return fail(form.status, { userId: '', values: form.values, errors: form.errors });
+		const formData = form.data;
 		const parsed = parseForm(suspension, formData);
-		const userId = String(formData.get('userId') ?? '');
+		const userId = formValue(formData, 'userId');
 		if (!parsed.ok) return fail(400, { userId, values: keepValues(formData, ['reason']), errors: parsed.errors });
 		if (parsed.data.userId === admin.id) {
 			return fail(400, {
