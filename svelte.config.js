@@ -1,11 +1,28 @@
 import adapter from '@sveltejs/adapter-node';
 import { vitePreprocess } from '@sveltejs/vite-plugin-svelte';
 
+const nodeAdapter = adapter({ out: 'build' });
+
+/**
+ * adapter-node with our own entry in place of its build/index.js (server/index.js): the protective headers
+ * reach static files too, which adapter-node serves before any hook runs.
+ * @type {import('@sveltejs/kit').Adapter}
+ */
+const nodeAdapterWithOwnEntry = {
+	...nodeAdapter,
+	async adapt(builder) {
+		await nodeAdapter.adapt(builder);
+		builder.rimraf('build/index.js.map');
+		builder.copy('server/index.js', 'build/index.js');
+		builder.copy('src/lib/server/http/protective-headers.js', 'build/protective-headers.js');
+	}
+};
+
 /** @type {import('@sveltejs/kit').Config} */
 const config = {
 	preprocess: vitePreprocess(),
 	kit: {
-		adapter: adapter({ out: 'build' }),
+		adapter: nodeAdapterWithOwnEntry,
 		// Kit adds hashes/nonces for its own inline scripts; nothing is loaded from other origins.
 		csp: {
 			mode: 'auto',

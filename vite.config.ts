@@ -28,6 +28,8 @@ export default defineConfig({
 					name: 'integration',
 					environment: 'node',
 					include: ['tests/integration/**/*.spec.ts', 'src/**/*.db.spec.ts'],
+					// Each file gets its own database copy and server (tests/integration/setup.ts).
+					setupFiles: ['tests/integration/setup.ts'],
 					fileParallelism: false,
 					testTimeout: 30_000,
 					hookTimeout: 60_000

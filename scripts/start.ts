@@ -17,6 +17,10 @@ import {
 } from './lib/local';
 
 const dev = process.argv.includes('--dev');
+// The development inbox is in `npm run dev`, and in `npm start` only when asked for.
+const devTools = dev || process.env.TACKLINE_DEV_TOOLS === '1';
+// Loopback unless told otherwise: a demo instance is not for the whole network.
+const host = process.env.HOST ?? '127.0.0.1';
 const dataDir = join(root, '.data');
 const port = Number(process.env.PORT ?? (dev ? 5173 : 3000));
 
@@ -28,11 +32,15 @@ const database = await startDatabase({
 	database: 'tackline'
 });
 await migrateAndSeed(database.url, { seed: true });
-const standins = await startStandins({
-	smtp: Number(process.env.TACKLINE_SMTP_PORT ?? 2525),
-	mailApi: Number(process.env.TACKLINE_MAIL_API_PORT ?? 2526)
-});
-if (!dev) await buildIfNeeded();
+const standins = await startStandins(
+	{
+		smtp: Number(process.env.TACKLINE_SMTP_PORT ?? 2525),
+		mailApi: Number(process.env.TACKLINE_MAIL_API_PORT ?? 2526),
+		s3: Number(process.env.TACKLINE_S3_PORT ?? 2527)
+	},
+	{ s3DataDir: join(dataDir, 's3') }
+);
+if (!dev) await buildIfNeeded({ devTools });
 
 const origin = `http://localhost:${port}`;
 const server = startServer(
@@ -42,12 +50,15 @@ const server = startServer(
 		AUTH_SECRET: persistentSecret(dataDir, 'auth-secret'),
 		AUTH_TRUST_HOST: 'true',
 		ORIGIN: origin,
-		PORT: String(port)
+		PORT: String(port),
+		HOST: host
 	},
 	dev ? join(root, 'node_modules/.bin/vite') : 'node',
-	dev ? ['dev', '--port', String(port), '--strictPort'] : ['build']
+	dev ? ['dev', '--host', host, '--port', String(port), '--strictPort'] : ['build']
 );
-log(`Tackline is starting at ${origin} — demo sign-ins are listed in README.md; Ctrl-C stops it`);
+log(
+	`Tackline is starting at ${origin} (listening on ${host}) — demo sign-ins are listed in README.md; Ctrl-C stops it`
+);
 
 let stopping = false;
 async function shutdown(code: number) {

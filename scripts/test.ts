@@ -1,6 +1,7 @@
 /**
- * `npm test`: every suite on a throwaway PostgreSQL cluster and throwaway ports — type check, unit
- * tests, integration tests against the built server, and browser tests in Debian's Chromium.
+ * `npm test`: every suite on a throwaway PostgreSQL cluster and throwaway ports — type check, lint,
+ * architecture rules, unit tests, integration tests (each file on its own copy of a seeded template
+ * database, with its own built server) and browser tests in Debian's Chromium.
  * Ends with one line `N passed, N failed` (the totals CI reads) and a non-zero exit on any failure.
  */
 import { execFileSync, spawn } from 'node:child_process';
@@ -9,6 +10,7 @@ import { chmodSync, existsSync, mkdtempSync, readFileSync, rmSync } from 'node:f
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { startStandins } from '../docker/standins';
+import { copyDatabase, dropDatabase } from './lib/databases';
 import {
 	buildIfNeeded,
 	freePort,
@@ -89,31 +91,32 @@ async function main() {
 		port: await freePort(),
 		user: 'tackline',
 		password: randomBytes(16).toString('hex'),
-		database: 'tackline_test',
+		// Never connected to while tests run: each integration file and the browser server get a copy.
+		database: 'tackline_template',
 		throwaway: true
 	});
-	cleanups.push(database.stop);
+	cleanups.push(() => database.stop());
 	await migrateAndSeed(database.url, { seed: true });
 	const standins = await startStandins({ smtp: await freePort(), mailApi: await freePort() });
-	cleanups.push(standins.stop);
+	cleanups.push(() => standins.stop());
 
-	const port = await freePort();
-	const baseUrl = `http://localhost:${port}`;
 	const env: Record<string, string> = {
 		...standins.env,
-		DATABASE_URL: database.url,
+		TACKLINE_TEMPLATE_DATABASE_URL: database.url,
 		AUTH_SECRET: randomBytes(32).toString('base64url'),
 		AUTH_TRUST_HOST: 'true',
-		ORIGIN: baseUrl,
-		PORT: String(port),
 		// Tests present each client as its own address, so per-address sign-in limits stay apart.
 		ADDRESS_HEADER: 'x-forwarded-for',
-		TACKLINE_BASE_URL: baseUrl
+		// Mail gives up after three quick retries, so the dead-letter tests do not wait an hour.
+		MAIL_RETRY_LIMIT: '3',
+		MAIL_RETRY_DELAY_SECONDS: '1'
 	};
 
 	for (const [suite, script] of [
 		['type check', 'check'],
-		['formatting', 'lint']
+		['formatting', 'lint'],
+		['lint', 'lint:eslint'],
+		['architecture', 'check:architecture']
 	]) {
 		const code = await run('npm', ['run', '--silent', script]);
 		tallies.push({ suite, passed: code === 0 ? 1 : 0, failed: code === 0 ? 0 : 1 });
@@ -121,13 +124,24 @@ async function main() {
 
 	await vitestSuite('unit', 'unit', env);
 
-	await buildIfNeeded({ force: true });
-	const server = startServer(env);
+	await buildIfNeeded({ force: true, devTools: true });
+	await vitestSuite('integration', 'integration', env);
+
+	const browserDatabase = await copyDatabase(database.url, 'browser');
+	cleanups.unshift(() => dropDatabase(browserDatabase));
+	const port = await freePort();
+	const baseUrl = `http://localhost:${port}`;
+	const browserEnv = {
+		...env,
+		DATABASE_URL: browserDatabase,
+		ORIGIN: baseUrl,
+		PORT: String(port),
+		TACKLINE_BASE_URL: baseUrl
+	};
+	const server = startServer(browserEnv);
 	cleanups.unshift(() => stopProcess(server));
 	await waitForHealth(baseUrl);
-
-	await vitestSuite('integration', 'integration', env);
-	await playwrightSuite(env);
+	await playwrightSuite(browserEnv);
 }
 
 let crashed = false;

@@ -8,6 +8,8 @@ declare module '@auth/core/types' {
 		signedInWith?: string;
 		/** When, in milliseconds since the epoch. */
 		signedInAt?: number;
+		/** The session row this token belongs to; gone once the session is ended. */
+		sessionId?: string;
 	}
 }
 
@@ -15,5 +17,6 @@ declare module '@auth/core/jwt' {
 	interface JWT {
 		signedInWith?: string;
 		signedInAt?: number;
+		sessionId?: string;
 	}
 }

@@ -13,10 +13,16 @@ declare global {
 			message: string;
 			code?: string;
 		}
+		/** The root layout gives every page the signed-in person (or null). */
+		interface PageData {
+			user: SessionUser | null;
+		}
 		interface Locals {
 			/** The database handle routes pass to domain functions (routes never import db/ themselves). */
 			db: Database;
 			user: SessionUser | null;
+			/** The live session of the signed-in user (ended by sign-out, a password change or an admin). */
+			sessionId: string | null;
 			/** The session belongs to a suspended account: treated as signed out. */
 			suspended: boolean;
 			/** Set once the route has called requireUser/requireRole; the area gate checks it. */

@@ -1,10 +1,22 @@
 import { sequence } from '@sveltejs/kit/hooks';
-import type { Handle, HandleServerError } from '@sveltejs/kit';
-import { handle as authjs } from '$lib/server/auth';
+import type { Handle, HandleServerError, ServerInit } from '@sveltejs/kit';
 import { gateAreas } from '$lib/server/auth/area-gate';
+import { authEndpoints } from '$lib/server/auth/endpoints';
 import { loadUser } from '$lib/server/auth/handle';
 import { db } from '$lib/server/db';
-import { securityHeaders } from '$lib/server/http/security-headers';
+import { httpHandles } from '$lib/server/http';
+import { isDatabaseUnavailable, noteDatabaseOutage } from '$lib/server/http/outage';
+import { describeForLog, redact } from '$lib/server/http/redact';
+import { limitPublicApi } from '$lib/server/limits/handle';
+import { startJobs, stopJobs } from '$lib/server/jobs/runner';
+import * as mail from '$lib/server/mail';
+
+/** Background jobs (mail and later ones) run in the app process; adapter-node's shutdown lets them finish. */
+export const init: ServerInit = async () => {
+	process.once('sveltekit:shutdown', () => void stopJobs());
+	await startJobs();
+	void mail.relayStatus(); // warm the health check's cache
+};
 
 /** Routes hand this to domain functions; tests and scripts pass their own handle. */
 const provideDb: Handle = ({ event, resolve }) => {
@@ -12,9 +24,29 @@ const provideDb: Handle = ({ event, resolve }) => {
 	return resolve(event);
 };
 
-export const handle = sequence(securityHeaders, provideDb, authjs, loadUser, gateAreas);
+export const handle = sequence(httpHandles, provideDb, limitPublicApi, authEndpoints, loadUser, gateAreas);
+
+const clientErrors: Record<number, App.Error> = {
+	404: { message: 'There is nothing at this address.', code: 'not_found' },
+	405: { message: 'This address does not answer that method.', code: 'method_not_allowed' },
+	413: { message: 'The request is larger than this address accepts.', code: 'too_large' },
+	415: {
+		message: 'This address takes web forms (URL-encoded or multipart); the request was sent another way.',
+		code: 'unsupported_media_type'
+	}
+};
 
 export const handleError: HandleServerError = ({ error, event, status, message }) => {
-	if (status >= 500) console.error(`${event.request.method} ${event.url.pathname}`, error);
-	return { message: status >= 500 ? 'Something went wrong on our side. Please try again.' : message, code: 'internal' };
+	const where = redact(`${event.request.method} ${event.url.pathname}`);
+	if (isDatabaseUnavailable(error)) {
+		noteDatabaseOutage(event);
+		console.error(`${where}: database unavailable`);
+		return { message: 'Tackline is briefly unavailable. Please try again in a minute.', code: 'unavailable' };
+	}
+	if (status >= 500) {
+		console.error(`${where}\n${describeForLog(error)}`);
+		return { message: 'Something went wrong on our side. Please try again.', code: 'internal' };
+	}
+	// 4xx raised by SvelteKit itself: an unknown address or action, a body it will not read.
+	return clientErrors[status] ?? { message, code: 'bad_request' };
 };

@@ -180,6 +180,6 @@ export function demoMeasurementProfiles(now: Date): Record<ProfileKey, DemoProfi
 			ownerId: personId(owner),
 			takenAt: daysFrom(now, -takenDaysAgo)
 		}
-	]);
-	return Object.fromEntries(rows);
+	]) satisfies [string, DemoProfileRow][];
+	return Object.fromEntries(rows) as Record<ProfileKey, DemoProfileRow>;
 }

@@ -1,6 +1,6 @@
 /** The demo scenario: tailors, customers and open commissions in Merrowgate, a city of our own invention. */
 import { eq } from 'drizzle-orm';
-import { hashPassword } from '../../src/lib/server/auth/password';
+import { hashPassword } from '../../src/lib/server/accounts/password';
 import type { Database } from '../../src/lib/server/db/client';
 import { commission, measurementProfile, quote, tailorProfile, user } from '../../src/lib/server/db/schema';
 import { demoCommissions } from './commissions';

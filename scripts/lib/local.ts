@@ -76,19 +76,25 @@ function newestMtime(path: string): number {
 
 const buildInputs = ['src', 'static', 'svelte.config.js', 'vite.config.ts', 'tailwind.config.js', 'package-lock.json'];
 
-/** Builds the production server unless `build/` is newer than every input. */
-export async function buildIfNeeded(options: { force?: boolean } = {}) {
+/**
+ * Builds the server unless `build/` is newer than every input and of the same flavour. `devTools`
+ * compiles in the development inbox (tests and local demos); a plain `npm start` build leaves it out.
+ */
+export async function buildIfNeeded(options: { force?: boolean; devTools: boolean }) {
 	const stamp = join(root, 'build', '.tackline-built');
+	const flavour = options.devTools ? 'with development tools' : 'production';
 	const newestInput = Math.max(...buildInputs.map((p) => newestMtime(join(root, p))));
-	if (!options.force && existsSync(stamp) && statSync(stamp).mtimeMs > newestInput) {
+	const upToDate =
+		existsSync(stamp) && statSync(stamp).mtimeMs > newestInput && readFileSync(stamp, 'utf8').startsWith(flavour);
+	if (!options.force && upToDate) {
 		log('Build is up to date');
 		return;
 	}
-	log('Building Tackline…');
+	log(`Building Tackline (${flavour})…`);
 	await runCommand(join(root, 'node_modules/.bin/vite'), ['build', '--logLevel', 'warn'], {
-		TACKLINE_DEV_TOOLS: '1'
+		TACKLINE_DEV_TOOLS: options.devTools ? '1' : '0'
 	});
-	writeFileSync(stamp, new Date().toISOString());
+	writeFileSync(stamp, `${flavour}\n${new Date().toISOString()}\n`);
 }
 
 export function runCommand(command: string, args: string[], env: Record<string, string> = {}) {

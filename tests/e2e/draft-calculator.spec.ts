@@ -34,14 +34,49 @@ test('draft trousers from measurements, switch units and see the drawings', asyn
 	await expect(page.getByTestId('fabric-length')).toHaveText(/ m$/);
 });
 
-test('warns live about a likely unit mix-up without blocking the draft', async ({ page }) => {
+test('stops on a likely unit mix-up and drafts after one click on the offered unit', async ({ page }) => {
+	await page.goto('/draft-calculator?garment=a-line-skirt&unit=cm');
+	// The EN 13402-3 body 88-72-96 cm typed in inches into the centimetre form.
+	await field(page, 'Waist').fill('28 1/4');
+	await field(page, 'Hip').fill('37 3/4');
+	await field(page, 'Waist to hip').fill('8 1/8');
+	const question = page.getByTestId('unit-question');
+	await expect(question).toContainText('These look like inches');
+	await expect(page.getByRole('img', { name: /^Front: Cut 1 on fold/ })).toHaveCount(0);
+	await expect(field(page, 'Hip')).toHaveAccessibleDescription(/looks like inches/);
+	await question.getByRole('button', { name: 'Switch to inches, keep the numbers' }).click();
+	await expect(page.getByRole('radio', { name: 'Inches' })).toBeChecked();
+	await expect(field(page, 'Hip')).toHaveValue('37 3/4');
+	await expect(page.getByRole('img', { name: /^Front: Cut 1 on fold/ })).toBeVisible();
+});
+
+test('drafts the numbers as typed once the person says the unit is right', async ({ page }) => {
 	await page.goto('/draft-calculator?garment=a-line-skirt&unit=cm');
 	await field(page, 'Waist').fill('72');
 	await field(page, 'Hip').fill('38');
 	await field(page, 'Waist to hip').fill('20.6');
-	await expect(page.getByText(/Hip 38 cm looks like inches typed into a centimetre field/).first()).toBeVisible();
+	await page.getByRole('button', { name: 'They are centimetres' }).click();
 	await expect(page.getByRole('img', { name: /^Front: Cut 1 on fold/ })).toBeVisible();
-	await expect(field(page, 'Hip')).toHaveAccessibleDescription(/looks like inches/);
+	await expect(page.getByText(/Hip 38 cm looks like inches typed into a centimetre field/).first()).toBeVisible();
+});
+
+test('on a 360 px phone in centimetres: no alert before typing, metric allowances, cloth numbers explained', async ({
+	page
+}) => {
+	await page.setViewportSize({ width: 360, height: 780 });
+	await page.goto('/draft-calculator?garment=straight-skirt&unit=cm');
+	await expect(page.getByRole('alert')).toHaveCount(0);
+	await page.getByText('Allowances and details').click();
+	// Metric patterns give the seam as 1.5 cm (common practice), not 1.6 cm for ⅝ in.
+	await expect(page.getByLabel('Seam allowance')).toHaveAttribute('placeholder', '1.5');
+	await expect(page.getByText(/0\.5–3\.5 cm\./).first()).toBeVisible();
+	await page.getByRole('button', { name: 'Fill in a worked example' }).click();
+	await expect(page.getByRole('radio', { name: 'Centimetres' })).toBeChecked();
+	await expect(page.getByTestId('fabric-explained')).toContainText('the pieces take');
+	await expect(page.getByTestId('fabric-explained')).toContainText('buying step');
+	await expect(page.getByText(/Waistband: cut 1 .*\(cut single\)/)).toBeVisible();
+	const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+	expect(overflow).toBeLessThanOrEqual(0);
 });
 
 test('shows the neck-cord caution on the tunic', async ({ page }) => {

@@ -1,53 +1,75 @@
 import { eq } from 'drizzle-orm';
 import { afterAll, describe, expect, it } from 'vitest';
 import { auditEvent, user } from '../../src/lib/server/db/schema';
+import { createUser, createWorkroom } from '../factories';
 import { testDb } from './db';
-import { newClient, signIn, signUp, uniqueEmail } from './http';
+import { newClient, openLink, postSignUp, signIn, signUp, uniqueEmail } from './http';
+import { linkIn, subjects, waitForMail } from './inbox';
 
 const { db, pool } = testDb();
 afterAll(() => pool.end());
 
 describe('sign-up', () => {
-	it('creates a customer, signs them in and opens their area', async () => {
+	it('creates a customer who confirms the address through the mailed link and lands in their area', async () => {
 		const client = newClient();
 		const email = uniqueEmail('ada');
-		const response = await signUp(client, { name: 'Ada Quill', email, role: 'customer' });
+		const response = await postSignUp(client, { name: 'Ada Quill', email, role: 'customer' });
 		expect(response.status).toBe(303);
-		expect(response.headers.get('location')).toBe('/commissions?welcome=1');
+		expect(response.headers.get('location')).toBe('/sign-up?sent=1');
+		expect(await (await client.get('/sign-up?sent=1')).text()).toContain('Check your inbox');
 
+		// Until the address is confirmed the password does not sign in, with the usual answer.
+		const early = await signIn(newClient(), email, 'correct horse staple');
+		expect(early.status).toBe(400);
+		expect(await early.text()).toContain('Incorrect email or password');
+
+		const mail = await waitForMail(email, { subject: subjects.confirm });
+		expect(mail.text).toContain('expires in 15 minutes');
+		const opened = await openLink(client, linkIn(mail));
+		expect(opened.headers.get('location')).toMatch(/\/commissions\?welcome=1$/);
 		const area = await client.get('/commissions');
 		expect(area.status).toBe(200);
 		expect(await area.text()).toContain('Ada Quill');
 
-		const [row] = await db.select({ role: user.role, hash: user.passwordHash }).from(user).where(eq(user.email, email));
+		const [row] = await db
+			.select({ role: user.role, hash: user.passwordHash, verified: user.emailVerified })
+			.from(user)
+			.where(eq(user.email, email));
 		expect(row.role).toBe('customer');
 		expect(row.hash).toMatch(/^\$argon2id\$/);
+		expect(row.verified).not.toBeNull();
+		expect((await signIn(newClient(), email, 'correct horse staple')).status).toBe(303);
 	});
 
-	it('refuses a second account with the same email, whatever its case, and keeps what was typed', async () => {
-		const email = uniqueEmail('twice');
-		expect((await signUp(newClient(), { email, role: 'customer' })).status).toBe(303);
-		const again = await signUp(newClient(), { name: 'Second Try', email: email.toUpperCase(), role: 'tailor' });
-		expect(again.status).toBe(400);
-		const page = await again.text();
-		expect(page).toContain('already exists');
-		expect(page).toContain('Second Try');
+	it('answers a taken address exactly as a free one, and tells the owner by mail', async () => {
+		const taken = uniqueEmail('twice');
+		expect((await signUp(newClient(), { email: taken, role: 'customer' })).status).toBe(303);
+		const fields = { name: 'Second Try', role: 'tailor' as const, password: 'another good passphrase' };
+		const again = await postSignUp(newClient(), { ...fields, email: taken.toUpperCase() });
+		const fresh = await postSignUp(newClient(), { ...fields, email: uniqueEmail('fresh') });
+		expect(again.status).toBe(fresh.status);
+		expect(again.headers.get('location')).toBe(fresh.headers.get('location'));
+		expect(again.headers.get('set-cookie')).toBe(fresh.headers.get('set-cookie'));
+		expect(await again.text()).toBe(await fresh.text());
+
+		await waitForMail(taken, { subject: subjects.accountExists });
+		expect(await db.select().from(user).where(eq(user.email, taken))).toHaveLength(1);
+		const [row] = await db.select({ name: user.name, role: user.role }).from(user).where(eq(user.email, taken));
+		expect(row).toEqual({ name: 'Test Person', role: 'customer' });
 	});
 
-	it('rejects a short password with a clear message', async () => {
-		const response = await signUp(newClient(), {
-			name: 'Short Pw',
-			email: uniqueEmail('short'),
-			password: 'abc12345',
-			role: 'customer'
-		});
+	it.each([
+		['abc12345', 'at least 10 characters'],
+		['password123!', 'Choose a harder password']
+	])('rejects the password %s with a clear message', async (password, message) => {
+		const response = await postSignUp(newClient(), { email: uniqueEmail('weak'), password, role: 'customer' });
 		expect(response.status).toBe(400);
-		expect(await response.text()).toContain('at least 10 characters');
+		expect(await response.text()).toContain(message);
 	});
 
 	it('never creates an admin from the sign-up form', async () => {
 		const email = uniqueEmail('sneaky');
-		const response = await signUp(newClient(), { email, role: 'admin' as 'customer' });
+		const response = await postSignUp(newClient(), { email, role: 'admin' as 'customer' });
 		expect(response.status).toBe(400);
 		expect(await db.select().from(user).where(eq(user.email, email))).toHaveLength(0);
 	});
@@ -85,9 +107,9 @@ describe('password sign-in', () => {
 
 describe('suspension', () => {
 	it('ends a live session at once and refuses sign-in', async () => {
+		const { email } = await createUser(db, { password: 'suspend me please' });
 		const client = newClient();
-		const email = uniqueEmail('suspended');
-		await signUp(client, { email, role: 'customer', password: 'suspend me please' });
+		await signIn(client, email, 'suspend me please');
 		expect((await client.get('/commissions')).status).toBe(200);
 
 		await db.update(user).set({ suspendedAt: new Date(), suspendedReason: 'test' }).where(eq(user.email, email));
@@ -98,6 +120,15 @@ describe('suspension', () => {
 		const again = await signIn(newClient(), email, 'suspend me please');
 		expect(again.status).toBe(403);
 		expect(await again.text()).toContain('This account is suspended');
+	});
+});
+
+describe('a suspended account', () => {
+	it('cannot sign in with the right password', async () => {
+		const person = await createUser(db, { role: 'tailor', suspended: 'Left the city' });
+		const response = await signIn(newClient(), person.email, person.password);
+		expect(response.status).toBe(403);
+		expect(await response.text()).toContain('This account is suspended');
 	});
 });
 
@@ -174,7 +205,8 @@ describe('areas by role', () => {
 describe('sign-out', () => {
 	it('happens only on POST', async () => {
 		const client = newClient();
-		await signUp(client, { email: uniqueEmail('leaver'), role: 'tailor' });
+		const tailor = await createWorkroom(db);
+		await signIn(client, tailor.email, tailor.password);
 		expect((await client.get('/sign-out')).status).toBe(303);
 		expect((await client.get('/workroom')).status).toBe(200);
 		const out = await client.post('/sign-out');

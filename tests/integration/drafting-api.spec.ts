@@ -141,6 +141,36 @@ describe('POST /api/v1/drafts', () => {
 	});
 });
 
+describe('POST /api/v1/drafts — measurements no body has', () => {
+	it('answers 422 with the field for a 99 999 cm hip (ANSUR II and NHANES 2017–2020 maxima are under 2 m)', async () => {
+		const { status, body } = await post('/api/v1/drafts', {
+			garment: 'straight-skirt',
+			unit: 'cm',
+			measurements: { waist_girth: 72, hip_girth: 99_999, waist_to_hip: 20.6 }
+		});
+		expect(status).toBe(422);
+		expect(body.error.code).toBe('implausible_measurements');
+		expect(issuePaths(body)).toEqual(['measurements.hip_girth']);
+	});
+
+	it('answers 422 for inches sent as cm until unitConfirmed says they are right', async () => {
+		// The EN 13402-3 body 88-72-96 cm typed in inches (waist 28 ¼, hip 37 ¾, waist to hip 8 ⅛).
+		const request = {
+			garment: 'straight-skirt',
+			unit: 'cm',
+			measurements: { waist_girth: 28.25, hip_girth: 37.75, waist_to_hip: 8.125 }
+		};
+		const stopped = await post('/api/v1/drafts', request);
+		expect(stopped.status).toBe(422);
+		expect(stopped.body.error.message).toMatch(/another unit/);
+		const asInches = await post('/api/v1/drafts', { ...request, unit: 'in' });
+		expect(asInches.status).toBe(200);
+		const confirmed = await post('/api/v1/drafts', { ...request, unitConfirmed: true });
+		expect(confirmed.status).toBe(200);
+		expect(confirmed.body.warnings.map((w: { code: string }) => w.code)).toContain('unit_mixup');
+	});
+});
+
 describe('POST /api/v1/layouts', () => {
 	it('packs four 5×5 squares into a 10-wide strip at the optimum (hand check: OPT = A/W = 10)', async () => {
 		const { status, body } = await post('/api/v1/layouts', {

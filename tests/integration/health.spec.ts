@@ -1,8 +1,19 @@
 import { expect, it } from 'vitest';
-import { baseUrl } from './http';
+import { baseUrl, newClient, signIn } from './http';
 
-it('reports every check as ok', async () => {
+it('reports every check as ok, with no internal details for the public', async () => {
 	const response = await fetch(`${baseUrl}/api/v1/health`);
 	expect(response.status).toBe(200);
-	expect(await response.json()).toEqual({ status: 'ok', checks: { database: 'ok', mail: 'ok' } });
+	expect(await response.json()).toEqual({
+		status: 'ok',
+		checks: { database: 'ok', mail: 'ok', queue: 'ok', storage: 'ok' }
+	});
+});
+
+it('shows an administrator when the relay was last checked', async () => {
+	const admin = newClient();
+	expect((await signIn(admin, 'admin@tackline.test', 'tackline-demo')).status).toBe(303);
+	const body = await (await admin.get('/api/v1/health')).json();
+	expect(body.checks).toEqual({ database: 'ok', mail: 'ok', queue: 'ok', storage: 'ok' });
+	expect(Number.isNaN(Date.parse(body.details.mailCheckedAt))).toBe(false);
 });

@@ -1,5 +1,6 @@
 /** A tiny HTTP client for integration tests: form posts with the Origin header and a cookie jar. */
 import { randomInt } from 'node:crypto';
+import { linkIn, subjects, waitForMail } from './inbox';
 
 export const baseUrl = process.env.TACKLINE_BASE_URL ?? 'http://localhost:3000';
 
@@ -50,7 +51,8 @@ export function uniqueEmail(prefix: string) {
 	return `${prefix}.${Date.now().toString(36)}${randomInt(1000, 9999)}@example.test`;
 }
 
-export async function signUp(
+/** Posts the sign-up form and nothing more. */
+export async function postSignUp(
 	client: Client,
 	fields: { name?: string; email: string; password?: string; role: 'customer' | 'tailor' }
 ) {
@@ -59,6 +61,26 @@ export async function signUp(
 		password: fields.password ?? 'correct horse staple',
 		...fields
 	});
+}
+
+/** Opens an emailed link in the client (the link's path on the server under test). */
+export function openLink(client: Client, link: URL) {
+	return client.get(link.pathname + link.search);
+}
+
+/**
+ * A new account as a person makes one: sign up, confirm the address through the mailed link (in
+ * another browser), then sign in with the password. Answers the password sign-in's response.
+ */
+export async function signUp(
+	client: Client,
+	fields: { name?: string; email: string; password?: string; role: 'customer' | 'tailor' }
+) {
+	const response = await postSignUp(client, fields);
+	if (response.headers.get('location') !== '/sign-up?sent=1') return response;
+	const mail = await waitForMail(fields.email, { subject: subjects.confirm });
+	await openLink(newClient(), linkIn(mail));
+	return signIn(client, fields.email, fields.password ?? 'correct horse staple');
 }
 
 export async function signIn(client: Client, email: string, password: string) {

@@ -123,3 +123,30 @@ describe('checkMissing and checkMeasurements', () => {
 		expect(result.errors.map((e) => e.code).sort()).toEqual(['impossible_relation', 'missing_measurements']);
 	});
 });
+
+describe('checkMeasurements — values that stop a draft', () => {
+	it('stops on a hip no body has (99 999 cm; ANSUR II and NHANES 2017–2020 maxima are under 2 m)', () => {
+		const { errors } = checkMeasurements({ hip_girth: 999_990, waist_girth: 720 }, 'cm');
+		expect(errors.map((e) => [e.code, e.fields])).toEqual([['likely_typo', ['hip_girth']]]);
+	});
+
+	it('stops on inches typed into a cm form until the unit is answered, and offers inches', () => {
+		// The EN 13402-3 body 88-72-96 cm typed in inches: 38, 28 ¼, 8 (waist to hip 20.6 cm).
+		const body = { hip_girth: 380, waist_girth: 283, waist_to_hip: 80 };
+		const stopped = checkMeasurements(body, 'cm');
+		expect(stopped.errors.map((e) => e.code)).toEqual(['unit_mixup', 'unit_mixup', 'unit_mixup']);
+		expect(stopped.errors.every((e) => e.suggestedUnit === 'in')).toBe(true);
+		const confirmed = checkMeasurements(body, 'cm', [], { unitConfirmed: true });
+		expect(confirmed.errors).toEqual([]);
+		expect(confirmed.warnings.map((w) => w.code)).toContain('unit_mixup');
+	});
+
+	it('reads a child’s small waist as a child’s when the height says child, with no unit mix-up', () => {
+		// WHO growth standards: a five-year-old is about 110 cm tall; a waist of about 52 cm is usual at that age
+		// (from memory). 52 cm would be 132 cm had it been inches — an adult waist — so only the height tells.
+		const { errors, warnings } = checkMeasurements({ stature: 1100, waist_girth: 520, hip_girth: 580 }, 'cm');
+		expect(errors).toEqual([]);
+		expect(warnings.map((w) => w.code)).not.toContain('unit_mixup');
+		expect(checkMeasurements({ waist_girth: 520 }, 'cm').errors.map((e) => e.code)).toEqual(['unit_mixup']);
+	});
+});

@@ -17,6 +17,24 @@ export interface Finding {
 	code: FindingCode;
 	fields: string[];
 	message: string;
+	/** For a unit mix-up: the unit the numbers look like they were typed in, when Tackline offers it. */
+	suggestedUnit?: Unit;
+}
+
+/** How the checks read the body. */
+export interface CheckContext {
+	/** The person has said the numbers are in the unit given; mix-ups then only warn. */
+	unitConfirmed?: boolean;
+}
+
+/** Below the adult p1 of NHANES 2017–2020 (143.9 cm): likely a child (EN 14682 covers children up to 14). */
+export const childStatureMm = 1400;
+/** Shorter than a newborn (about 50 cm, WHO child growth standards): not a height at all. */
+const minStatureMm = 450;
+
+/** A height that reads as a child's in the unit given, so small girths are a child's and not a unit mix-up. */
+export function isChildBody(m: Measurements): boolean {
+	return m.stature !== undefined && m.stature >= minStatureMm && m.stature < childStatureMm;
 }
 
 export interface CheckResult {
@@ -31,18 +49,18 @@ const label = (code: MeasurementCode) => measurementInfo[code].label;
 function mixUpCandidates(mm: number, unit: Unit) {
 	if (unit === 'in') {
 		return [
-			{ intendedMm: mm / 2.54, typedAs: 'centimetres typed into an inch field' },
-			{ intendedMm: mm / 25.4, typedAs: 'millimetres typed into an inch field' }
+			{ intendedMm: mm / 2.54, typedAs: 'centimetres typed into an inch field', unit: 'cm' as const },
+			{ intendedMm: mm / 25.4, typedAs: 'millimetres typed into an inch field', unit: undefined }
 		];
 	}
 	return [
-		{ intendedMm: mm * 2.54, typedAs: 'inches typed into a centimetre field' },
-		{ intendedMm: mm / 10, typedAs: 'millimetres typed into a centimetre field' },
-		{ intendedMm: mm * 100, typedAs: 'metres typed into a centimetre field' }
+		{ intendedMm: mm * 2.54, typedAs: 'inches typed into a centimetre field', unit: 'in' as const },
+		{ intendedMm: mm / 10, typedAs: 'millimetres typed into a centimetre field', unit: undefined },
+		{ intendedMm: mm * 100, typedAs: 'metres typed into a centimetre field', unit: undefined }
 	];
 }
 
-export function checkValue(code: MeasurementCode, mm: number, unit: Unit): Finding | null {
+export function checkValue(code: MeasurementCode, mm: number, unit: Unit, child = false): Finding | null {
 	const info = measurementInfo[code];
 	if (!(mm > 0)) {
 		return { code: 'not_positive', fields: [code], message: `${info.label} must be more than zero.` };
@@ -51,20 +69,28 @@ export function checkValue(code: MeasurementCode, mm: number, unit: Unit): Findi
 	if (mm >= low && mm <= high) return null;
 	const range = `${formatLength(low, unit)}–${show(high, unit)}`;
 	const typed = show(mm, unit);
+	const [floor, ceiling] = info.limits;
+	if (child && mm < low && mm <= ceiling) {
+		return {
+			code: 'out_of_range',
+			fields: [code],
+			message: `${info.label} ${typed} is below the usual adult range (${range}), as expected for a child.`
+		};
+	}
 	const mixUp = mixUpCandidates(mm, unit).find((c) => c.intendedMm >= low && c.intendedMm <= high);
 	if (mixUp) {
 		return {
 			code: 'unit_mixup',
 			fields: [code],
-			message: `${info.label} ${typed} looks like ${mixUp.typedAs}; the usual adult range is ${range}.`
+			message: `${info.label} ${typed} looks like ${mixUp.typedAs}; the usual adult range is ${range}.`,
+			...(mixUp.unit ? { suggestedUnit: mixUp.unit } : {})
 		};
 	}
-	const [floor, ceiling] = info.limits;
 	if (mm < floor || mm > ceiling) {
 		return {
 			code: 'likely_typo',
 			fields: [code],
-			message: `${info.label} ${typed} is far outside the usual adult range (${range}). Please check it.`
+			message: `${info.label} ${typed} cannot be right: it is far outside any human range (usual adult range ${range}). Please correct it.`
 		};
 	}
 	return {
@@ -283,13 +309,25 @@ export function checkMissing(m: Measurements, required: readonly MeasurementCode
 	};
 }
 
+/** Findings that stop a draft: a value no body has, or a unit mix-up the person has not answered. */
+function blocks(finding: Finding, context: CheckContext): boolean {
+	if (finding.code === 'unit_mixup') return !context.unitConfirmed;
+	return finding.code === 'not_positive' || finding.code === 'likely_typo';
+}
+
 /** Every check on a set of measurements (in mm), with messages in the person's unit. */
-export function checkMeasurements(m: Measurements, unit: Unit, required: readonly MeasurementCode[] = []): CheckResult {
+export function checkMeasurements(
+	m: Measurements,
+	unit: Unit,
+	required: readonly MeasurementCode[] = [],
+	context: CheckContext = {}
+): CheckResult {
 	const result: CheckResult = { warnings: [], errors: [] };
+	const child = isChildBody(m);
 	for (const [code, mm] of Object.entries(m) as Array<[MeasurementCode, number]>) {
-		const finding = checkValue(code, mm, unit);
+		const finding = checkValue(code, mm, unit, child);
 		if (!finding) continue;
-		(finding.code === 'not_positive' ? result.errors : result.warnings).push(finding);
+		(blocks(finding, context) ? result.errors : result.warnings).push(finding);
 	}
 	const missing = checkMissing(m, required);
 	if (missing) result.errors.push(missing);

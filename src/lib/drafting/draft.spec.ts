@@ -78,8 +78,8 @@ describe('draftGarment — response shape and the dressmaker’s method (common 
 		expect(response.fabric!.lengthRounded * 36).toBeGreaterThanOrEqual(response.fabric!.length);
 		expect(response.fabric!.efficiency).toBeGreaterThan(0);
 		expect(response.fabric!.efficiency).toBeLessThanOrEqual(1);
-		// EN 13402-3 style: whole cm, 4 cm bands; waist 28 in = 71.1 cm → 70–74, hip 40 in = 101.6 cm → 102–106.
-		expect(response.sizeBand?.text).toBe('waist 70–74 cm, hip 102–106 cm');
+		// EN 13402-3 4 cm intervals, half-open: waist 28 in = 71.1 cm lies in 70–74, hip 40 in = 101.6 cm in 98–102.
+		expect(response.sizeBand?.text).toBe('waist 70–74 cm, hip 98–102 cm');
 		expect(response.allowances.map((a) => a.id)).toContain('hem');
 	});
 });

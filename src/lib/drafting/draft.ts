@@ -1,4 +1,4 @@
-import { checkMeasurements, type Finding } from './checks';
+import { checkMeasurements, isChildBody, type Finding } from './checks';
 import { defaultFabricSpec, estimateFabric, type FabricSpec } from './fabric';
 import { boundingBox } from './geometry';
 import type { GarmentId, MeasurementCode, Measurements } from './measurements';
@@ -38,6 +38,12 @@ export interface FabricOut {
 	lengthDisplay: string;
 	efficiency: number;
 	svg: string;
+	/** Length the layout takes on the cloth before shrinkage is added back (request unit). */
+	packedLength: number;
+	shrinkagePercent: number;
+	/** What rounding up to the buying step (⅛ yd or 10 cm) added (request unit). */
+	roundingAdded: number;
+	notes: string[];
 }
 
 export interface DraftResponse {
@@ -62,10 +68,9 @@ export interface DraftInputMm {
 	bodyMm: Measurements;
 	optionsMm?: GivenOptions;
 	fabric?: Partial<FabricSpec>;
+	/** The person has confirmed the numbers are in `unit`, answering a suspected unit mix-up. */
+	unitConfirmed?: boolean;
 }
-
-/** Below the adult p1 of NHANES 2017–2020 (143.9 cm): likely a child (EN 14682 covers children up to 14). */
-const childStatureMm = 1400;
 
 export const childCaution: Caution = {
 	code: 'child_garment',
@@ -82,7 +87,7 @@ const line = (id: string, label: string, mm: number, unit: Unit): LineOut => ({
 
 function cautionsFor(body: Measurements, templateCautions: Caution[]): Caution[] {
 	const cautions = [...templateCautions];
-	if (body.stature !== undefined && body.stature < childStatureMm) cautions.push(childCaution);
+	if (isChildBody(body)) cautions.push(childCaution);
 	return cautions;
 }
 
@@ -103,7 +108,9 @@ function pieceOut(piece: DraftPiece, unit: Unit): PieceOut {
 export function draftGarmentMm(input: DraftInputMm): DraftResponse {
 	const template = getTemplate(input.garment);
 	const { unit, bodyMm } = input;
-	const checks = checkMeasurements(bodyMm, unit, template.requiredMeasurements);
+	const checks = checkMeasurements(bodyMm, unit, template.requiredMeasurements, {
+		unitConfirmed: input.unitConfirmed
+	});
 	const resolved = resolveOptions(template, input.optionsMm ?? {}, bodyMm, unit);
 	const errors = [...checks.errors, ...resolved.errors];
 	const base = {
@@ -130,7 +137,11 @@ export function draftGarmentMm(input: DraftInputMm): DraftResponse {
 		buyUnit: estimate.rounded.buyUnit,
 		lengthDisplay: estimate.rounded.display,
 		efficiency: Math.round(estimate.efficiency * 1000) / 1000,
-		svg: layoutSvg(estimate, draft.pieces, unit)
+		svg: layoutSvg(estimate, draft.pieces, unit),
+		packedLength: toUnitValue(estimate.packedMm, unit),
+		shrinkagePercent: estimate.shrinkagePercent,
+		roundingAdded: toUnitValue(estimate.rounded.mm - estimate.lengthMm, unit),
+		notes: estimate.notes
 	};
 	return {
 		...base,
@@ -144,6 +155,9 @@ export function draftGarmentMm(input: DraftInputMm): DraftResponse {
 }
 
 /** POST /api/v1/drafts: measurements, length options and fabric in the request's unit. */
+/** Errors that mean the numbers themselves cannot be drafted (an API client answers 422 for them). */
+export const implausibleCodes: ReadonlySet<Finding['code']> = new Set(['likely_typo', 'unit_mixup']);
+
 export function draftGarment(request: DraftRequest): DraftResponse {
 	const parsed = draftRequestSchema.parse(request);
 	const { unit } = parsed;
@@ -165,5 +179,12 @@ export function draftGarment(request: DraftRequest): DraftResponse {
 		shrinkagePercent: parsed.fabric.shrinkage,
 		repeatMm: toMm(parsed.fabric.repeat, unit)
 	};
-	return draftGarmentMm({ garment: parsed.garment, unit, bodyMm, optionsMm, fabric });
+	return draftGarmentMm({
+		garment: parsed.garment,
+		unit,
+		bodyMm,
+		optionsMm,
+		fabric,
+		unitConfirmed: parsed.unitConfirmed
+	});
 }

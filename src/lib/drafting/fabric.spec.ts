@@ -122,3 +122,20 @@ describe('every garment on every preset width (property)', () => {
 		);
 	});
 });
+
+describe('fabric estimate — what the layout alone does not say', () => {
+	it('tells the cutter to cut a “cut 1” piece single on folded cloth (common practice: cutting layouts mark single-layer pieces)', () => {
+		const pieces = [rect('front', 300, 600, { onFold: true }), rect('band', 100, 800)];
+		const folded = estimateFabric(pieces, spec(1400), 'cm').estimate!;
+		expect(folded.notes).toHaveLength(1);
+		expect(folded.notes[0]).toMatch(/^band: cut 1 .*cut single/);
+		expect(estimateFabric(pieces, spec(1400, { folded: false }), 'cm').estimate!.notes).toEqual([]);
+	});
+
+	it('reports the shrinkage it allowed for, and the length before it', () => {
+		// 10 % shrinkage on a 1 m layout needs 1 m ÷ 0.9 of cloth (the length shrinks with the width).
+		const estimate = estimateFabric([rect('leg', 400, 1000)], spec(1000, { shrinkagePercent: 10 }), 'cm').estimate!;
+		expect(estimate.shrinkagePercent).toBeCloseTo(10, 12);
+		expect(estimate.lengthMm).toBeCloseTo(estimate.packedMm / 0.9, 9);
+	});
+});

@@ -50,6 +50,10 @@ export interface FabricEstimate {
 	rounded: { value: number; buyUnit: BuyUnit; mm: number; display: string };
 	efficiency: number;
 	placements: FabricPlacement[];
+	/** Shrinkage allowed for, percent. */
+	shrinkagePercent: number;
+	/** How to cut what the layout alone does not say (a single piece on doubled cloth). */
+	notes: string[];
 }
 
 interface LayItem {
@@ -144,6 +148,15 @@ export function estimateFabric(
 	const clothArea = usable * packed.length;
 	const lengthMm = packed.length / (1 - shrink);
 	const buyUnit: BuyUnit = unit === 'in' ? 'yd' : 'm';
+	// Doubled cloth cuts two of everything; a piece wanted once is cut through one layer (common practice).
+	const notes = folded
+		? items
+				.filter((i) => !i.piece.cut.onFold && !i.piece.cut.pair && i.piece.cut.quantity % 2 === 1)
+				.map(
+					(i) =>
+						`${i.piece.label}: cut ${i.piece.cut.quantity} — on the folded cloth cut through the top layer only (cut single), or keep the second as a spare.`
+				)
+		: [];
 	const rounded = roundUpFabric(lengthMm, buyUnit);
 	return {
 		estimate: {
@@ -155,7 +168,9 @@ export function estimateFabric(
 			lengthMm,
 			rounded: { ...rounded, buyUnit, display: formatFabricLength(rounded.value, buyUnit) },
 			efficiency: clothArea > 0 ? cutArea / clothArea : 0,
-			placements
+			placements,
+			shrinkagePercent: shrink * 100,
+			notes
 		},
 		warnings
 	};

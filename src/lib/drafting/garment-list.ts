@@ -1,3 +1,4 @@
+import { optionInUnit } from './options';
 import { garments } from './templates/index';
 import type { OptionSpec } from './templates/types';
 import { toUnitValue, type Unit } from './units';
@@ -46,7 +47,7 @@ export function listGarments(unit: Unit) {
 		summary: g.summary,
 		requiredMeasurements: [...g.requiredMeasurements],
 		optionalMeasurements: [...g.optionalMeasurements],
-		options: g.options.map((o) => optionOut(o, unit)),
+		options: g.options.map((o) => optionOut(optionInUnit(o, unit), unit)),
 		defaultLabourHours: g.defaultLabourHours
 	}));
 }

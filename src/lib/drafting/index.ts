@@ -12,7 +12,7 @@ export {
 	type GarmentTemplate,
 	type OptionSpec
 } from './templates/index';
-export { resolveOptions, type GivenOptions } from './options';
+export { metricDefaultMm, optionInUnit, resolveOptions, roundMetric, type GivenOptions } from './options';
 export {
 	packFfdh,
 	packNfdh,

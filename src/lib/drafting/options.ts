@@ -1,6 +1,13 @@
 import type { Finding } from './checks';
 import { measurementInfo } from './measurements';
-import type { BodyMm, GarmentTemplate, OptionSpec, OptionValue, ResolvedOptions } from './templates/types';
+import type {
+	BodyMm,
+	GarmentTemplate,
+	LengthOption,
+	OptionSpec,
+	OptionValue,
+	ResolvedOptions
+} from './templates/types';
 import { formatLength, type Unit } from './units';
 
 /** Options as given by a caller: lengths already in mm. */
@@ -9,6 +16,27 @@ export type GivenOptions = Readonly<Record<string, OptionValue | undefined>>;
 export interface ResolvedResult {
 	options: ResolvedOptions;
 	errors: Finding[];
+}
+
+/**
+ * A length option's limits as a person working in `unit` sees them. Limits are set in inches where the
+ * method is an inch method; in centimetres they become round metric values (common practice): to 0.5 cm
+ * under 5 cm, to 1 cm under 30 cm, to 5 cm above; outwards, so the method's own default stays inside. `metricDefaultMm` does the same for the default, which the
+ * calculator offers in centimetres (a ⅝ in seam is 1.5 cm, a 7 in zip 18 cm); the API keeps the method's own.
+ */
+export function optionInUnit<T extends OptionSpec>(spec: T, unit: Unit): T {
+	if (spec.kind !== 'length' || unit !== 'cm') return spec;
+	const length: LengthOption = spec;
+	return { ...spec, minMm: roundMetric(length.minMm, Math.floor), maxMm: roundMetric(length.maxMm, Math.ceil) };
+}
+
+export function metricDefaultMm(spec: LengthOption): number | null {
+	return spec.defaultMm === null ? null : roundMetric(spec.defaultMm);
+}
+
+export function roundMetric(mm: number, round: (x: number) => number = Math.round): number {
+	const step = mm < 50 ? 5 : mm < 300 ? 10 : 50;
+	return round(mm / step - (round === Math.floor ? -1e-9 : round === Math.ceil ? 1e-9 : 0)) * step;
 }
 
 /** Fills defaults (fixed, or taken from a measurement) and refuses values outside each option's range. */
@@ -20,7 +48,8 @@ export function resolveOptions(
 ): ResolvedResult {
 	const options: Record<string, OptionValue> = {};
 	const errors: Finding[] = [];
-	for (const spec of template.options) {
+	for (const option of template.options) {
+		const spec = optionInUnit(option, unit);
 		const value = given[spec.id] ?? defaultOf(spec, body);
 		if (value === undefined) {
 			errors.push(missingDefault(spec));

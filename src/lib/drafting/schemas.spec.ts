@@ -68,3 +68,29 @@ describe('quoteRequestSchema', () => {
 		).toEqual(['fabric.pricePerUnitMinor']);
 	});
 });
+
+describe('caps against oversized requests', () => {
+	it('refuses more pieces than a garment needs, and cloth or pieces beyond any bolt', () => {
+		const tiny = { w: 0.1, h: 0.1, rotate: 'any' };
+		expect(paths(layoutRequestSchema.safeParse({ width: 150, unit: 'cm', pieces: Array(1000).fill(tiny) }))).toEqual([
+			'pieces'
+		]);
+		expect(
+			paths(layoutRequestSchema.safeParse({ width: 150, unit: 'cm', pieces: [{ ...tiny, quantity: 101 }] }))
+		).toEqual(['pieces.0.quantity', 'pieces']);
+		expect(paths(layoutRequestSchema.safeParse({ width: 400, unit: 'cm', pieces: [tiny] }))).toEqual(['width']);
+		expect(paths(layoutRequestSchema.safeParse({ width: 60, unit: 'in', pieces: [{ w: 20, h: 200 }] }))).toEqual([
+			'pieces.0.h'
+		]);
+		expect(
+			layoutRequestSchema.safeParse({ width: 60, unit: 'in', pieces: [{ w: 20, h: 100, quantity: 100 }] }).success
+		).toBe(true);
+	});
+	it('caps the cloth of a draft the same way', () => {
+		const request = { garment: 'cropped-top', unit: 'cm', measurements: { bust_girth: 90 } };
+		expect(paths(draftRequestSchema.safeParse({ ...request, fabric: { width: 1000 } }))).toEqual(['fabric.width']);
+		expect(paths(draftRequestSchema.safeParse({ ...request, fabric: { width: 150, repeat: 500 } }))).toEqual([
+			'fabric.repeat'
+		]);
+	});
+});

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { garmentIds, measurementCodes } from './measurements';
+import { optionInUnit } from './options';
 import { isCurrencyCode } from './quote';
 import { templates } from './templates/index';
 import { formatLength, toMm, units } from './units';
@@ -8,6 +9,28 @@ import { formatLength, toMm, units } from './units';
 
 const unit = z.enum(units);
 const positiveLength = z.number().finite().positive().max(100_000);
+
+/*
+ * Caps sized to what garments need, so one request cannot keep the server busy. A garment has a few
+ * to a few dozen pieces; a whole outfit fits in 100 (common practice, from memory). The widest cloth
+ * commonly sold is sheeting about 3 m wide; no pattern piece is longer than 3 m.
+ */
+export const layoutCaps = { entries: 50, totalPieces: 100, clothWidthMm: 3300, pieceMm: 3000, repeatMm: 1000 };
+
+function capLength(
+	ctx: z.RefinementCtx,
+	value: number,
+	unit: (typeof units)[number],
+	maxMm: number,
+	path: PropertyKey[]
+) {
+	if (toMm(value, unit) > maxMm + 1e-6)
+		ctx.addIssue({
+			code: 'custom',
+			path,
+			message: `At most ${formatLength(maxMm, unit, { withUnit: true })}.`
+		});
+}
 
 export const measurementsSchema = z.partialRecord(z.enum(measurementCodes), positiveLength);
 
@@ -27,13 +50,20 @@ export const draftRequestSchema = z
 		unit,
 		measurements: measurementsSchema,
 		options: z.record(z.string(), z.union([z.number().finite(), z.string(), z.boolean()])).default({}),
-		fabric: fabricSchema.optional()
+		fabric: fabricSchema.optional(),
+		/** True once the person has confirmed the numbers are in `unit` (answers a suspected unit mix-up). */
+		unitConfirmed: z.boolean().default(false)
 	})
 	.strict()
 	.superRefine((request, ctx) => {
+		if (request.fabric) {
+			capLength(ctx, request.fabric.width, request.unit, layoutCaps.clothWidthMm, ['fabric', 'width']);
+			capLength(ctx, request.fabric.repeat, request.unit, layoutCaps.repeatMm, ['fabric', 'repeat']);
+		}
 		const template = templates[request.garment];
 		for (const [id, value] of Object.entries(request.options)) {
-			const spec = template.options.find((o) => o.id === id);
+			const found = template.options.find((o) => o.id === id);
+			const spec = found && optionInUnit(found, request.unit);
 			const path = ['options', id];
 			if (!spec) {
 				ctx.addIssue({
@@ -64,8 +94,6 @@ export const draftRequestSchema = z
 
 export type DraftRequest = z.input<typeof draftRequestSchema>;
 
-const maxLayoutPieces = 1000;
-
 export const layoutRequestSchema = z
 	.object({
 		width: positiveLength,
@@ -76,24 +104,27 @@ export const layoutRequestSchema = z
 					.object({
 						w: positiveLength,
 						h: positiveLength,
-						quantity: z.number().int().min(1).max(maxLayoutPieces).default(1),
+						quantity: z.number().int().min(1).max(layoutCaps.totalPieces).default(1),
 						rotate: z.enum(['none', '180', 'any']).default('none')
 					})
 					.strict()
 			)
 			.min(1)
-			.max(maxLayoutPieces)
+			.max(layoutCaps.entries)
 	})
 	.strict()
 	.superRefine((request, ctx) => {
 		const total = request.pieces.reduce((sum, p) => sum + p.quantity, 0);
-		if (total > maxLayoutPieces)
+		if (total > layoutCaps.totalPieces)
 			ctx.addIssue({
 				code: 'custom',
 				path: ['pieces'],
-				message: `At most ${maxLayoutPieces} pieces in all (quantities included).`
+				message: `At most ${layoutCaps.totalPieces} pieces in all (quantities included).`
 			});
+		capLength(ctx, request.width, request.unit, layoutCaps.clothWidthMm, ['width']);
 		request.pieces.forEach((piece, i) => {
+			capLength(ctx, piece.w, request.unit, layoutCaps.pieceMm, ['pieces', i, 'w']);
+			capLength(ctx, piece.h, request.unit, layoutCaps.pieceMm, ['pieces', i, 'h']);
 			const fits = piece.w <= request.width || (piece.rotate === 'any' && piece.h <= request.width);
 			if (!fits)
 				ctx.addIssue({

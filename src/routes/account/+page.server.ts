@@ -2,13 +2,15 @@ import { error, fail } from '@sveltejs/kit';
 import * as accounts from '$lib/server/accounts';
 import { passwordChange, profileUpdate } from '$lib/server/accounts/schemas';
 import { requireUser } from '$lib/server/auth/guard';
-import { keepValues, parseForm } from '$lib/server/forms';
 import { timeZoneGroups } from '$lib/format/time-zones';
+import { keepValues, parseForm, readForm } from '$lib/server/forms';
+import * as limits from '$lib/server/limits';
+import { clientAddress } from '$lib/server/limits/handle';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ locals }) => {
 	const user = requireUser();
-	const profile = await accounts.getProfile({ id: user.id });
+	const profile = await accounts.getProfile(locals.db, { id: user.id });
 	if (!profile) error(404, { message: 'Account not found.' });
 	return {
 		profile,
@@ -18,26 +20,37 @@ export const load: PageServerLoad = async ({ locals }) => {
 };
 
 export const actions: Actions = {
-	profile: async ({ request }) => {
+	profile: async ({ request, locals }) => {
 		const user = requireUser();
-		const formData = await request.formData();
+		const form = await readForm(request);
+		if (!form.ok) return fail(form.status, { action: 'profile' as const, values: form.values, errors: form.errors });
+		const formData = form.data;
 		const values = keepValues(formData, ['name', 'units', 'timeZone']);
 		const parsed = parseForm(profileUpdate, formData);
 		if (!parsed.ok) return fail(400, { action: 'profile' as const, values, errors: parsed.errors });
-		await accounts.updateProfile({ userId: user.id, ...parsed.data });
+		await accounts.updateProfile(locals.db, { userId: user.id, ...parsed.data });
 		return { action: 'profile' as const, saved: true };
 	},
 
-	password: async ({ request, locals }) => {
+	password: async (event) => {
+		const { request, locals } = event;
 		const user = requireUser();
-		const parsed = parseForm(passwordChange, await request.formData());
+		const form = await readForm(request);
+		if (!form.ok) return fail(form.status, { action: 'password' as const, errors: form.errors });
+		const parsed = parseForm(passwordChange(user), form.data);
 		if (!parsed.ok) return fail(400, { action: 'password' as const, errors: parsed.errors });
+		const gate = await limits.passwordChange({ userId: user.id, address: clientAddress(event) });
+		if (!gate.allowed) {
+			const wait = limits.minutesText(gate.retryAfterSeconds);
+			return fail(429, { action: 'password' as const, errors: { form: [`Too many tries. Try again in ${wait}.`] } });
+		}
 		try {
-			await accounts.changePassword({
+			await accounts.changePassword(locals.db, {
 				userId: user.id,
 				currentPassword: parsed.data.currentPassword,
 				newPassword: parsed.data.newPassword,
-				maySkipCurrent: locals.recentLinkSignIn
+				maySkipCurrent: locals.recentLinkSignIn,
+				keepSessionId: locals.sessionId
 			});
 		} catch (cause) {
 			if (cause instanceof accounts.WrongPassword) {

@@ -2,7 +2,7 @@ import { requireRole } from '$lib/server/auth/guard';
 import * as commissions from '$lib/server/commissions';
 import type { PageServerLoad } from './$types';
 
-export const load: PageServerLoad = async () => {
+export const load: PageServerLoad = async ({ locals }) => {
 	const user = requireRole('customer');
-	return { user, commissions: await commissions.listForCustomer({ customerId: user.id }) };
+	return { user, commissions: await commissions.listForCustomer(locals.db, { customerId: user.id }) };
 };

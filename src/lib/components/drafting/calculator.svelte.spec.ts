@@ -3,7 +3,7 @@ import { DraftCalculator } from './calculator.svelte';
 
 describe('DraftCalculator', () => {
 	it('drafts the trousers worked example in inches (common practice: hip 40 → hip width 11)', () => {
-		const calc = new DraftCalculator('wide-leg-trousers');
+		const calc = new DraftCalculator('wide-leg-trousers', 'in');
 		calc.fillExample();
 		expect(calc.unit).toBe('in');
 		expect(calc.missingCount).toBe(0);
@@ -13,7 +13,7 @@ describe('DraftCalculator', () => {
 	});
 
 	it('switching units rewrites the entries without changing the body', () => {
-		const calc = new DraftCalculator('wide-leg-trousers');
+		const calc = new DraftCalculator('wide-leg-trousers', 'in');
 		calc.fillExample();
 		calc.setUnit('cm');
 		expect(calc.measurementTexts.hip_girth).toBe('101.6');
@@ -32,17 +32,56 @@ describe('DraftCalculator', () => {
 		expect(calc.result.pieces).toEqual([]);
 	});
 
-	it('attaches warnings to the field they are about', () => {
+	it('attaches findings to the field they are about', () => {
 		const calc = new DraftCalculator('a-line-skirt', 'cm');
 		calc.measurementTexts = { waist_girth: '72', hip_girth: '38', waist_to_hip: '20' };
-		expect(calc.findingsFor('hip_girth').warnings[0].code).toBe('unit_mixup');
+		expect(calc.findingsFor('hip_girth').errors[0].code).toBe('unit_mixup');
+	});
+
+	it('stops a cm form typed in inches and drafts it after one click on “read as inches”', () => {
+		// The EN 13402-3 body 88-72-96 cm in inches: waist 28 ¼, hip 37 ¾, waist to hip 8 ⅛.
+		const calc = new DraftCalculator('straight-skirt', 'cm');
+		calc.measurementTexts = { waist_girth: '28 1/4', hip_girth: '37 3/4', waist_to_hip: '8 1/8' };
+		expect(calc.result.pieces).toEqual([]);
+		expect(calc.suggestedUnit).toBe('in');
+		calc.readAs('in');
+		expect(calc.measurementTexts.hip_girth).toBe('37 3/4');
+		expect(calc.result.errors).toEqual([]);
+		expect(calc.result.pieces.length).toBeGreaterThan(0);
+	});
+
+	it('drafts the numbers as typed once the person confirms the unit', () => {
+		const calc = new DraftCalculator('straight-skirt', 'cm');
+		calc.measurementTexts = { waist_girth: '28', hip_girth: '38', waist_to_hip: '20' };
+		expect(calc.unitQuestion).toBe(true);
+		calc.confirmUnit();
+		expect(calc.unitQuestion).toBe(false);
+		expect(calc.result.pieces.length).toBeGreaterThan(0);
 	});
 
 	it('keeps the fabric width preset when switching units (45 in ↔ 115 cm)', () => {
 		const calc = new DraftCalculator('tunic', 'in');
 		calc.fillExample();
+		calc.setUnit('cm');
 		expect(calc.widthPresets[calc.widthIndex]).toBe(115);
 		calc.setUnit('in');
 		expect(calc.widthPresets[calc.widthIndex]).toBe(45);
+	});
+
+	it('fills the worked example in the unit and on the cloth already chosen', () => {
+		const calc = new DraftCalculator('wide-leg-trousers', 'cm');
+		calc.widthIndex = 2;
+		calc.fillExample();
+		expect(calc.unit).toBe('cm');
+		expect(calc.measurementTexts.hip_girth).toBe('101.6');
+		expect(calc.widthPresets[calc.widthIndex]).toBe(140);
+	});
+
+	it('offers round metric allowances in centimetres (metric patterns use 1.5 cm for the ⅝ in seam; common practice)', () => {
+		const calc = new DraftCalculator('straight-skirt', 'cm');
+		calc.fillExample();
+		expect(calc.result.allowances.find((a) => a.id === 'seam')!.display).toBe('1.5 cm');
+		calc.setUnit('in');
+		expect(calc.result.allowances.find((a) => a.id === 'seam')!.display).toBe('5/8 in');
 	});
 });

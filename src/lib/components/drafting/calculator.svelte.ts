@@ -3,6 +3,7 @@ import {
 	fabricWidthPresets,
 	formatForInput,
 	getTemplate,
+	metricDefaultMm,
 	parseLength,
 	toMm,
 	type DraftResponse,
@@ -75,6 +76,8 @@ export class DraftCalculator {
 	directional = $state(false);
 	shrinkage = $state('0');
 	repeatText = $state('');
+	/** The person has said the numbers are right in this unit (answers a suspected unit mix-up). */
+	unitConfirmed = $state(false);
 
 	template = $derived(getTemplate(this.garment));
 	fields = $derived<MeasurementCode[]>([...this.template.requiredMeasurements, ...this.template.optionalMeasurements]);
@@ -82,6 +85,17 @@ export class DraftCalculator {
 	options = $derived(parseAll(this.optionTexts, this.unit));
 	repeat = $derived(parseAll({ repeat: this.repeatText }, this.unit));
 	widthPresets = $derived(fabricWidthPresets[this.unit]);
+
+	/** In centimetres, empty length options take round metric defaults (1.5 cm, not 1.6 cm for ⅝ in). */
+	metricDefaults = $derived.by(() => {
+		const defaults: Record<string, number> = {};
+		if (this.unit !== 'cm') return defaults;
+		for (const spec of this.template.options) {
+			const mm = spec.kind === 'length' ? metricDefaultMm(spec) : null;
+			if (mm !== null) defaults[spec.id] = mm;
+		}
+		return defaults;
+	});
 
 	result: DraftResponse = $derived.by(() => {
 		const bodyMm: Measurements = {};
@@ -94,16 +108,24 @@ export class DraftCalculator {
 			garment: this.garment,
 			unit: this.unit,
 			bodyMm,
-			optionsMm: { ...this.options.mm, fit: this.fit, ...this.switches },
+			optionsMm: { ...this.metricDefaults, ...this.options.mm, fit: this.fit, ...this.switches },
 			fabric: {
 				widthMm: toMm(this.widthPresets[this.widthIndex], this.unit),
 				folded: this.folded,
 				directional: this.directional,
 				shrinkagePercent: Number.isFinite(shrinkage) ? Math.min(Math.max(shrinkage, 0), 20) : 0,
 				repeatMm: this.repeat.mm.repeat ?? 0
-			}
+			},
+			unitConfirmed: this.unitConfirmed
 		});
 	});
+
+	/** The unit the typed numbers look like, when the draft is stopped by a suspected unit mix-up. */
+	suggestedUnit = $derived(
+		this.unitConfirmed ? undefined : this.result.errors.find((e) => e.code === 'unit_mixup')?.suggestedUnit
+	);
+	/** A suspected mix-up the person has not answered yet. */
+	unitQuestion = $derived(!this.unitConfirmed && this.result.errors.some((e) => e.code === 'unit_mixup'));
 
 	/** How many required measurements are still empty or unreadable. */
 	missingCount = $derived(
@@ -131,23 +153,42 @@ export class DraftCalculator {
 		this.unit = next;
 	}
 
+	/** Keep the numbers as typed and read them in another unit: the one-click answer to a unit mix-up. */
+	readAs(next: Unit) {
+		this.unit = next;
+		this.unitConfirmed = false;
+	}
+
+	confirmUnit() {
+		this.unitConfirmed = true;
+	}
+
 	chooseGarment(next: GarmentId) {
 		this.garment = next;
 		this.optionTexts = {};
 		this.switches = {};
 	}
 
+	/** The worked example in the unit and on the cloth already chosen. */
 	fillExample() {
 		const example = examples[this.garment];
-		this.unit = example.unit;
-		this.measurementTexts = { ...example.measurements };
-		this.optionTexts = { ...(example.options ?? {}) };
+		const inUnit = (texts: Texts = {}) =>
+			Object.fromEntries(
+				Object.entries(texts).map(([key, text]) => {
+					const parsed = parseLength(text, example.unit);
+					return [key, parsed.ok && example.unit !== this.unit ? formatForInput(parsed.mm, this.unit) : text];
+				})
+			);
+		this.measurementTexts = inUnit(example.measurements);
+		this.optionTexts = inUnit(example.options);
 		this.fit = 'regular';
+		this.unitConfirmed = false;
 	}
 
 	clear() {
 		this.measurementTexts = {};
 		this.optionTexts = {};
+		this.unitConfirmed = false;
 	}
 
 	/** Warnings and errors from the draft that name this field. */

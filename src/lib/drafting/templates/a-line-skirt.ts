@@ -17,7 +17,7 @@ export const aLineSkirt: GarmentTemplate = {
 	]),
 	defaultLabourHours: 4,
 	method:
-		'Quarter-hip skirt block with flare added at the side seam from the hip line (common practice); ease from CWU “Ease in Clothing”.',
+		'Quarter-hip skirt block (back darts twice the front’s, after Aldrich’s close-fitting skirt block) with flare added at the side seam from the hip line (common practice); ease from CWU “Ease in Clothing”.',
 	draft(body, options) {
 		const input = skirtInput(body, options, { flare: num(options, 'flare'), maxDartsPerQuarter: 1 });
 		const shaping = skirtShaping(input);

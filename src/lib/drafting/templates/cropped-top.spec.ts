@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
+import { estimateFabric } from '../fabric';
 import { boundingBox } from '../geometry';
 import { croppedTop } from './cropped-top';
 import { draftIn } from './test-support';
@@ -109,5 +110,21 @@ describe('cropped top — properties', () => {
 			),
 			{ numRuns: 40 }
 		);
+	});
+});
+
+describe('cropped top — the card says how the layout folds the cloth', () => {
+	it('describes one lengthwise fold, as the layout lays both pieces against it (common practice)', () => {
+		const draft = draftIn(croppedTop, 'in', body, { length: 18 });
+		const text = [croppedTop.summary, ...draft.notes].join(' ');
+		expect(text).not.toMatch(/four/);
+		expect(text).toMatch(/lengthwise fold/);
+		const { estimate } = estimateFabric(
+			draft.pieces,
+			{ widthMm: 45 * 25.4, folded: true, directional: false, shrinkagePercent: 0, repeatMm: 0 },
+			'in'
+		);
+		expect(estimate!.folded).toBe(true);
+		for (const p of estimate!.placements) expect(p.x).toBe(0);
 	});
 });

@@ -6,8 +6,8 @@ import type { Fit, GarmentTemplate } from './types';
 
 /*
  * A working dressmaker's method for a cropped top with cut-in-one short sleeves and bust darts (common
- * practice), in inches on the quarter bust. The fabric is folded in four, so one cut on the fold gives the
- * front and another the back; the neckline is the same front and back and must pass over the head.
+ * practice), in inches on the quarter bust. The cloth is folded once lengthwise and front and back are each
+ * cut with the centre on that fold; the neckline is the same front and back and must pass over the head.
  */
 
 /** Bust ease per quarter: "regular" is the method (4 in in all, McCunn's fitting ease with sleeves);
@@ -223,7 +223,7 @@ function topWarnings(f: TopFigures): Finding[] {
 export const croppedTop: GarmentTemplate = {
 	id: 'cropped-top',
 	name: 'Cropped top with cut-in-one sleeves',
-	summary: 'Front and back cut on the fold from fabric folded in four; short cut-in-one sleeves and bust darts.',
+	summary: 'Front and back each cut on a lengthwise fold of the cloth; short cut-in-one sleeves and bust darts.',
 	category: 'top',
 	requiredMeasurements: ['bust_girth', 'shoulder_width', 'shoulder_to_bust_point', 'bust_point_span'],
 	optionalMeasurements: [],
@@ -268,7 +268,7 @@ export const croppedTop: GarmentTemplate = {
 				{ id: 'sleeve_hem', label: 'Sleeve hem, turned twice', mm: sleeveHem }
 			],
 			notes: [
-				'Fold the fabric in four; cut front and back each with the centre on a fold.',
+				'Fold the cloth once lengthwise; cut front and back each with its centre on the fold.',
 				'Mark the bust darts on the front only.',
 				'No fastening: check the neckline passes over the head before cutting.'
 			],

@@ -94,3 +94,51 @@ describe('shift dress — properties', () => {
 		);
 	});
 });
+
+describe('shift dress — datums from the nape (Aldrich, Metric Pattern Cutting for Women’s Wear, close-fitting bodice block)', () => {
+	// The block squares its scye depth, nape-to-waist and waist-to-hip lines down from the nape (centre back neck).
+	const draft = draftIn(shiftDress, 'cm', body);
+	const back = draft.pieces[1];
+	const napeY = back.lines.find((l) => l.id === 'nape_to_waist')!.dimension!.from.y;
+	const guide = (label: string) => back.marks.find((m) => m.label === label)!.points[0].y;
+	it('puts the nape on the centre back neck line', () => {
+		const centreBackNeck = back.outline.find((p) => p.x === 0)!;
+		expect(centreBackNeck.y + seam).toBeCloseTo(napeY, 9);
+	});
+	it('measures the waist line by nape to waist and the hip line by waist to hip below it', () => {
+		expect(guide('waist line') - napeY).toBeCloseTo(body.nape_to_waist * 10, 9);
+		expect(guide('hip line') - guide('waist line')).toBeCloseTo(body.waist_to_hip * 10, 9);
+	});
+	it('measures the armhole depth (scye depth) from the nape', () => {
+		const underarm = back.lines.find((l) => l.id === 'bust_width')!.dimension!.to;
+		expect(underarm.y - napeY).toBeCloseTo(draft.line('back.armhole_depth') * 10, 9);
+	});
+});
+
+describe('shift dress — ease over every girth (CWU "Ch. 16 Ease in Clothing": dress waist ¾–1 in, hip 2–2¾ in)', () => {
+	it('gives at least the minimum ease at bust, waist and hip for any plausible body, waist larger than hip included (property)', () => {
+		fc.assert(
+			fc.property(
+				fc.double({ min: 80, max: 140, noNaN: true }),
+				fc.double({ min: 55, max: 150, noNaN: true }),
+				fc.double({ min: 80, max: 150, noNaN: true }),
+				(bust, waist, hip) => {
+					const d = draftIn(shiftDress, 'cm', {
+						...body,
+						bust_girth: bust,
+						under_bust_girth: bust - 15,
+						waist_girth: waist,
+						hip_girth: hip
+					});
+					for (const [line, girth, min] of [
+						['front.bust_width', bust, 1.5],
+						['front.waist_width', waist, 0.75],
+						['front.hip_width', hip, 2]
+					] as const)
+						expect(finishedEase(d, line, girth), line).toBeGreaterThanOrEqual(min - 1e-6);
+				}
+			),
+			{ numRuns: 200 }
+		);
+	});
+});

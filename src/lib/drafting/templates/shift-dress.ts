@@ -6,8 +6,10 @@ import type { BodyMm, GarmentTemplate, ResolvedOptions } from './types';
 
 /*
  * A sleeveless shift: straight from underarm to hem with a little waist shaping, side bust darts on the front
- * and a centre-back zip. Built on quarters like a bodice block (common practice). Armhole depth bust/8 + 10 cm
- * is from memory (it gives 21 cm at bust 88, close to the size-12 scye depth in Aldrich's metric blocks).
+ * and a centre-back zip. Built on quarters like a bodice block. As in Aldrich's close-fitting bodice block
+ * (Metric Pattern Cutting for Women's Wear), the scye depth, nape-to-waist and waist-to-hip lines are squared
+ * down from the nape, which lies the back neck depth below the neck-point line. Scye depth bust/8 + 10 cm is
+ * from memory (it gives 21 cm at bust 88, close to the size-12 scye depth in Aldrich's metric blocks).
  */
 const shoulderDrop = inch(1.5);
 const maxSideShaping = inch(0.75);
@@ -24,6 +26,8 @@ export interface DressFigures {
 	quarterWaist: number;
 	quarterHip: number;
 	armholeDepth: number;
+	/** The nape below the neck-point line; the block's datum. */
+	napeY: number;
 	waistDepth: number;
 	hipDepth: number;
 	sideShaping: number;
@@ -45,16 +49,18 @@ export function dressFigures(body: BodyMm, options: ResolvedOptions): DressFigur
 	const quarterBust = (bust + ease.bust) / 4;
 	const quarterWaist = (need(body, 'waist_girth') + ease.dressWaist) / 4;
 	const quarterHip = (need(body, 'hip_girth') + ease.hip) / 4;
-	const widest = Math.max(quarterBust, quarterHip);
+	const widest = Math.max(quarterBust, quarterHip, quarterWaist);
 	const underBust = body.under_bust_girth;
 	const cup = underBust === undefined ? baseCupDifference : bust - underBust;
 	const dartIntake = Math.min(Math.max(baseDartIntake + (cup - baseCupDifference) / 2, inch(0.5)), inch(2.5));
-	const waistDepth = need(body, 'nape_to_waist');
+	const napeY = backNeckDepth;
+	const waistDepth = napeY + need(body, 'nape_to_waist');
 	return {
 		quarterBust,
 		quarterWaist,
 		quarterHip,
 		armholeDepth: bust / 8 + 100 + (fitOf(options) === 'relaxed' ? inch(1) : 0),
+		napeY,
 		waistDepth,
 		hipDepth: waistDepth + need(body, 'waist_to_hip'),
 		sideShaping: Math.min(Math.max((widest - quarterWaist) / 2, 0), maxSideShaping),
@@ -77,13 +83,13 @@ function dressPiece(which: 'front' | 'back', f: DressFigures): DraftPiece {
 	const drop = front ? f.dartIntake : 0;
 	const centreX = front ? 0 : -centreBackSeam;
 	const neckDepth = front ? f.neckDepth : backNeckDepth;
-	const widest = Math.max(f.quarterBust, f.quarterHip);
-	const underarm = pt(f.quarterBust + s, f.armholeDepth);
+	const widest = Math.max(f.quarterBust, f.quarterHip, f.quarterWaist);
+	const underarm = pt(f.quarterBust + s, f.napeY + f.armholeDepth);
 	const shoulder = pt(f.shoulderPoint + s * 0.5, shoulderDrop);
 	const waist = pt(widest - f.sideShaping + s, f.waistDepth + drop);
-	const hip = pt(f.quarterHip + s, f.hipDepth + drop);
+	const hip = pt(Math.max(f.quarterHip, f.quarterWaist) + s, f.hipDepth + drop);
 	const hemY = f.length + f.hem;
-	const dartTop = f.armholeDepth + dartBelowUnderarm;
+	const dartTop = underarm.y + dartBelowUnderarm;
 	const sideAt = (y: number) =>
 		pt(underarm.x + ((waist.x - underarm.x) * (y - underarm.y)) / (waist.y - underarm.y), y);
 	const outline: Point[] = [
@@ -118,12 +124,20 @@ function dressPiece(which: 'front' | 'back', f: DressFigures): DraftPiece {
 		{ id: 'hip_width', label: 'Width at hip (with side seam)', mm: hip.x, dimension: { from: pt(0, hip.y), to: hip } },
 		{
 			id: 'armhole_depth',
-			label: 'Armhole depth',
+			label: 'Armhole depth (scye depth, from the nape)',
 			mm: f.armholeDepth,
-			dimension: { from: pt(-inch(0.8) + centreX, 0), to: pt(-inch(0.8) + centreX, f.armholeDepth) }
+			dimension: { from: pt(-inch(0.8) + centreX, f.napeY), to: pt(-inch(0.8) + centreX, underarm.y) }
 		},
-		{ id: 'waist_depth', label: 'Shoulder line to waist', mm: f.waistDepth + drop },
-		{ id: 'hip_depth', label: 'Shoulder line to hip', mm: f.hipDepth + drop },
+		{
+			id: 'nape_to_waist',
+			label: 'Nape to waist line',
+			mm: f.waistDepth - f.napeY,
+			dimension: front
+				? undefined
+				: { from: pt(-inch(2.4) + centreX, f.napeY), to: pt(-inch(2.4) + centreX, f.waistDepth) }
+		},
+		{ id: 'waist_depth', label: 'Neck-point line to waist', mm: f.waistDepth + drop },
+		{ id: 'hip_depth', label: 'Neck-point line to hip', mm: f.hipDepth + drop },
 		{
 			id: 'piece_length',
 			label: 'Piece length with hem',
@@ -192,7 +206,7 @@ export const shiftDress: GarmentTemplate = {
 	],
 	defaultLabourHours: 7,
 	method:
-		'Quarter-bust bodice block extended to a shift (common practice); wearing ease from CWU “Ease in Clothing” and McCunn.',
+		'Quarter-bust bodice block extended to a shift; scye depth, waist and hip lines squared down from the nape as in Aldrich’s close-fitting bodice block (Metric Pattern Cutting for Women’s Wear); wearing ease from CWU “Ease in Clothing” and McCunn.',
 	draft(body, options) {
 		const f = dressFigures(body, options);
 		return {

@@ -12,6 +12,7 @@ import type { BodyMm, OptionSpec, ResolvedOptions } from './types';
 
 /** Most a single dart should take in; more than this puckers (common practice, 1.5–3 cm darts). */
 const maxDartIntake = 30;
+const minDartIntake = 2;
 const sideRaise = inch(0.5);
 export const frontDartLength = inch(3.5);
 export const backDartLength = inch(5.5);
@@ -63,31 +64,55 @@ export function skirtInput(
 	};
 }
 
+export interface DartSet {
+	count: number;
+	intake: number;
+	/** Finished waist of this quarter (centre to side seam, darts closed). */
+	waist: number;
+}
+
 export interface SkirtShaping {
+	/** Quarter width at the hip line: the larger of hip and waist with their ease, so neither binds. */
 	quarterHip: number;
 	quarterWaist: number;
 	sideShaping: number;
-	dartCount: number;
-	dartIntake: number;
+	front: DartSet;
+	back: DartSet;
 }
 
-/** Side seam takes up to half the suppression (at most 1 in); darts the rest; any excess back to the side. */
+/**
+ * The back takes twice the dart suppression of the front: the seat stands further out from the waist than
+ * the abdomen does (Aldrich, Metric Pattern Cutting for Women's Wear, the close-fitting skirt block — the back
+ * darts take about twice the front's; from memory). The side seam takes up to half the suppression (at most
+ * 1 in); any dart over 3 cm moves to the side seam.
+ */
+export const frontDartShare = 1 / 3;
+
 export function skirtShaping(
 	input: Pick<SkirtInput, 'waist' | 'hip' | 'waistEase' | 'hipEase' | 'maxDartsPerQuarter'>
 ): SkirtShaping {
-	const quarterHip = (input.hip + input.hipEase) / 4;
 	const quarterWaist = (input.waist + input.waistEase) / 4;
-	const suppression = Math.max(quarterHip - quarterWaist, 0);
-	let sideShaping = Math.min(suppression / 2, inch(1));
-	let rest = suppression - sideShaping;
-	const dartCount = rest <= 0.5 ? 0 : rest <= maxDartIntake ? 1 : input.maxDartsPerQuarter;
-	let dartIntake = dartCount ? rest / dartCount : 0;
-	if (dartIntake > maxDartIntake) {
-		sideShaping += (dartIntake - maxDartIntake) * dartCount;
-		dartIntake = maxDartIntake;
-		rest = dartIntake * dartCount;
-	}
-	return { quarterHip, quarterWaist, sideShaping, dartCount, dartIntake };
+	const quarterHip = Math.max((input.hip + input.hipEase) / 4, quarterWaist);
+	const suppression = quarterHip - quarterWaist;
+	const backCapacity = input.maxDartsPerQuarter * maxDartIntake;
+	const spread = Math.min(
+		Math.max(Math.min(suppression / 2, inch(1)), suppression - backCapacity / (2 * (1 - frontDartShare))),
+		suppression
+	);
+	// A front dart under 2 mm cannot be sewn: the side seam takes all of so little suppression.
+	const sideShaping = 2 * (suppression - spread) * frontDartShare < minDartIntake ? suppression : spread;
+	const halfDarts = 2 * (suppression - sideShaping);
+	const darts = (total: number): DartSet => {
+		const count = total === 0 ? 0 : total <= maxDartIntake ? 1 : input.maxDartsPerQuarter;
+		return { count, intake: count ? total / count : 0, waist: quarterHip - sideShaping - total };
+	};
+	return {
+		quarterHip,
+		quarterWaist,
+		sideShaping,
+		front: darts(halfDarts * frontDartShare),
+		back: darts(halfDarts * (1 - frontDartShare))
+	};
 }
 
 export function skirtPiece(
@@ -96,7 +121,8 @@ export function skirtPiece(
 	shaping: SkirtShaping,
 	extra: { zipLength: number; centreBackSeam: number; slitLength: number }
 ): DraftPiece {
-	const { quarterHip: q, sideShaping, dartCount, dartIntake } = shaping;
+	const { quarterHip: q, sideShaping } = shaping;
+	const { count: dartCount, intake: dartIntake, waist: quarterWaist } = shaping[which];
 	const s = input.seam;
 	const flare = input.flare ?? 0;
 	const hemY = input.length + input.hem;
@@ -141,7 +167,7 @@ export function skirtPiece(
 			mm: q + s,
 			dimension: { from: pt(0, input.waistToHip), to: sideHip }
 		},
-		{ id: 'waist_width', label: 'Finished quarter waist', mm: shaping.quarterWaist },
+		{ id: 'waist_width', label: 'Finished waist, centre to side', mm: quarterWaist },
 		{
 			id: 'hip_depth',
 			label: 'Waist to hip line',

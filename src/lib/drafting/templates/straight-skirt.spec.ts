@@ -20,7 +20,8 @@ describe('straight skirt — ease (CWU "Ch. 16 Ease in Clothing": hip 2–2¾ in
 			const hipEase = (finishedHip - body.hip_girth * 10) / inch;
 			expect(hipEase).toBeGreaterThanOrEqual(2 - 1e-9);
 			expect(hipEase).toBeLessThanOrEqual(2.75 + 1e-9);
-			const waistEase = (4 * draft.line('front.waist_width') * 10 - body.waist_girth * 10) / inch;
+			const finishedWaist = 2 * (draft.line('front.waist_width') + draft.line('back.waist_width')) * 10;
+			const waistEase = (finishedWaist - body.waist_girth * 10) / inch;
 			expect(waistEase).toBeGreaterThanOrEqual(0.5 - 1e-9);
 			expect(waistEase).toBeLessThanOrEqual(0.75 + 1e-9);
 		});

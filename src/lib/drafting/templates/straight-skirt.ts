@@ -12,7 +12,7 @@ export const straightSkirt: GarmentTemplate = {
 	options: skirtOptions(inch(1.5), [lengthOption('slitLength', 'Walking slit at centre back', inch(6), [0, inch(12)])]),
 	defaultLabourHours: 5,
 	method:
-		'Quarter-hip skirt block with waist darts (common practice); wearing ease from CWU “Ease in Clothing” (hip 2–2¾ in, skirt waist ½–¾ in).',
+		'Quarter-hip skirt block with waist darts, the back taking twice the front’s dart intake (Aldrich, Metric Pattern Cutting for Women’s Wear, close-fitting skirt block); wearing ease from CWU “Ease in Clothing” (hip 2–2¾ in, skirt waist ½–¾ in).',
 	draft(body, options) {
 		const input = skirtInput(body, options, { flare: null, maxDartsPerQuarter: 2 });
 		const shaping = skirtShaping(input);

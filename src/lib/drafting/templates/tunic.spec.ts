@@ -53,4 +53,12 @@ describe('tunic / kaftan', () => {
 			{ numRuns: 50 }
 		);
 	});
+	it('gives the overarm and underarm edges their seam allowance: finished opening = cut edge − 2 seams (common practice: every seamed edge carries its allowance)', () => {
+		const d = draftIn(tunic, 'cm', body, { sleeveOpening: 9 * 2.54 });
+		const sleeveEnd = d.line('front.sleeve_end') * 10;
+		const edge = d.pieces[0].outline.filter((p) => Math.abs(p.x - sleeveEnd) < 1e-9).map((p) => p.y);
+		const cut = Math.max(...edge) - Math.min(...edge);
+		expect(cut - 2 * (5 / 8) * inch).toBeCloseTo(9 * inch, 9);
+		expect(d.line('front.sleeve_opening')).toBeCloseTo(9 * 2.54, 9);
+	});
 });

@@ -25,6 +25,7 @@ export const neckTieCaution: Caution = {
 
 interface TunicFigures {
 	quarter: number;
+	seam: number;
 	bodyWidth: number;
 	shoulderPoint: number;
 	sleeveEnd: number;
@@ -40,14 +41,16 @@ interface TunicFigures {
 function tunicPiece(which: 'front' | 'back', f: TunicFigures, neckTies: boolean): DraftPiece {
 	const front = which === 'front';
 	const neckDepth = front ? f.neckDepth : backNeckDepth;
+	const s = f.seam;
 	const centreNeck = pt(0, neckDepth);
-	const neckPoint = pt(f.neckWidth, 0);
-	const sleeveBottom = pt(f.sleeveEnd, f.sleeveOpening);
-	const side = pt(f.bodyWidth, f.underarmY);
+	// The overarm (shoulder) and underarm edges are seamed, so each carries the seam allowance.
+	const neckPoint = pt(f.neckWidth, -s);
+	const sleeveBottom = pt(f.sleeveEnd, f.sleeveOpening + s);
+	const side = pt(f.bodyWidth, f.underarmY + s);
 	const outline: Point[] = [
 		centreNeck,
 		...quadCurve(centreNeck, pt(f.neckWidth * 0.9, neckDepth * 0.95), neckPoint),
-		pt(f.sleeveEnd, 0),
+		pt(f.sleeveEnd, -s),
 		sleeveBottom,
 		...quadCurve(sleeveBottom, pt(f.bodyWidth, sleeveBottom.y), side),
 		pt(f.bodyWidth, f.pieceLength),
@@ -78,9 +81,14 @@ function tunicPiece(which: 'front' | 'back', f: TunicFigures, neckTies: boolean)
 		},
 		{
 			id: 'sleeve_opening',
-			label: 'Sleeve opening (half round)',
-			mm: f.sleeveOpening,
-			dimension: { from: pt(f.sleeveEnd + inch(0.6), 0), to: pt(f.sleeveEnd + inch(0.6), f.sleeveOpening) }
+			label: 'Sleeve opening, finished (half round)',
+			mm: f.sleeveOpening
+		},
+		{
+			id: 'sleeve_edge_cut',
+			label: 'Sleeve edge as cut (opening + 2 seams)',
+			mm: f.sleeveOpening + 2 * s,
+			dimension: { from: pt(f.sleeveEnd + inch(0.6), -s), to: pt(f.sleeveEnd + inch(0.6), f.sleeveOpening + s) }
 		},
 		{ id: 'underarm_depth', label: 'Underarm depth', mm: f.underarmY },
 		{ id: 'neck_width', label: 'Neck width from the fold', mm: f.neckWidth },
@@ -88,9 +96,9 @@ function tunicPiece(which: 'front' | 'back', f: TunicFigures, neckTies: boolean)
 		{ id: 'side_slit', label: 'Side slit', mm: f.slitLength },
 		{
 			id: 'piece_length',
-			label: 'Piece length with hem',
-			mm: f.pieceLength,
-			dimension: { from: pt(-inch(0.8), 0), to: pt(-inch(0.8), f.pieceLength) }
+			label: 'Piece length with shoulder seam and hem',
+			mm: f.pieceLength + s,
+			dimension: { from: pt(-inch(0.8), -s), to: pt(-inch(0.8), f.pieceLength) }
 		}
 	];
 	if (front) lines.push({ id: 'neck_slit', label: 'Neck slit', mm: neckSlit });
@@ -160,6 +168,7 @@ export const tunic: GarmentTemplate = {
 		const sleeveOpening = num(options, 'sleeveOpening');
 		const f: TunicFigures = {
 			quarter,
+			seam: s,
 			bodyWidth: quarter + s,
 			shoulderPoint,
 			sleeveEnd: Math.max(shoulderPoint + num(options, 'sleeveLength') + s, quarter + s + inch(1)),

@@ -1,10 +1,14 @@
-import { and, desc, eq, ilike, lt, or, sql, type SQL } from 'drizzle-orm';
-import { db, type Executor } from '../db';
-import { user, type LengthUnit, type UserRole } from '../db/schema';
+import { and, desc, eq, gt, ilike, lt, or, sql, type SQL } from 'drizzle-orm';
+import type { Executor } from '../db';
+import { session, user, type LengthUnit, type UserRole } from '../db/schema';
 import * as mail from '../mail';
-import { hashPassword, verifyPassword } from '../auth/password';
 import * as audit from '../audit';
 import type { SessionUser } from '$lib/types/user';
+import { hashPassword, verifyAgainstNothing, verifyPassword } from './password';
+import { accountExistsMail, confirmAddressMail, noAccountMail, signInLinkMail, suspendedAccountMail } from './mails';
+import { endSessionsOf } from './sessions';
+
+export { endSession, startSession } from './sessions';
 
 const sessionColumns = {
 	id: user.id,
@@ -15,38 +19,42 @@ const sessionColumns = {
 	suspendedAt: user.suspendedAt
 };
 
-export async function getSessionUser({ id }: { id: string }, tx: Executor = db) {
-	const [row] = await tx.select(sessionColumns).from(user).where(eq(user.id, id)).limit(1);
+/** The user behind a session token, whether the account is suspended, and whether the session is still live. */
+export async function getSessionUser(db: Executor, { id, sessionId }: { id: string; sessionId: string | undefined }) {
+	const [row] = await db
+		.select({ ...sessionColumns, live: sql<boolean>`${session.sessionToken} is not null` })
+		.from(user)
+		.leftJoin(
+			session,
+			and(eq(session.userId, user.id), eq(session.sessionToken, sessionId ?? ''), gt(session.expires, new Date()))
+		)
+		.where(eq(user.id, id))
+		.limit(1);
 	if (!row) return null;
-	const { suspendedAt, ...rest } = row;
-	return { user: rest satisfies SessionUser, suspended: suspendedAt !== null };
+	const { suspendedAt, live, ...rest } = row;
+	return { user: rest satisfies SessionUser, suspended: suspendedAt !== null, live: Boolean(live) };
 }
 
-export async function findByEmail({ email }: { email: string }, tx: Executor = db) {
-	const [row] = await tx
-		.select({ ...sessionColumns, passwordHash: user.passwordHash })
+export async function findByEmail(db: Executor, { email }: { email: string }) {
+	const [row] = await db
+		.select({ ...sessionColumns, passwordHash: user.passwordHash, emailVerified: user.emailVerified })
 		.from(user)
 		.where(sql`lower(${user.email}) = ${email.toLowerCase()}`)
 		.limit(1);
 	return row ?? null;
 }
 
-export class EmailTaken extends Error {
-	constructor() {
-		super('An account with this email address already exists.');
-	}
-}
-
-export async function register(input: {
-	name: string;
-	email: string;
-	password: string;
-	role: UserRole;
-	timeZone?: string;
-}) {
+/**
+ * A taken address answers exactly like a free one: its owner is told by mail instead. The new
+ * account signs in only once its address is confirmed through the link it is sent.
+ */
+export async function register(
+	db: Executor,
+	input: { name: string; email: string; password: string; role: UserRole; timeZone?: string },
+	{ origin }: { origin: string }
+): Promise<{ created: boolean }> {
 	const passwordHash = await hashPassword(input.password);
 	return db.transaction(async (tx) => {
-		if (await findByEmail({ email: input.email }, tx)) throw new EmailTaken();
 		const [created] = await tx
 			.insert(user)
 			.values({
@@ -57,8 +65,11 @@ export async function register(input: {
 				timeZone: input.timeZone
 			})
 			.onConflictDoNothing({ target: user.email })
-			.returning({ id: user.id, role: user.role });
-		if (!created) throw new EmailTaken();
+			.returning({ id: user.id });
+		if (!created) {
+			await mail.queue(tx, accountExistsMail(input.email, origin));
+			return { created: false };
+		}
 		await audit.record(tx, {
 			actorId: created.id,
 			action: 'account.registered',
@@ -66,49 +77,78 @@ export async function register(input: {
 			subjectId: created.id,
 			data: { role: input.role }
 		});
-		return created;
+		return { created: true };
 	});
+}
+
+/** Decides what a requested sign-in link mail says; the same amount of work whoever asked. */
+export async function mailSignInLink(
+	db: Executor,
+	{ email, url, origin }: { email: string; url: string; origin: string }
+) {
+	const found = await findByEmail(db, { email });
+	const message = !found
+		? noAccountMail(email, origin)
+		: found.suspendedAt
+			? suspendedAccountMail(email)
+			: found.emailVerified
+				? signInLinkMail(email, url)
+				: confirmAddressMail(email, url);
+	await mail.queue(db, message);
+}
+
+/** Whether an emailed link may sign this address in (the account exists and is not suspended). */
+export async function linkSignInAllowed(db: Executor, { email }: { email: string }) {
+	const found = await findByEmail(db, { email });
+	if (!found) return 'unknown' as const;
+	return found.suspendedAt ? ('suspended' as const) : ('allowed' as const);
 }
 
 export type CredentialCheck =
 	| { ok: true; user: { id: string; email: string; name: string | null; role: UserRole } }
 	| { ok: false; reason: 'invalid' | 'suspended' };
 
-/** Suspension is revealed only to someone who knows the password. */
-export async function verifyCredentials({
-	email,
-	password
-}: {
-	email: string;
-	password: string;
-}): Promise<CredentialCheck> {
-	const found = await findByEmail({ email });
-	if (!found?.passwordHash || !(await verifyPassword(found.passwordHash, password))) {
-		return { ok: false, reason: 'invalid' };
-	}
+/**
+ * Unknown addresses spend the same argon2 time as known ones. Suspension is revealed only to someone
+ * who knows the password; an unconfirmed address cannot sign in with a password yet.
+ */
+export async function verifyCredentials(
+	db: Executor,
+	{ email, password }: { email: string; password: string }
+): Promise<CredentialCheck> {
+	const found = await findByEmail(db, { email });
+	const matches = found?.passwordHash
+		? await verifyPassword(found.passwordHash, password)
+		: await verifyAgainstNothing(password);
+	if (!found || !matches || !found.emailVerified) return { ok: false, reason: 'invalid' };
 	if (found.suspendedAt) return { ok: false, reason: 'suspended' };
 	return { ok: true, user: { id: found.id, email: found.email, name: found.name, role: found.role } };
 }
 
-export async function suspend({ userId, reason, actorId }: { userId: string; reason: string; actorId: string | null }) {
+export async function suspend(
+	db: Executor,
+	{ userId, reason, actorId }: { userId: string; reason: string; actorId: string | null }
+) {
 	await db.transaction(async (tx) => {
 		const [changed] = await tx
 			.update(user)
 			.set({ suspendedAt: new Date(), suspendedReason: reason })
 			.where(sql`${user.id} = ${userId} and ${user.suspendedAt} is null`)
 			.returning({ id: user.id });
-		if (changed)
-			await audit.record(tx, {
-				actorId,
-				action: 'account.suspended',
-				subjectType: 'user',
-				subjectId: userId,
-				data: { reason }
-			});
+		if (!changed) return;
+		// Reinstatement must not bring old cookies back to life.
+		await endSessionsOf(tx, { userId });
+		await audit.record(tx, {
+			actorId,
+			action: 'account.suspended',
+			subjectType: 'user',
+			subjectId: userId,
+			data: { reason }
+		});
 	});
 }
 
-export async function reinstate({ userId, actorId }: { userId: string; actorId: string | null }) {
+export async function reinstate(db: Executor, { userId, actorId }: { userId: string; actorId: string | null }) {
 	await db.transaction(async (tx) => {
 		const [changed] = await tx
 			.update(user)
@@ -120,7 +160,22 @@ export async function reinstate({ userId, actorId }: { userId: string; actorId: 
 	});
 }
 
-export async function countByRole() {
+/** Signs the user out everywhere (an admin's action, or a script's). */
+export async function endAllSessions(db: Executor, { userId, actorId }: { userId: string; actorId: string | null }) {
+	return db.transaction(async (tx) => {
+		const ended = await endSessionsOf(tx, { userId });
+		await audit.record(tx, {
+			actorId,
+			action: 'account.sessions_ended',
+			subjectType: 'user',
+			subjectId: userId,
+			data: { ended }
+		});
+		return ended;
+	});
+}
+
+export async function countByRole(db: Executor) {
 	const rows = await db
 		.select({ role: user.role, count: sql<number>`count(*)::int` })
 		.from(user)
@@ -141,17 +196,20 @@ export type UserListItem = {
 };
 
 /** Newest first, with keyset paging on (created at, id): `after` is the last row of the previous page. */
-export async function list({
-	search,
-	role,
-	after,
-	limit = 25
-}: {
-	search?: string;
-	role?: UserRole;
-	after?: { createdAt: Date; id: string };
-	limit?: number;
-}): Promise<{ users: UserListItem[]; next: { createdAt: Date; id: string } | null }> {
+export async function list(
+	db: Executor,
+	{
+		search,
+		role,
+		after,
+		limit = 25
+	}: {
+		search?: string;
+		role?: UserRole;
+		after?: { createdAt: Date; id: string };
+		limit?: number;
+	}
+): Promise<{ users: UserListItem[]; next: { createdAt: Date; id: string } | null }> {
 	const filters: SQL[] = [];
 	if (search) {
 		const pattern = `%${search.replace(/[\\%_]/g, (c) => '\\' + c)}%`;
@@ -182,7 +240,7 @@ export async function list({
 	return { users: page, next: rows.length > limit && last ? { createdAt: last.createdAt, id: last.id } : null };
 }
 
-export async function getProfile({ id }: { id: string }) {
+export async function getProfile(db: Executor, { id }: { id: string }) {
 	const [row] = await db
 		.select({
 			name: user.name,
@@ -197,7 +255,10 @@ export async function getProfile({ id }: { id: string }) {
 	return row ?? null;
 }
 
-export async function updateProfile(input: { userId: string; name: string; units: LengthUnit; timeZone: string }) {
+export async function updateProfile(
+	db: Executor,
+	input: { userId: string; name: string; units: LengthUnit; timeZone: string }
+) {
 	await db
 		.update(user)
 		.set({ name: input.name, units: input.units, timeZone: input.timeZone })
@@ -212,14 +273,18 @@ export class WrongPassword extends Error {
 
 /**
  * Needs the current password, unless the account has none yet or the person has just signed in
- * through an emailed link (which is how a forgotten password is replaced).
+ * through an emailed link (which is how a forgotten password is replaced). Every other session ends.
  */
-export async function changePassword(input: {
-	userId: string;
-	currentPassword: string;
-	newPassword: string;
-	maySkipCurrent: boolean;
-}) {
+export async function changePassword(
+	db: Executor,
+	input: {
+		userId: string;
+		currentPassword: string;
+		newPassword: string;
+		maySkipCurrent: boolean;
+		keepSessionId: string | null;
+	}
+) {
 	const [row] = await db
 		.select({ email: user.email, passwordHash: user.passwordHash })
 		.from(user)
@@ -229,14 +294,47 @@ export async function changePassword(input: {
 		throw new WrongPassword();
 	}
 	const passwordHash = await hashPassword(input.newPassword);
-	await db.transaction(async (tx) => {
+	return db.transaction(async (tx) => {
 		await tx.update(user).set({ passwordHash }).where(eq(user.id, input.userId));
+		const endedSessions = await endSessionsOf(tx, { userId: input.userId, except: input.keepSessionId });
 		await audit.record(tx, {
 			actorId: input.userId,
 			action: 'account.password_changed',
 			subjectType: 'user',
-			subjectId: input.userId
+			subjectId: input.userId,
+			data: { endedSessions }
 		});
+		await mail.queue(tx, mail.passwordChangedMail(row.email));
+		return { endedSessions };
 	});
-	await mail.send(mail.passwordChangedMail(row.email));
+}
+
+/** Makes (or promotes) an administrator with a confirmed address and the given password. */
+export async function ensureAdmin(db: Executor, input: { email: string; name: string; password: string }) {
+	const passwordHash = await hashPassword(input.password);
+	const email = input.email.trim().toLowerCase();
+	return db.transaction(async (tx) => {
+		const [admin] = await tx
+			.insert(user)
+			.values({ email, name: input.name, role: 'admin', passwordHash, emailVerified: new Date() })
+			.onConflictDoUpdate({
+				target: user.email,
+				set: {
+					role: 'admin',
+					passwordHash,
+					suspendedAt: null,
+					emailVerified: sql`coalesce(${user.emailVerified}, now())`
+				}
+			})
+			.returning({ id: user.id });
+		await endSessionsOf(tx, { userId: admin.id });
+		await audit.record(tx, {
+			actorId: null,
+			action: 'account.made_admin',
+			subjectType: 'user',
+			subjectId: admin.id,
+			data: { via: 'cli' }
+		});
+		return admin;
+	});
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { magicLinkRequest, passwordSignIn, signUp } from './schemas';
+import { magicLinkRequest, passwordChange, passwordSignIn, signUp } from './schemas';
 
 const valid = { name: ' Ada Quill ', email: ' Ada@Example.TEST ', password: 'ten chars!', role: 'customer' };
 
@@ -42,5 +42,35 @@ describe('sign-in schemas', () => {
 		expect(passwordSignIn.safeParse({ email: 'a@b.test', password: '' }).success).toBe(false);
 		expect(passwordSignIn.parse({ email: 'A@B.test', password: 'x' }).email).toBe('a@b.test');
 		expect(magicLinkRequest.safeParse({ email: '' }).error?.issues[0].message).toBe('Enter your email address.');
+	});
+});
+
+describe('password policy', () => {
+	const signUpWith = (password: string) => signUp.safeParse({ ...valid, password });
+	const reason = (result: ReturnType<typeof signUpWith>) =>
+		result.error?.issues.find((issue) => issue.path[0] === 'password')?.message;
+
+	it('refuses common and guessable passwords, saying why', () => {
+		expect(reason(signUpWith('password123!'))).toMatch(/Choose a harder password\. This is similar to a commonly used/);
+		expect(reason(signUpWith('qwertyuiop'))).toMatch(/Choose a harder password/);
+	});
+
+	it('refuses the email address itself and one repeated character', () => {
+		expect(
+			reason(signUp.safeParse({ ...valid, email: 'ada.quill@example.test', password: 'ada.quill@example.test' }))
+		).toBe('Don’t use your email address as your password.');
+		expect(reason(signUpWith('zzzzzzzzzzzz'))).toBe('Use more than one repeated character.');
+	});
+
+	it('accepts a few unrelated words, the demo password included', () => {
+		expect(signUpWith('correct horse staple').success).toBe(true);
+		expect(signUpWith('tackline-demo').success).toBe(true);
+	});
+
+	it('applies to a new password on the account page too', () => {
+		const change = passwordChange({ email: 'ada@example.test', name: 'Ada Quill' });
+		const weak = change.safeParse({ newPassword: 'password123!', confirmPassword: 'password123!' });
+		expect(weak.error?.issues[0].path).toEqual(['newPassword']);
+		expect(change.safeParse({ newPassword: 'second password', confirmPassword: 'second password' }).success).toBe(true);
 	});
 });

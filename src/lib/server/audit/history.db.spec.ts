@@ -1,8 +1,12 @@
 import { randomUUID } from 'node:crypto';
-import { describe, expect, it } from 'vitest';
-import { db } from '../db';
+import { afterAll, describe, expect, it } from 'vitest';
+import { createDb } from '../db/client';
 import { auditEvent, user } from '../db/schema';
 import { historiesFor, historyFor } from './history';
+
+// The integration setup gives this file its own copy of the seeded demo database.
+const { db, pool } = createDb(process.env.DATABASE_URL!, { max: 2 });
+afterAll(() => pool.end());
 
 async function newUser(name: string) {
 	const [row] = await db

@@ -1,7 +1,7 @@
 import { isHttpError, isRedirect, type RequestEvent } from '@sveltejs/kit';
 import { describe, expect, it } from 'vitest';
 import type { SessionUser } from '$lib/types/user';
-import { gateAreas } from './area-gate';
+import { gateAreas, normalisedPath } from './area-gate';
 
 function attempt(
 	path: string,
@@ -19,7 +19,7 @@ function attempt(
 		locals
 	} as unknown as RequestEvent;
 	let reachedRoute = false;
-	const resolve = async () => {
+	const resolve = () => {
 		reachedRoute = true;
 		if (options.routeGuards) locals.guarded = true;
 		return new Response('page', { status: options.routeGuards ? 403 : 200 });
@@ -57,5 +57,14 @@ describe('area gate', () => {
 		const result = await attempt('/desk/users', 'tailor', { method: 'POST', routeGuards: true });
 		expect(result.reachedRoute).toBe(false);
 		expect(isHttpError(result.thrown, 403)).toBe(true);
+	});
+
+	it('reads every spelling of an area path as that area', async () => {
+		for (const path of ['/%64esk', '/%64esk/users', '/Desk', '//desk', '/./desk', '/workroom/../desk', '/%2Fdesk']) {
+			expect(normalisedPath(path), path).toMatch(/^\/desk(\/|$)/);
+			const { thrown } = await attempt(path, 'tailor', { method: 'POST' });
+			expect(isHttpError(thrown, 403), path).toBe(true);
+		}
+		expect(normalisedPath('/%E0%A4%A')).toBe('/%e0%a4%a');
 	});
 });

@@ -17,11 +17,36 @@ describe('safeRedirectTarget', () => {
 			'//elsewhere.example',
 			'/\\elsewhere.example',
 			'javascript:alert(1)',
+			'/\t/evil.example',
+			decodeURIComponent('%2F%09%2Fevil.example'),
+			'/\t\\evil.example',
+			'//evil',
+			'/\\\\evil',
+			'/\r\n/evil.example',
+			'/\r\nSet-Cookie: a=b',
+			'/\u3000/evil.example',
+			'/./\n/evil.example',
+			'/.//evil.example',
+			' /evil',
 			'',
 			null,
 			undefined
 		]) {
-			expect(safeRedirectTarget(target, '/home')).toBe('/home');
+			expect(safeRedirectTarget(target, '/home'), JSON.stringify(target)).toBe('/home');
 		}
+	});
+
+	it('returns the path as the URL parser normalised it', () => {
+		expect(safeRedirectTarget('/commissions/../workroom#top', '/')).toBe('/workroom#top');
+		expect(safeRedirectTarget('/%2F%2Fevil.example', '/')).toBe('/%2F%2Fevil.example');
+	});
+});
+
+describe('safeRedirectTarget after the URL parser', () => {
+	it('refuses targets the parser would turn into another host, and anything a header cannot carry', () => {
+		expect(safeRedirectTarget('/\t/evil.example', '/home')).toBe('/home');
+		expect(safeRedirectTarget('/\r\n/evil.example', '/home')).toBe('/home');
+		expect(safeRedirectTarget('/\r\nevil', '/home')).toBe('/home');
+		expect(safeRedirectTarget('/\u3000evil', '/home')).toBe('/home');
 	});
 });

@@ -31,8 +31,22 @@ export function homeFor(role: UserRole) {
 	return { customer: '/commissions', tailor: '/workroom', admin: '/desk' }[role];
 }
 
-/** Only same-site paths are followed after sign-in. */
+const probeOrigin = 'http://tackline.invalid';
+
+/**
+ * Only same-site paths are followed after sign-in. The target is read the way a browser would read
+ * it (the URL parser drops tabs and newlines and turns `\\` into `/`), and what comes out must still
+ * be a path on our origin; anything with control characters, spaces or backslashes is refused outright.
+ */
 export function safeRedirectTarget(target: string | null | undefined, fallback: string) {
-	if (!target || !target.startsWith('/') || target.startsWith('//') || target.startsWith('/\\')) return fallback;
-	return target;
+	if (!target || !target.startsWith('/') || /[\p{Cc}\p{Z}\\]/u.test(target)) return fallback;
+	let parsed: URL;
+	try {
+		parsed = new URL(target, probeOrigin);
+	} catch {
+		return fallback;
+	}
+	const path = parsed.pathname + parsed.search + parsed.hash;
+	if (parsed.origin !== probeOrigin || !path.startsWith('/') || path.startsWith('//')) return fallback;
+	return path;
 }

@@ -1,26 +1,33 @@
 import type { Handle } from '@sveltejs/kit';
 import * as accounts from '../accounts';
+import { SIGN_IN_LINK_LIFETIME_SECONDS } from '../limits/constants';
 
 /** Someone who just proved they own the mailbox may set a new password without the old one. */
-const LINK_SIGN_IN_GRACE_MS = 15 * 60_000;
-
 function isRecentLinkSignIn(session: { signedInWith?: string; signedInAt?: number } | null) {
-	return session?.signedInWith === 'nodemailer' && Date.now() - (session.signedInAt ?? 0) < LINK_SIGN_IN_GRACE_MS;
+	return (
+		session?.signedInWith === 'nodemailer' &&
+		Date.now() - (session.signedInAt ?? 0) < SIGN_IN_LINK_LIFETIME_SECONDS * 1000
+	);
 }
 
-/** Re-reads the user row on every request, so a role change or suspension bites at once. */
+/**
+ * Re-reads the user row and the session row on every request, so a role change, a suspension or an
+ * ended session bites at once.
+ */
 export const loadUser: Handle = async ({ event, resolve }) => {
 	event.locals.user = null;
+	event.locals.sessionId = null;
 	event.locals.suspended = false;
 	event.locals.guarded = false;
 	event.locals.recentLinkSignIn = false;
 	const session = await event.locals.auth();
 	const id = session?.user?.id;
 	if (id) {
-		const found = await accounts.getSessionUser({ id });
+		const found = await accounts.getSessionUser(event.locals.db, { id, sessionId: session.sessionId });
 		if (found?.suspended) event.locals.suspended = true;
-		else if (found) {
+		else if (found?.live) {
 			event.locals.user = found.user;
+			event.locals.sessionId = session.sessionId ?? null;
 			event.locals.recentLinkSignIn = isRecentLinkSignIn(session);
 		}
 	}

@@ -1,8 +1,8 @@
 import { desc, eq, sql } from 'drizzle-orm';
-import { db } from '../db';
+import type { Executor } from '../db';
 import { commission, quote } from '../db/schema';
 
-export async function listForCustomer({ customerId }: { customerId: string }) {
+export async function listForCustomer(db: Executor, { customerId }: { customerId: string }) {
 	return db
 		.select({
 			id: commission.id,
@@ -21,7 +21,7 @@ export async function listForCustomer({ customerId }: { customerId: string }) {
 }
 
 /** Open commissions, newest first, as a quoting tailor may see them: size band, never measurements. */
-export async function listOpen({ limit = 20 }: { limit?: number } = {}) {
+export async function listOpen(db: Executor, { limit = 20 }: { limit?: number } = {}) {
 	return db
 		.select({
 			id: commission.id,

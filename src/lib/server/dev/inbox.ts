@@ -19,12 +19,12 @@ export function requireDevTools() {
 export async function list(): Promise<InboxMessage[]> {
 	const response = await fetch(`${requireDevTools()}/messages`);
 	if (!response.ok) error(502, { message: 'The local mail stand-in is not answering.' });
-	return response.json();
+	return (await response.json()) as InboxMessage[];
 }
 
 export async function get({ id }: { id: string }): Promise<InboxMessage> {
 	const response = await fetch(`${requireDevTools()}/messages/${encodeURIComponent(id)}`);
 	if (response.status === 404) error(404, { message: 'That message is no longer in the inbox.' });
 	if (!response.ok) error(502, { message: 'The local mail stand-in is not answering.' });
-	return response.json();
+	return (await response.json()) as InboxMessage;
 }

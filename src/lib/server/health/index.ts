@@ -1,21 +1,47 @@
 import { sql } from 'drizzle-orm';
-import { db } from '../db';
+import type { Executor } from '../db';
+import { jobsRunning } from '../jobs/runner';
 import * as mail from '../mail';
+import * as storage from '../services/storage';
 
-export type HealthReport = { status: 'ok' | 'degraded'; checks: Record<string, string> };
+export type HealthChecks = {
+	database: 'ok' | 'down';
+	mail: 'ok' | 'degraded';
+	queue: 'ok' | 'down';
+	storage: 'ok' | 'degraded';
+};
+export type HealthReport = {
+	/** `down` when the database is: nothing works without it. `degraded` when mail, jobs or storage wait. */
+	status: 'ok' | 'degraded' | 'down';
+	checks: HealthChecks;
+	/** Internal error text, for administrators only. */
+	details?: Record<string, string>;
+};
 
-async function database(): Promise<string> {
+async function database(db: Executor): Promise<string | null> {
 	try {
 		await db.execute(sql`select 1`);
-		return 'ok';
+		return null;
 	} catch (error) {
 		return error instanceof Error ? error.message : 'unreachable';
 	}
 }
 
-/** Each hosted service adds its check here. */
-export async function report(): Promise<HealthReport> {
-	const [databaseCheck, mailCheck] = await Promise.all([database(), mail.check()]);
-	const checks = { database: databaseCheck, mail: mailCheck };
-	return { status: Object.values(checks).every((c) => c === 'ok') ? 'ok' : 'degraded', checks };
+/** Each hosted service adds its check here. The relay's answer is cached, so this is cheap to poll. */
+export async function report(db: Executor, { withDetails = false } = {}): Promise<HealthReport> {
+	const [databaseError, relay, storageCheck] = await Promise.all([database(db), mail.relayStatus(), storage.check()]);
+	const checks: HealthChecks = {
+		database: databaseError ? 'down' : 'ok',
+		mail: relay.ok ? 'ok' : 'degraded',
+		queue: jobsRunning() ? 'ok' : 'down',
+		storage: storageCheck === 'ok' ? 'ok' : 'degraded'
+	};
+	const status =
+		checks.database === 'down' ? 'down' : Object.values(checks).every((c) => c === 'ok') ? 'ok' : 'degraded';
+	if (!withDetails) return { status, checks };
+	const details: Record<string, string> = { mailCheckedAt: relay.checkedAt.toISOString() };
+	if (databaseError) details.database = databaseError;
+	if (relay.error) details.mail = relay.error;
+	if (storageCheck !== 'ok') details.storage = storageCheck;
+	return { status, checks, details };
 }

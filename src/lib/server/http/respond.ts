@@ -1,11 +1,18 @@
 import { json } from '@sveltejs/kit';
 import type { z } from 'zod';
+import { BodyError, kilobytes, mediaType, readLimited } from './body';
 
 export type ApiIssue = { path: string; message: string };
 
 /** The one error body every JSON endpoint answers with. */
-export function apiError(status: number, code: string, message: string, issues: ApiIssue[] = []) {
-	return json({ error: { code, message, issues } }, { status });
+export function apiError(
+	status: number,
+	code: string,
+	message: string,
+	issues: ApiIssue[] = [],
+	headers: HeadersInit = {}
+) {
+	return json({ error: { code, message, issues } }, { status, headers });
 }
 
 export function zodIssues(error: z.ZodError): ApiIssue[] {
@@ -16,23 +23,70 @@ export function invalidInput(error: z.ZodError) {
 	return apiError(400, 'invalid_input', 'The request has invalid fields.', zodIssues(error));
 }
 
-/** Reads a JSON body, answering 400 rather than throwing when it is not JSON. */
+/** Drafting requests are a few kilobytes; anything much larger is not a garment. */
+export const defaultJsonLimit = kilobytes(32);
+
+// eslint-disable-next-line no-control-regex -- matching control characters is the point
+const controlCharacters = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F]/;
+
+/** Paths of strings carrying control characters (NUL and friends), which no field accepts. */
+function controlCharacterIssues(value: unknown, path: string[] = [], found: ApiIssue[] = []): ApiIssue[] {
+	if (found.length >= 20) return found;
+	if (typeof value === 'string') {
+		if (controlCharacters.test(value)) found.push({ path: path.join('.'), message: 'Contains control characters.' });
+	} else if (Array.isArray(value)) {
+		value.forEach((item, i) => controlCharacterIssues(item, [...path, String(i)], found));
+	} else if (value && typeof value === 'object') {
+		for (const [key, item] of Object.entries(value)) {
+			if (controlCharacters.test(key))
+				found.push({ path: [...path, key].join('.'), message: 'Contains control characters.' });
+			controlCharacterIssues(item, [...path, key], found);
+		}
+	}
+	return found;
+}
+
+/**
+ * Reads a JSON body: 415 unless it is `application/json`, 413 past `limit` bytes, 400 when it does not
+ * parse or carries control characters in any string.
+ */
 export async function readJson(
-	request: Request
+	request: Request,
+	options: { limit?: number } = {}
 ): Promise<{ ok: true; body: unknown } | { ok: false; response: Response }> {
+	const type = mediaType(request);
+	if (type !== 'application/json' && !/^application\/[\w.+-]+\+json$/.test(type)) {
+		return {
+			ok: false,
+			response: apiError(415, 'unsupported_media_type', 'Send the body as JSON with Content-Type: application/json.')
+		};
+	}
+	let raw: Uint8Array<ArrayBuffer>;
 	try {
-		return { ok: true, body: await request.json() };
+		raw = await readLimited(request, options.limit ?? defaultJsonLimit);
+	} catch (error) {
+		if (error instanceof BodyError) return { ok: false, response: apiError(error.status, error.code, error.message) };
+		throw error;
+	}
+	let body: unknown;
+	try {
+		body = JSON.parse(new TextDecoder('utf-8', { fatal: true }).decode(raw));
 	} catch {
 		return { ok: false, response: apiError(400, 'invalid_json', 'The request body must be JSON.') };
 	}
+	const issues = controlCharacterIssues(body);
+	if (issues.length)
+		return { ok: false, response: apiError(400, 'invalid_input', 'The request has invalid fields.', issues) };
+	return { ok: true, body };
 }
 
-/** Reads a JSON body and validates it: the parsed data, or the 400 response to send. */
+/** Reads a JSON body and validates it: the parsed data, or the 4xx response to send. */
 export async function parseJsonBody<S extends z.ZodType>(
 	request: Request,
-	schema: S
+	schema: S,
+	options: { limit?: number } = {}
 ): Promise<{ ok: true; data: z.output<S> } | { ok: false; response: Response }> {
-	const body = await readJson(request);
+	const body = await readJson(request, options);
 	if (!body.ok) return body;
 	const parsed = schema.safeParse(body.body);
 	return parsed.success ? { ok: true, data: parsed.data } : { ok: false, response: invalidInput(parsed.error) };

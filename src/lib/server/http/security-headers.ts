@@ -1,14 +1,10 @@
 import type { Handle } from '@sveltejs/kit';
-
-const headers = {
-	'x-content-type-options': 'nosniff',
-	'referrer-policy': 'strict-origin-when-cross-origin',
-	'permissions-policy': 'camera=(), microphone=(), geolocation=(self), payment=()'
-};
+import { protectiveHeaders } from './protective-headers.js';
 
 /** Headers that belong on every response; the Content-Security-Policy comes from svelte.config.js. */
 export const securityHeaders: Handle = async ({ event, resolve }) => {
 	const resolved = await resolve(event);
+	const headers = protectiveHeaders({ https: event.url.protocol === 'https:' });
 	// Some responses (Response.redirect from Auth.js) have immutable headers: copy those first.
 	let response = resolved;
 	try {

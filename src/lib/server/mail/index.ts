@@ -1,42 +1,30 @@
 import type { Executor } from '../db';
+import * as jobs from '../jobs';
 import { mailFrom, mailer } from '../services/mailer';
+import { noteRelayAnswered, noteRelayFailed } from './relay';
+import type { Mail } from './types';
 
-export type Mail = { to: string; subject: string; text: string; html?: string };
-
-export async function send(mail: Mail) {
-	await mailer().sendMail({ from: mailFrom(), ...mail });
-}
+export { relayStatus, type RelayStatus } from './relay';
+export type { Mail } from './types';
+export { discardDeadLetter, listDeadLetters, resendDeadLetter, type DeadLetter } from './dead-letters';
 
 /**
  * Queues a mail inside the caller's transaction: it is sent (with retries) only if the change that
- * causes it commits, and the request never waits on the relay.
- * Contract for every caller; the PostgreSQL-backed queue behind it lands with the mail-queue work.
+ * causes it commits, and the request never waits on the relay. The one way domain code sends mail.
  */
-export async function queue(_db: Executor, mail: Mail) {
-	await send(mail);
+export async function queue(db: Executor, mail: Mail) {
+	await jobs.enqueue(db, jobs.queueNames.mail, mail);
 }
 
-export async function check(): Promise<'ok' | string> {
+/** The mail queue's worker: one attempt at the relay. A throw is retried with back-off, then dead-lettered. */
+export async function deliver(mail: Mail) {
 	try {
-		await mailer().verify();
-		return 'ok';
+		await mailer().sendMail({ from: mailFrom(), to: mail.to, subject: mail.subject, text: mail.text, html: mail.html });
 	} catch (error) {
-		return error instanceof Error ? error.message : 'unreachable';
+		noteRelayFailed(error);
+		throw error;
 	}
-}
-
-function escapeAttribute(value: string) {
-	return value.replaceAll('&', '&amp;').replaceAll('"', '&quot;').replaceAll('<', '&lt;');
-}
-
-export function signInLinkMail(to: string, url: string): Mail {
-	const host = new URL(url).host;
-	return {
-		to,
-		subject: 'Your Tackline sign-in link',
-		text: `Hello,\n\nUse this link to sign in to Tackline at ${host}:\n\n${url}\n\nThe link works once and expires in 24 hours. If you did not ask for it, you can ignore this email.\n\n— Tackline`,
-		html: `<p>Hello,</p><p>Use this link to sign in to Tackline at ${host}:</p><p><a href="${escapeAttribute(url)}">Sign in to Tackline</a></p><p>The link works once and expires in 24 hours. If you did not ask for it, you can ignore this email.</p><p>— Tackline</p>`
-	};
+	noteRelayAnswered();
 }
 
 export function passwordChangedMail(to: string): Mail {

@@ -1,6 +1,17 @@
 import { sql } from 'drizzle-orm';
-import { boolean, index, integer, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
-import { id, createdAt, updatedAt, instant } from './columns';
+import {
+	bigint,
+	index,
+	integer,
+	pgEnum,
+	pgTable,
+	primaryKey,
+	text,
+	timestamp,
+	uuid,
+	varchar
+} from 'drizzle-orm/pg-core';
+import { id, updatedAt, instant } from './columns';
 
 export const userRole = pgEnum('user_role', ['customer', 'tailor', 'admin']);
 export const lengthUnit = pgEnum('length_unit', ['in', 'cm']);
@@ -77,18 +88,9 @@ export const verificationToken = pgTable(
 	(t) => [primaryKey({ columns: [t.identifier, t.token] })]
 );
 
-/** One row per password sign-in attempt; failures in a recent window drive the rate limit. */
-export const signInAttempt = pgTable(
-	'sign_in_attempt',
-	{
-		id: id(),
-		email: text('email').notNull(),
-		ip: text('ip').notNull(),
-		succeeded: boolean('succeeded').notNull(),
-		createdAt: createdAt()
-	},
-	(t) => [
-		index('sign_in_attempt_email_idx').on(t.email, t.createdAt),
-		index('sign_in_attempt_ip_idx').on(t.ip, t.createdAt)
-	]
-);
+/** rate-limiter-flexible's PostgreSQL store (its own column layout): one row per limited key. */
+export const rateLimit = pgTable('rate_limit', {
+	key: varchar('key', { length: 255 }).primaryKey(),
+	points: integer('points').notNull().default(0),
+	expire: bigint('expire', { mode: 'number' })
+});

@@ -1,10 +1,10 @@
-import { json } from '@sveltejs/kit';
-import { estimateQuoteRequest, quoteRequestSchema } from '$lib/drafting';
+import { quoteRequestSchema } from '$lib/drafting';
+import { computeResponse } from '$lib/server/compute/respond';
 import { parseJsonBody } from '$lib/server/http/respond';
 import type { RequestHandler } from './$types';
 
 export const POST: RequestHandler = async ({ request }) => {
 	const parsed = await parseJsonBody(request, quoteRequestSchema);
 	if (!parsed.ok) return parsed.response;
-	return json(estimateQuoteRequest(parsed.data));
+	return computeResponse({ kind: 'estimate', request: parsed.data });
 };

@@ -1,7 +1,7 @@
 import { eq, sql } from 'drizzle-orm';
 import { afterAll, describe, expect, it } from 'vitest';
 import { seedDemo } from '../../scripts/demo/seed-demo';
-import { checkMeasurements, type Measurements } from '../../src/lib/drafting';
+import { checkMeasurements } from '../../src/lib/drafting';
 import { commission, measurementProfile, quote, tailorProfile, user } from '../../src/lib/server/db/schema';
 import { testDb } from './db';
 
@@ -40,7 +40,7 @@ describe('demo seed', () => {
 			.from(measurementProfile);
 		expect(profiles.length).toBeGreaterThan(0);
 		for (const profile of profiles) {
-			const result = checkMeasurements(profile.valuesMm as Measurements, 'cm');
+			const result = checkMeasurements(profile.valuesMm, 'cm');
 			expect(result.errors, profile.label).toEqual([]);
 		}
 	});

@@ -16,3 +16,12 @@ export async function verifyPassword(passwordHash: string, password: string): Pr
 		return false;
 	}
 }
+
+let dummyHash: Promise<string> | null = null;
+
+/** Spends the same time as a real check, so an unknown address answers as slowly as a known one. */
+export async function verifyAgainstNothing(password: string): Promise<false> {
+	dummyHash ??= hashPassword('no account has this password');
+	await verifyPassword(await dummyHash, password);
+	return false;
+}

@@ -1,0 +1,3 @@
+export const building = false;
+export const dev = false;
+export const browser = false;

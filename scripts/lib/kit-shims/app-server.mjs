@@ -1,0 +1,3 @@
+export function getRequestEvent() {
+	throw new Error('not inside a request');
+}

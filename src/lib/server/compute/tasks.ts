@@ -1,0 +1,30 @@
+// Relative imports only: this module also runs inside worker threads, outside Vite.
+import { draftGarment, type DraftResponse } from '../../drafting/draft';
+import { estimateQuoteRequest, layoutRectangles, type LayoutResponse } from '../../drafting/requests';
+import type { DraftRequest, LayoutRequest, QuoteRequest } from '../../drafting/schemas';
+
+export type Task =
+	| { kind: 'ping' }
+	| { kind: 'draft'; request: DraftRequest }
+	| { kind: 'layout'; request: LayoutRequest }
+	| { kind: 'estimate'; request: QuoteRequest };
+
+export type TaskResult = {
+	ping: 'pong';
+	draft: DraftResponse;
+	layout: LayoutResponse;
+	estimate: ReturnType<typeof estimateQuoteRequest>;
+};
+
+export function runTask(task: Task): TaskResult[Task['kind']] {
+	switch (task.kind) {
+		case 'ping':
+			return 'pong';
+		case 'draft':
+			return draftGarment(task.request);
+		case 'layout':
+			return layoutRectangles(task.request);
+		case 'estimate':
+			return estimateQuoteRequest(task.request);
+	}
+}

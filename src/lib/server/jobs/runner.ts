@@ -1,0 +1,56 @@
+import { discardQueueClient, queueClient } from '../services/queue';
+import { queueDefinitions } from './queues';
+
+type RunnerState = 'stopped' | 'starting' | 'running' | 'stopping';
+let state: RunnerState = 'stopped';
+let retryTimer: ReturnType<typeof setTimeout> | null = null;
+const RETRY_START_MS = 5_000;
+
+async function startOnce() {
+	const boss = queueClient();
+	await boss.start();
+	for (const queue of queueDefinitions()) {
+		await boss.createQueue(queue.name, { name: queue.name, ...queue.options });
+		await boss.updateQueue(queue.name, { name: queue.name, ...queue.options });
+		const work = queue.work as ((data: unknown) => Promise<void>) | undefined;
+		if (work) {
+			await boss.work(queue.name, { batchSize: 1, pollingIntervalSeconds: 1 }, async (jobs) => {
+				for (const job of jobs) await work(job.data);
+			});
+		}
+		if (queue.cron) await boss.schedule(queue.name, queue.cron.expression, queue.cron.data ?? {});
+	}
+}
+
+/**
+ * Starts pg-boss in this process: creates or updates every queue, then runs the workers, schedules and
+ * maintenance. Jobs live in PostgreSQL, so none is lost across restarts. When the database is not
+ * reachable yet, keeps trying in the background instead of failing the server's start.
+ */
+export async function startJobs() {
+	if (state !== 'stopped') return;
+	state = 'starting';
+	try {
+		await startOnce();
+		state = 'running';
+	} catch (error) {
+		console.error(`[jobs] could not start, retrying: ${error instanceof Error ? error.message : String(error)}`);
+		await discardQueueClient();
+		state = 'stopped';
+		retryTimer = setTimeout(() => void startJobs(), RETRY_START_MS);
+		retryTimer.unref();
+	}
+}
+
+/** Lets running jobs finish (up to ten seconds; unfinished ones are retried later) and closes the queue's pool. */
+export async function stopJobs() {
+	if (retryTimer) clearTimeout(retryTimer);
+	if (state !== 'running') return;
+	state = 'stopping';
+	await queueClient().stop({ graceful: true, wait: true, timeout: 10_000 });
+	state = 'stopped';
+}
+
+export function jobsRunning() {
+	return state === 'running';
+}

@@ -1,0 +1,96 @@
+import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
+import { pool } from '../db';
+import * as rules from './constants';
+import type { LimitRule } from './constants';
+
+export * from './constants';
+
+/** Created by a migration (drizzle/), so no limiter creates it at run time. */
+const tableName = 'rate_limit';
+
+const limiters = new Map<string, RateLimiterPostgres>();
+
+function limiter(name: string, rule: LimitRule) {
+	let found = limiters.get(name);
+	if (!found) {
+		found = new RateLimiterPostgres({
+			storeClient: pool,
+			tableName,
+			tableCreated: true,
+			keyPrefix: name,
+			points: rule.points,
+			duration: rule.duration,
+			// One limiter sweeps rows that expired over an hour ago, every five minutes.
+			clearExpiredByTimeout: limiters.size === 0
+		});
+		limiters.set(name, found);
+	}
+	return found;
+}
+
+export type Gate = { allowed: true } | { allowed: false; retryAfterSeconds: number };
+
+const allowed: Gate = { allowed: true };
+
+/** Takes one point from every key in one atomic step per key; refused when any key is over its limit. */
+async function consume(checks: { name: string; rule: LimitRule; key: string }[]): Promise<Gate> {
+	const outcomes = await Promise.allSettled(checks.map((c) => limiter(c.name, c.rule).consume(c.key)));
+	let retryAfterMs = 0;
+	for (const outcome of outcomes) {
+		if (outcome.status === 'fulfilled') continue;
+		if (!(outcome.reason instanceof RateLimiterRes)) throw outcome.reason;
+		retryAfterMs = Math.max(retryAfterMs, outcome.reason.msBeforeNext);
+	}
+	return retryAfterMs > 0
+		? { allowed: false, retryAfterSeconds: Math.max(1, Math.ceil(retryAfterMs / 1000)) }
+		: allowed;
+}
+
+async function forget(name: string, rule: LimitRule, key: string) {
+	await limiter(name, rule).delete(key);
+}
+
+const normalise = (email: string) => email.trim().toLowerCase();
+
+export function passwordSignIn({ email, address }: { email: string; address: string }) {
+	return consume([
+		{ name: 'password-account', rule: rules.PASSWORD_SIGN_IN_PER_ACCOUNT, key: normalise(email) },
+		{ name: 'password-address', rule: rules.PASSWORD_SIGN_IN_PER_ADDRESS, key: address }
+	]);
+}
+
+/** A right password clears the account's count (the address keeps its count). */
+export function passwordSignInSucceeded({ email }: { email: string }) {
+	return forget('password-account', rules.PASSWORD_SIGN_IN_PER_ACCOUNT, normalise(email));
+}
+
+export function signInLink({ email, address }: { email: string; address: string }) {
+	return consume([
+		{ name: 'link-email', rule: rules.SIGN_IN_LINK_PER_EMAIL, key: normalise(email) },
+		{ name: 'link-address', rule: rules.SIGN_IN_LINK_PER_ADDRESS, key: address }
+	]);
+}
+
+export function signUp({ email, address }: { email: string; address: string }) {
+	return consume([
+		{ name: 'sign-up-email', rule: rules.SIGN_UP_PER_EMAIL, key: normalise(email) },
+		{ name: 'sign-up-address', rule: rules.SIGN_UP_PER_ADDRESS, key: address }
+	]);
+}
+
+export function passwordChange({ userId, address }: { userId: string; address: string }) {
+	return consume([
+		{ name: 'password-change-account', rule: rules.PASSWORD_CHANGE_PER_ACCOUNT, key: userId },
+		{ name: 'password-change-address', rule: rules.PASSWORD_CHANGE_PER_ADDRESS, key: address }
+	]);
+}
+
+export function publicApi({ address }: { address: string }) {
+	return consume([{ name: 'api-address', rule: rules.PUBLIC_API_PER_ADDRESS, key: address }]);
+}
+
+/** "3 minutes" / "1 minute", for messages on forms. */
+export function minutesText(seconds: number) {
+	const minutes = Math.max(1, Math.ceil(seconds / 60));
+	return `${minutes} minute${minutes === 1 ? '' : 's'}`;
+}

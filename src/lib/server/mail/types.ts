@@ -1,0 +1,1 @@
+export type Mail = { to: string; subject: string; text: string; html?: string };

@@ -1,0 +1,106 @@
+import { fileTypeFromBuffer } from 'file-type';
+import sharp from 'sharp';
+
+export const maxUploadBytes = 15 * 1024 * 1024;
+export const maxInputPixels = 50_000_000;
+const longestSide = 2048;
+const thumbLongestSide = 480;
+
+const accepted = new Set(['image/jpeg', 'image/png', 'image/webp']);
+
+export type PhotoRefusalCode = 'too-large' | 'heic' | 'svg' | 'unsupported-type' | 'too-many-pixels' | 'damaged';
+
+export const refusalMessages: Record<PhotoRefusalCode, string> = {
+	'too-large':
+		'This file is larger than 15 MB. Please send a smaller photo — most phones offer a smaller size when sharing.',
+	heic:
+		'This photo is in HEIC format, which Tackline cannot read. Please send it as a JPEG: on an iPhone, choose ' +
+		'Settings → Camera → Formats → Most Compatible for new photos, or export an existing photo as JPEG before uploading.',
+	svg: 'SVG drawings cannot be used as photos. Please send a JPEG, PNG or WebP image.',
+	'unsupported-type': 'This file is not a JPEG, PNG or WebP image. Please choose a photo in one of those formats.',
+	'too-many-pixels': 'This image has more than 50 million pixels. Please send a smaller version of it.',
+	damaged: 'This image is damaged or incomplete, so it cannot be read. Please save or export it again and retry.'
+};
+
+/** An upload refused for what it is; `code` is stable for API clients, `message` is for people. */
+export class PhotoRefused extends Error {
+	constructor(readonly code: PhotoRefusalCode) {
+		super(refusalMessages[code]);
+		this.name = 'PhotoRefused';
+	}
+}
+
+export type ProcessedPhoto = { width: number; height: number; bytes: Uint8Array; thumbBytes: Uint8Array };
+
+// Re-encoding is CPU-heavy: one image at a time on one libvips thread, so uploads never take every
+// core from the requests being served; no operation cache, since no two uploads share work.
+sharp.concurrency(1);
+sharp.cache(false);
+const maxParallel = 1;
+let running = 0;
+const waiting: (() => void)[] = [];
+
+async function oneAtATime<T>(work: () => Promise<T>): Promise<T> {
+	if (running < maxParallel) running += 1;
+	else await new Promise<void>((resolve) => waiting.push(resolve)); // the finishing job hands over its slot
+	try {
+		return await work();
+	} finally {
+		const next = waiting.shift();
+		if (next) next();
+		else running -= 1;
+	}
+}
+
+const svgStart = /^\uFEFF?\s*(<\?xml[^>]*>\s*)?(<!--[\s\S]*?-->\s*)*(<!DOCTYPE svg[^>]*>\s*)?<svg[\s>]/i;
+
+async function checkType(bytes: Uint8Array) {
+	const type = await fileTypeFromBuffer(bytes);
+	if (type && accepted.has(type.mime)) return;
+	if (type && /^image\/hei[cf]/.test(type.mime)) throw new PhotoRefused('heic');
+	const head = new TextDecoder('utf-8', { fatal: false }).decode(bytes.subarray(0, 4096));
+	if (svgStart.test(head)) throw new PhotoRefused('svg');
+	throw new PhotoRefused('unsupported-type');
+}
+
+async function reencode(bytes: Uint8Array): Promise<ProcessedPhoto> {
+	const input = () => sharp(bytes, { limitInputPixels: maxInputPixels, failOn: 'error' });
+	const { width = 0, height = 0 } = await input().metadata();
+	if (width * height > maxInputPixels) throw new PhotoRefused('too-many-pixels');
+	// No keepMetadata/withMetadata: EXIF (GPS included), XMP, IPTC and the ICC profile are all left
+	// behind, after rotate() has applied the EXIF orientation and colours are converted to sRGB.
+	const main = await input()
+		.rotate()
+		.resize({ width: longestSide, height: longestSide, fit: 'inside', withoutEnlargement: true })
+		.webp({ quality: 82 })
+		.toBuffer({ resolveWithObject: true });
+	const thumb = await sharp(main.data)
+		.resize({ width: thumbLongestSide, height: thumbLongestSide, fit: 'inside', withoutEnlargement: true })
+		.webp({ quality: 75 })
+		.toBuffer();
+	return {
+		width: main.info.width,
+		height: main.info.height,
+		bytes: new Uint8Array(main.data),
+		thumbBytes: new Uint8Array(thumb)
+	};
+}
+
+/**
+ * Checks an uploaded image by its content and re-encodes it: upright, without any metadata, at most
+ * 2048 px on its longest side, as WebP, with a 480 px thumbnail. Throws `PhotoRefused` for anything
+ * that is not a readable JPEG, PNG or WebP within the size and pixel limits.
+ */
+export async function processUpload(bytes: Uint8Array): Promise<ProcessedPhoto> {
+	if (bytes.byteLength > maxUploadBytes) throw new PhotoRefused('too-large');
+	await checkType(bytes);
+	return oneAtATime(async () => {
+		try {
+			return await reencode(bytes);
+		} catch (error) {
+			if (error instanceof PhotoRefused) throw error;
+			if (error instanceof Error && /pixel limit/i.test(error.message)) throw new PhotoRefused('too-many-pixels');
+			throw new PhotoRefused('damaged');
+		}
+	});
+}
