@@ -2,19 +2,6 @@
 // `$app/*` and `$env/*` are Kit's virtual modules: they stay unresolved and are matched by name.
 const serverArea = '^src/lib/server/(?!db/|services/)[^/]+/';
 
-// Known debts, each to be paid and its line deleted; nothing new goes here.
-// Modules that still import the app's database singleton instead of taking `db: Executor`:
-const pendingConversion = [
-	'^src/lib/server/accounts/index\\.ts$',
-	'^src/lib/server/auth/rate-limit\\.ts$',
-	'^src/lib/server/health/index\\.ts$',
-	'^src/lib/server/mail/mail\\.db\\.spec\\.ts$',
-	// builds rate-limiter-flexible's store on the app's pool: a configured client, due in services/
-	'^src/lib/server/limits/index\\.ts$'
-];
-// Folders still in an import cycle: accounts ↔ auth, mail ↔ jobs.
-const pendingCycle = '^src/lib/server/(accounts|auth|mail|jobs)$';
-
 /** @type {import('dependency-cruiser').IConfiguration} */
 module.exports = {
 	forbidden: [
@@ -30,7 +17,7 @@ module.exports = {
 			severity: 'error',
 			comment: 'Server areas call each other one way only: no cycle between their folders.',
 			scope: 'folder',
-			from: { path: '^src/lib/server/', pathNot: pendingCycle },
+			from: { path: '^src/lib/server/' },
 			to: { path: '^src/lib/server/', circular: true }
 		},
 		{
@@ -87,7 +74,7 @@ module.exports = {
 			severity: 'error',
 			comment:
 				'Domain functions receive the database handle (db: Executor) from their caller; only its type may be imported.',
-			from: { path: serverArea, pathNot: [...areaGlue(), ...pendingConversion] },
+			from: { path: serverArea, pathNot: areaGlue() },
 			to: { path: '^src/lib/server/db/index\\.ts$', dependencyTypesNot: ['type-only'] }
 		},
 		{

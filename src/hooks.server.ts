@@ -8,13 +8,14 @@ import { httpHandles } from '$lib/server/http';
 import { isDatabaseUnavailable, noteDatabaseOutage } from '$lib/server/http/outage';
 import { describeForLog, redact } from '$lib/server/http/redact';
 import { limitPublicApi } from '$lib/server/limits/handle';
+import { queueNames } from '$lib/server/jobs/names';
 import { startJobs, stopJobs } from '$lib/server/jobs/runner';
 import * as mail from '$lib/server/mail';
 
 /** Background jobs (mail and later ones) run in the app process; adapter-node's shutdown lets them finish. */
 export const init: ServerInit = async () => {
 	process.once('sveltekit:shutdown', () => void stopJobs());
-	await startJobs();
+	await startJobs({ [queueNames.mail]: mail.deliver });
 	void mail.relayStatus(); // warm the health check's cache
 };
 

@@ -1,5 +1,4 @@
 import type PgBoss from 'pg-boss';
-import * as mail from '../mail';
 import { mailRetry } from '../services/mailer';
 import { queueNames, type QueueName } from './names';
 
@@ -7,11 +6,18 @@ export type QueueDefinition = {
 	name: QueueName;
 	/** Retries, back-off, expiry and dead letter, stored with the queue and applied to every job sent to it. */
 	options: Omit<PgBoss.Queue, 'name'>;
-	/** Runs one job; a throw fails the attempt (retried per `options`). Omit for a queue nobody works. */
-	work?: (data: never) => Promise<void>;
 	/** Recurring jobs: a cron expression (UTC) and the data each run gets. */
 	cron?: { expression: string; data?: object };
 };
+
+/** Runs one job; a throw fails the attempt (retried per the queue's options). */
+export type Worker = (data: never) => Promise<void>;
+
+/**
+ * The workers, by queue. The app's `init` hook passes them in, so the areas that queue jobs and the
+ * areas that do them never import each other through this module.
+ */
+export type Workers = Partial<Record<QueueName, Worker>>;
 
 /** The one place a queue is added. A dead-letter queue must come before the queues that use it. */
 export function queueDefinitions(): QueueDefinition[] {
@@ -29,8 +35,7 @@ export function queueDefinitions(): QueueDefinition[] {
 				// with its process and is retried.
 				expireInSeconds: 120,
 				deadLetter: queueNames.mailDeadLetter
-			},
-			work: mail.deliver
+			}
 		}
 	];
 }

@@ -1,32 +1,9 @@
-import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
-import { pool } from '../db';
+import { RateLimiterRes } from 'rate-limiter-flexible';
+import { rateLimiter } from '../services/rate-limiter';
 import * as rules from './constants';
 import type { LimitRule } from './constants';
 
 export * from './constants';
-
-/** Created by a migration (drizzle/), so no limiter creates it at run time. */
-const tableName = 'rate_limit';
-
-const limiters = new Map<string, RateLimiterPostgres>();
-
-function limiter(name: string, rule: LimitRule) {
-	let found = limiters.get(name);
-	if (!found) {
-		found = new RateLimiterPostgres({
-			storeClient: pool,
-			tableName,
-			tableCreated: true,
-			keyPrefix: name,
-			points: rule.points,
-			duration: rule.duration,
-			// One limiter sweeps rows that expired over an hour ago, every five minutes.
-			clearExpiredByTimeout: limiters.size === 0
-		});
-		limiters.set(name, found);
-	}
-	return found;
-}
 
 export type Gate = { allowed: true } | { allowed: false; retryAfterSeconds: number };
 
@@ -34,7 +11,7 @@ const allowed: Gate = { allowed: true };
 
 /** Takes one point from every key in one atomic step per key; refused when any key is over its limit. */
 async function consume(checks: { name: string; rule: LimitRule; key: string }[]): Promise<Gate> {
-	const outcomes = await Promise.allSettled(checks.map((c) => limiter(c.name, c.rule).consume(c.key)));
+	const outcomes = await Promise.allSettled(checks.map((c) => rateLimiter(c.name, c.rule).consume(c.key)));
 	let retryAfterMs = 0;
 	for (const outcome of outcomes) {
 		if (outcome.status === 'fulfilled') continue;
@@ -47,7 +24,7 @@ async function consume(checks: { name: string; rule: LimitRule; key: string }[])
 }
 
 async function forget(name: string, rule: LimitRule, key: string) {
-	await limiter(name, rule).delete(key);
+	await rateLimiter(name, rule).delete(key);
 }
 
 const normalise = (email: string) => email.trim().toLowerCase();

@@ -1,7 +1,8 @@
 import { sql } from 'drizzle-orm';
 import { randomUUID } from 'node:crypto';
-import { describe, expect, it } from 'vitest';
-import { db } from '../db';
+import PgBoss from 'pg-boss';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createDb } from '../db/client';
 import { queueNames } from '../jobs';
 import * as mail from '.';
 
@@ -12,7 +13,17 @@ async function jobsTo(address: string) {
 	return result.rows;
 }
 
-// Runs against the server's database while its mail worker runs.
+// The integration setup gives this file its own copy of the demo database and no server, so nothing
+// works the queue here; pg-boss's schema and the mail queue are made once, as the app's start would.
+const { db, pool } = createDb(process.env.DATABASE_URL!, { max: 2 });
+afterAll(() => pool.end());
+beforeAll(async () => {
+	const boss = new PgBoss({ connectionString: process.env.DATABASE_URL!, supervise: false, schedule: false });
+	await boss.start();
+	await boss.createQueue(queueNames.mail);
+	await boss.stop({ graceful: false, wait: true });
+});
+
 describe('mail.queue', () => {
 	it('writes nothing when the caller’s transaction rolls back', async () => {
 		const to = `rolled-back.${randomUUID()}@example.test`;
