@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { baseUrl, newClient, signIn, signUp, uniqueEmail } from './http';
+import { baseUrl, newClient, openLink, postSignUp, signIn, signUp, uniqueEmail } from './http';
 import { linkIn, mailTo, settledMailTo, subjects, waitForMail } from './inbox';
 
 const demoCustomer = 'customer@tackline.test';
@@ -156,6 +156,26 @@ describe('rate limits', () => {
 		expect(
 			(await fetch(`${baseUrl}/api/v1/health`, { headers: { 'x-forwarded-for': newClient().address } })).status
 		).not.toBe(429);
+	});
+});
+
+describe('an address someone else signed up with first', () => {
+	it('keeps no password of theirs once the owner signs in through a link', async () => {
+		const email = uniqueEmail('squatted');
+		const squatter = { email, role: 'customer' as const, password: 'squatter chose these words' };
+		expect((await postSignUp(newClient(), squatter)).headers.get('location')).toBe('/sign-up?sent=1');
+		const unsolicited = await waitForMail(email, { subject: subjects.confirm });
+		expect(unsolicited.text).toContain('If you did not make a Tackline account, do not open the link');
+
+		const owner = newClient();
+		expect((await owner.post('/sign-in?/magicLink', { email })).status).toBe(200);
+		const link = await waitForMail(email, { subject: subjects.signInLink });
+		expect((await openLink(owner, linkIn(link))).status).toBe(302);
+		expect((await owner.get('/account')).status).toBe(200);
+
+		const retry = await signIn(newClient(), email, squatter.password);
+		expect(retry.status).toBe(400);
+		expect(await retry.text()).toContain('Incorrect email or password');
 	});
 });
 

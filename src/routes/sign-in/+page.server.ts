@@ -84,6 +84,7 @@ export const actions: Actions = {
 			});
 		}
 		const redirectTo = safeRedirectTarget(parsed.data.redirectTo, '/sign-in/continue');
+		await accounts.forgetUnconfirmedPassword(event.locals.db, { email });
 		try {
 			await callAuthSignIn(event, { providerId: 'nodemailer', email, redirectTo });
 		} catch (error) {

@@ -1,4 +1,4 @@
-import { and, desc, eq, gt, ilike, lt, or, sql, type SQL } from 'drizzle-orm';
+import { and, desc, eq, gt, ilike, isNull, lt, or, sql, type SQL } from 'drizzle-orm';
 import type { Executor } from '../db';
 import { session, user, type LengthUnit, type UserRole } from '../db/schema';
 import * as mail from '../mail';
@@ -81,6 +81,19 @@ export async function register(
 	});
 }
 
+/**
+ * Asked from the sign-in page for an address nobody has confirmed yet: whoever asks does not use the
+ * password given at sign-up, so it is dropped. Otherwise someone who signed up first with another
+ * person's address would hold a working password once the real owner confirms it through a link.
+ * The same statement runs whether or not the address has an account.
+ */
+export async function forgetUnconfirmedPassword(db: Executor, { email }: { email: string }) {
+	await db
+		.update(user)
+		.set({ passwordHash: null })
+		.where(and(sql`lower(${user.email}) = ${email.toLowerCase()}`, isNull(user.emailVerified)));
+}
+
 /** Decides what a requested sign-in link mail says; the same amount of work whoever asked. */
 export async function mailSignInLink(
 	db: Executor,
@@ -91,7 +104,7 @@ export async function mailSignInLink(
 		? noAccountMail(email, origin)
 		: found.suspendedAt
 			? suspendedAccountMail(email)
-			: found.emailVerified
+			: found.emailVerified || !found.passwordHash
 				? signInLinkMail(email, url)
 				: confirmAddressMail(email, url);
 	await mail.queue(db, message);

@@ -24,12 +24,20 @@ export function signInLinkMail(to: string, url: string): Mail {
 
 /** A new account's first link: opening it confirms the address and signs the person in. */
 export function confirmAddressMail(to: string, url: string): Mail {
-	return linkMail(
+	const mail = linkMail(
 		to,
 		'Your Tackline confirmation link',
 		'Welcome to Tackline. Confirm your email address and sign in with this link',
 		url
 	);
+	// Opening this link also confirms the password chosen at sign-up; someone else may have chosen it.
+	const notYou =
+		'If you did not make a Tackline account, do not open the link. To use Tackline with this address, ask for a sign-in link on the sign-in page instead: that removes any password someone else set.';
+	return {
+		...mail,
+		text: mail.text.replace('\n\n— Tackline', `\n\n${notYou}\n\n— Tackline`),
+		html: mail.html?.replace('<p>— Tackline</p>', `<p>${notYou}</p><p>— Tackline</p>`)
+	};
 }
 
 export function noAccountMail(to: string, origin: string): Mail {
