@@ -6,7 +6,7 @@ test.use({ timezoneId: 'America/Sao_Paulo', extraHTTPHeaders: { 'x-forwarded-for
 test.setTimeout(90_000);
 
 test('a new account starts in the browser’s time zone, and its first save works', async ({ page }) => {
-	await signUp(page, 'customer', uniqueEmail('zone'), 'a long enough password');
+	await signUp(page, 'customer', uniqueEmail('zone'), 'amber thimbles fold quietly');
 	await page.goto('/account');
 
 	const zone = page.getByLabel('Time zone');

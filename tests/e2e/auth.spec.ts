@@ -1,19 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-
-async function confirmationLink(email: string) {
-	const deadline = Date.now() + 15_000;
-	while (Date.now() < deadline) {
-		const response = await fetch(`${process.env.MAIL_INBOX_URL}/messages?to=${encodeURIComponent(email)}`);
-		const mails: { subject: string; text: string }[] = await response.json();
-		const mail = mails.find((m) => m.subject === 'Your Tackline confirmation link');
-		if (mail) {
-			const link = new URL(/https?:\/\/\S+/.exec(mail.text)![0]);
-			return link.pathname + link.search;
-		}
-		await new Promise((r) => setTimeout(r, 100));
-	}
-	throw new Error(`no confirmation mail for ${email}`);
-}
+import { confirmationLink } from './helpers';
 
 async function linkMailsToCustomer() {
 	const response = await fetch(`${process.env.MAIL_INBOX_URL}/messages?to=customer%40tackline.test`);

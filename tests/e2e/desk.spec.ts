@@ -11,7 +11,7 @@ test('the desk suspends with a reason, reinstates only after a confirmation, and
 }) => {
 	const email = uniqueEmail('bending');
 	const member = await browser.newPage({ extraHTTPHeaders: { 'x-forwarded-for': '198.19.0.23' } });
-	await signUp(member, 'tailor', email, 'bends the rules');
+	await signUp(member, 'tailor', email, 'lantern ferries bend nine rules');
 	await member.close();
 
 	await signInWithPassword(page, 'admin@tackline.test', 'tackline-demo');

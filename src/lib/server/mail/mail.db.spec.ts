@@ -1,7 +1,7 @@
 import { sql } from 'drizzle-orm';
 import { randomUUID } from 'node:crypto';
 import PgBoss from 'pg-boss';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { createDb } from '../db/client';
 import { queueNames } from '../jobs';
 import * as mail from '.';
@@ -12,6 +12,9 @@ async function jobsTo(address: string) {
 	);
 	return result.rows;
 }
+
+// Kit's env module is fixed when vitest starts; this file's database is chosen by the setup after that.
+vi.mock('$env/dynamic/private', () => ({ env: process.env }));
 
 // The integration setup gives this file its own copy of the demo database and no server, so nothing
 // works the queue here; pg-boss's schema and the mail queue are made once, as the app's start would.
