@@ -95,7 +95,7 @@ test('a customer is kept out of the tailor workroom', async ({ page }) => {
 	await expect(page.getByRole('link', { name: 'Back to the home page' })).toBeVisible();
 });
 
-test('the admin reaches the resolution desk', async ({ page }) => {
+test('the admin reaches the desk', async ({ page }) => {
 	await signInWithPassword(page, 'admin@tackline.test', 'tackline-demo');
 	await expect(page).toHaveURL(/\/desk$/);
 	await expect(page.getByRole('heading', { level: 1 })).toBeVisible();
