@@ -1,20 +1,11 @@
 import { z } from 'zod';
-import { BodyError, kilobytes, mediaType, readLimited } from './http/body';
+import { BodyError, hasControlCharacters, kilobytes, mediaType, readLimited } from './http/body';
 
 export type FieldErrors = Record<string, string[] | undefined> & { form?: string[] };
 
 export type Parsed<T> = { ok: true; data: T } | { ok: false; errors: FieldErrors };
 
-/** NUL and the other C0 controls (and DEL) have no place in typed text; PostgreSQL refuses NUL outright. */
-// eslint-disable-next-line no-control-regex -- matching control characters is the point
-const controlsExceptLineBreaks = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F]/;
-// eslint-disable-next-line no-control-regex -- as above
-const anyControl = /[\u0000-\u001F\u007F]/;
 export const controlCharacterMessage = 'Remove the invisible control characters from this field.';
-
-export function hasControlCharacters(value: string, options: { multiline?: boolean } = {}) {
-	return (options.multiline ? controlsExceptLineBreaks : anyControl).test(value);
-}
 
 /** The one builder for free-text fields: trimmed, bounded, and free of control characters. */
 export function text(options: { max: number; min?: number; multiline?: boolean; tooShort?: string; tooLong?: string }) {

@@ -77,3 +77,13 @@ export async function readLimited(request: Request, limit: number): Promise<Uint
 	}
 	return bytes;
 }
+
+/** NUL and the other C0 controls (and DEL) have no place in typed text; PostgreSQL refuses NUL outright. */
+// eslint-disable-next-line no-control-regex -- matching control characters is the point
+const controlsExceptLineBreaks = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F]/;
+// eslint-disable-next-line no-control-regex -- as above
+const anyControl = /[\u0000-\u001F\u007F]/;
+
+export function hasControlCharacters(value: string, options: { multiline?: boolean } = {}) {
+	return (options.multiline ? controlsExceptLineBreaks : anyControl).test(value);
+}

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import type { z } from 'zod';
-import { BodyError, kilobytes, mediaType, readLimited } from './body';
+import { BodyError, hasControlCharacters, kilobytes, mediaType, readLimited } from './body';
 
 export type ApiIssue = { path: string; message: string };
 
@@ -26,19 +26,17 @@ export function invalidInput(error: z.ZodError) {
 /** Drafting requests are a few kilobytes; anything much larger is not a garment. */
 export const defaultJsonLimit = kilobytes(32);
 
-// eslint-disable-next-line no-control-regex -- matching control characters is the point
-const controlCharacters = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F]/;
-
 /** Paths of strings carrying control characters (NUL and friends), which no field accepts. */
 function controlCharacterIssues(value: unknown, path: string[] = [], found: ApiIssue[] = []): ApiIssue[] {
 	if (found.length >= 20) return found;
 	if (typeof value === 'string') {
-		if (controlCharacters.test(value)) found.push({ path: path.join('.'), message: 'Contains control characters.' });
+		if (hasControlCharacters(value, { multiline: true }))
+			found.push({ path: path.join('.'), message: 'Contains control characters.' });
 	} else if (Array.isArray(value)) {
 		value.forEach((item, i) => controlCharacterIssues(item, [...path, String(i)], found));
 	} else if (value && typeof value === 'object') {
 		for (const [key, item] of Object.entries(value)) {
-			if (controlCharacters.test(key))
+			if (hasControlCharacters(key, { multiline: true }))
 				found.push({ path: [...path, key].join('.'), message: 'Contains control characters.' });
 			controlCharacterIssues(item, [...path, key], found);
 		}
