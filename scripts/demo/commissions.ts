@@ -1,4 +1,5 @@
-import type { MeasurementSnapshot, NewCommission } from '../../src/lib/server/db/schema';
+import { getTemplate, sizeBand, type GarmentId } from '../../src/lib/drafting';
+import type { NewCommission } from '../../src/lib/server/db/schema';
 import { city, coarse, currency, districts, type DistrictKey } from './city';
 import { demoId } from './ids';
 import type { demoMeasurementProfiles, ProfileKey } from './measurements';
@@ -9,7 +10,7 @@ type Profiles = ReturnType<typeof demoMeasurementProfiles>;
 
 type DemoCommission = Pick<
 	NewCommission,
-	'garmentType' | 'title' | 'styleNotes' | 'sizeBand' | 'fabricSource' | 'fabricNotes' | 'handover'
+	'garmentType' | 'title' | 'styleNotes' | 'fabricSource' | 'fabricNotes' | 'handover'
 > & {
 	n: number;
 	customer: string;
@@ -31,7 +32,6 @@ const demoCommissionList: DemoCommission[] = [
 		title: 'High-waisted wide-leg trousers in washed linen',
 		styleNotes:
 			'Sitting at the natural waist, two front pleats, side-seam pockets and a flat waistband with a concealed side zip. Full length, just brushing the floor in flat shoes.',
-		sizeBand: 'waist 72–76 cm, hip 98–102 cm',
 		fabricSource: 'tailor_sources',
 		fabricNotes: 'Mid-weight washed linen in sand or olive, no stretch.',
 		budget: [12000, 18000],
@@ -48,7 +48,6 @@ const demoCommissionList: DemoCommission[] = [
 		title: 'Concert tunic for my son',
 		styleNotes:
 			'Plain hip-length tunic with long sleeves and a low stand collar for a school concert. It closes with a short button placket at the neck: no drawstring or cord at the neck or hem, please. He is fourteen.',
-		sizeBand: 'chest 80–84 cm, hip 84–88 cm',
 		fabricSource: 'customer_supplies',
 		fabricNotes: '2 m of navy cotton drill, 150 cm wide, already washed.',
 		budget: [6000, 9000],
@@ -64,7 +63,6 @@ const demoCommissionList: DemoCommission[] = [
 		garmentType: 'straight-skirt',
 		title: 'Straight skirt for work',
 		styleNotes: 'Knee length with a back vent. Still deciding on the fabric.',
-		sizeBand: null,
 		fabricSource: 'tailor_sources',
 		fabricNotes: '',
 		budget: [8000, 12000],
@@ -80,7 +78,6 @@ const demoCommissionList: DemoCommission[] = [
 		title: 'Sleeveless shift dress for a summer wedding',
 		styleNotes:
 			'Bateau neckline, darted bodice, hem just below the knee. Fully lined, invisible zip at the centre back.',
-		sizeBand: 'bust 100–104 cm, hip 106–110 cm',
 		fabricSource: 'tailor_sources',
 		fabricNotes: 'Silk-cotton voile in a deep teal or marigold; lining in cotton lawn.',
 		budget: [20000, 32000],
@@ -96,7 +93,6 @@ const demoCommissionList: DemoCommission[] = [
 		garmentType: 'wide-leg-trousers',
 		title: 'Relaxed wide-leg trousers in wool flannel',
 		styleNotes: 'Mid rise, single pleat, turn-ups of about 4 cm. Belt loops and a button fly.',
-		sizeBand: 'waist 84–88 cm, hip 98–102 cm',
 		fabricSource: 'customer_supplies',
 		fabricNotes: '3 m of mid-grey wool flannel, 148 cm wide.',
 		budget: [15000, 22000],
@@ -112,7 +108,6 @@ const demoCommissionList: DemoCommission[] = [
 		garmentType: 'a-line-skirt',
 		title: 'Midi A-line skirt with deep pockets',
 		styleNotes: 'Mid-calf length, wide waistband, pockets deep enough for a phone.',
-		sizeBand: 'waist 66–70 cm, hip 92–96 cm',
 		fabricSource: 'tailor_sources',
 		fabricNotes: 'Needlecord in rust or bottle green.',
 		budget: [9000, 14000],
@@ -128,7 +123,6 @@ const demoCommissionList: DemoCommission[] = [
 		garmentType: 'cropped-top',
 		title: 'Boxy cropped top to go with the skirt',
 		styleNotes: 'Short boxy top ending at the waistband, grown-on sleeves, buttons down the back.',
-		sizeBand: 'bust 84–88 cm',
 		fabricSource: 'customer_supplies',
 		fabricNotes: 'About 80 cm of needlecord left over from the skirt, 140 cm wide.',
 		budget: [5000, 8000],
@@ -138,17 +132,36 @@ const demoCommissionList: DemoCommission[] = [
 	}
 ];
 
-function snapshotOf(profile: Profiles[ProfileKey]): MeasurementSnapshot {
-	return {
-		profileId: profile.id,
-		label: profile.label,
-		valuesMm: profile.valuesMm ?? {},
-		takenBy: profile.takenBy,
-		takenAt: profile.takenAt?.toISOString() ?? null
-	};
+/** What publishing writes beside each posted commission: the frozen measurements and the size band. */
+export function demoCommissionMeasurements(profiles: Profiles) {
+	return demoCommissionList
+		.filter((c) => c.postedDaysAgo !== undefined)
+		.map((c) => {
+			const profile = profiles[c.profile];
+			const commissionId = demoId('commission', c.n);
+			const valuesMm = profile.valuesMm ?? {};
+			const band = sizeBand(valuesMm, getTemplate(c.garmentType as GarmentId).category);
+			return {
+				snapshot: {
+					commissionId,
+					profileId: profile.id,
+					label: profile.label,
+					valuesMm,
+					takenBy: profile.takenBy,
+					takenAt: profile.takenAt ?? null
+				},
+				band: (band?.dimensions ?? []).map((d, i) => ({
+					commissionId,
+					dimension: d.code,
+					position: i + 1,
+					lowerMm: Math.round(d.minCm * 10),
+					upperMm: Math.round(d.maxCm * 10)
+				}))
+			};
+		});
 }
 
-export function demoCommissions(profiles: Profiles, now: Date): NewCommission[] {
+export function demoCommissions(now: Date): NewCommission[] {
 	return demoCommissionList.map((c) => {
 		const { n, customer, profile, district, budget, neededInDays, postedDaysAgo, ...rest } = c;
 		const place = districts[district];
@@ -157,7 +170,6 @@ export function demoCommissions(profiles: Profiles, now: Date): NewCommission[] 
 			...rest,
 			id: demoId('commission', n),
 			customerId: personId(customer),
-			measurementSnapshot: posted ? snapshotOf(profiles[profile]) : null,
 			budgetMinMinor: budget[0],
 			budgetMaxMinor: budget[1],
 			currency,

@@ -2,8 +2,16 @@
 import { eq } from 'drizzle-orm';
 import { hashPassword } from '../../src/lib/server/accounts/password';
 import type { Database } from '../../src/lib/server/db/client';
-import { commission, measurementProfile, quote, tailorProfile, user } from '../../src/lib/server/db/schema';
-import { demoCommissions } from './commissions';
+import {
+	commission,
+	commissionMeasurements,
+	commissionSizeBand,
+	measurementProfile,
+	quote,
+	tailorProfile,
+	user
+} from '../../src/lib/server/db/schema';
+import { demoCommissionMeasurements, demoCommissions } from './commissions';
 import { demoMeasurementProfiles } from './measurements';
 import { adminEmail, demoPassword, demoUsers } from './people';
 import { demoQuotes } from './quotes';
@@ -25,7 +33,16 @@ export async function seedDemo(db: Database): Promise<SeedResult> {
 		await tx.insert(user).values(demoUsers(passwordHash, now)).onConflictDoNothing();
 		await tx.insert(tailorProfile).values(demoTailorProfiles()).onConflictDoNothing();
 		await tx.insert(measurementProfile).values(Object.values(profiles)).onConflictDoNothing();
-		await tx.insert(commission).values(demoCommissions(profiles, now)).onConflictDoNothing();
+		await tx.insert(commission).values(demoCommissions(now)).onConflictDoNothing();
+		const posted = demoCommissionMeasurements(profiles);
+		await tx
+			.insert(commissionMeasurements)
+			.values(posted.map((p) => p.snapshot))
+			.onConflictDoNothing();
+		await tx
+			.insert(commissionSizeBand)
+			.values(posted.flatMap((p) => p.band))
+			.onConflictDoNothing();
 		await tx.insert(quote).values(demoQuotes(now)).onConflictDoNothing();
 	});
 	return 'seeded';

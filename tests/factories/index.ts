@@ -7,6 +7,8 @@ import { hash } from '@node-rs/argon2';
 import type { Executor } from '../../src/lib/server/db/client';
 import {
 	commission,
+	commissionMeasurements,
+	commissionSizeBand,
 	tailorProfile,
 	user,
 	type CommissionStatus,
@@ -92,7 +94,7 @@ export async function createWorkroom(
 	return { ...tailor, shopName, slug };
 }
 
-/** Posted commissions carry a measurement snapshot and a publication time, as the schema requires. */
+/** Posted commissions carry a measurements snapshot, a size band and a publication time, as publishing writes them. */
 const postedStatuses: CommissionStatus[] = ['open', 'awarded', 'closed', 'expired'];
 
 /** A commission in any status; without `customerId` a new customer is made for it. */
@@ -109,7 +111,6 @@ export async function createCommission(
 		.insert(commission)
 		.values({
 			garmentType: 'straight-skirt',
-			sizeBand: 'waist 72–76 cm, hip 98–102 cm',
 			budgetMinMinor: 6000,
 			budgetMaxMinor: 9000,
 			currency: place.currency,
@@ -117,15 +118,6 @@ export async function createCommission(
 			district: place.district,
 			approxLat: 46.85,
 			approxLng: 3.21,
-			measurementSnapshot: posted
-				? {
-						profileId: null,
-						label: 'Measured for a test',
-						valuesMm: { waist_girth: 740, hip_girth: 1000 },
-						takenBy: 'self',
-						takenAt: null
-					}
-				: null,
 			publishedAt: posted ? new Date() : null,
 			...fields,
 			title,
@@ -133,5 +125,16 @@ export async function createCommission(
 			status
 		})
 		.returning({ id: commission.id });
+	if (posted) {
+		await db.insert(commissionMeasurements).values({
+			commissionId: row.id,
+			label: 'Measured for a test',
+			valuesMm: { waist_girth: 740, hip_girth: 1000 }
+		});
+		await db.insert(commissionSizeBand).values([
+			{ commissionId: row.id, dimension: 'waist_girth', position: 1, lowerMm: 720, upperMm: 760 },
+			{ commissionId: row.id, dimension: 'hip_girth', position: 2, lowerMm: 980, upperMm: 1020 }
+		]);
+	}
 	return { id: row.id, customerId, status, title };
 }

@@ -31,3 +31,4 @@ export function garmentName(id: string) {
 }
 
 export { formatMoney, formatMoneyRange } from './money';
+export { formatSizeBand, type SizeBandRange } from './size-band';

@@ -64,7 +64,7 @@ export async function register(
 				role: input.role,
 				timeZone: input.timeZone
 			})
-			.onConflictDoNothing({ target: user.email })
+			.onConflictDoNothing()
 			.returning({ id: user.id });
 		if (!created) {
 			await mail.queue(tx, accountExistsMail(input.email, origin));

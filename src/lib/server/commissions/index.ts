@@ -1,6 +1,7 @@
 import { desc, eq, sql } from 'drizzle-orm';
 import type { Executor } from '../db';
-import { commission, quote } from '../db/schema';
+import { commission, commissionSizeBand, quote } from '../db/schema';
+import type { SizeBandRange } from '$lib/format/size-band';
 
 export async function listForCustomer(db: Executor, { customerId }: { customerId: string }) {
 	return db
@@ -27,7 +28,10 @@ export async function listOpen(db: Executor, { limit = 20 }: { limit?: number } 
 			id: commission.id,
 			title: commission.title,
 			garmentType: commission.garmentType,
-			sizeBand: commission.sizeBand,
+			sizeBand: sql<SizeBandRange[]>`coalesce((
+				select json_agg(json_build_object('dimension', b.dimension, 'lowerMm', b.lower_mm, 'upperMm', b.upper_mm) order by b.position)
+				from ${commissionSizeBand} b where b.commission_id = ${commission.id}
+			), '[]'::json)`,
 			city: commission.city,
 			district: commission.district,
 			dateNeeded: commission.dateNeeded,

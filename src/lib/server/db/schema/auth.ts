@@ -8,6 +8,7 @@ import {
 	primaryKey,
 	text,
 	timestamp,
+	uniqueIndex,
 	uuid,
 	varchar
 } from 'drizzle-orm/pg-core';
@@ -36,7 +37,8 @@ export const user = pgTable(
 	},
 	(t) => [
 		index('user_role_idx').on(t.role),
-		index('user_email_lower_idx').on(sql`lower(${t.email})`),
+		// One account per address whatever its case: lookups go through lower(email).
+		uniqueIndex('user_email_lower_uq').on(sql`lower(${t.email})`),
 		index('user_created_idx').on(t.createdAt, t.id)
 	]
 );

@@ -9,12 +9,13 @@ import {
 	jsonb,
 	pgEnum,
 	pgTable,
+	primaryKey,
 	text,
 	uuid
 } from 'drizzle-orm/pg-core';
 import { id, createdAt, updatedAt, instant } from './columns';
-import { user } from './auth';
-import type { MeasurementTaker, MeasurementValuesMm } from './measurements';
+import { lengthUnit, user } from './auth';
+import { measurementProfile, measurementTaker, type MeasurementValuesMm } from './measurements';
 
 export const fabricSource = pgEnum('fabric_source', ['customer_supplies', 'tailor_sources']);
 export const handover = pgEnum('handover', ['pickup', 'delivery']);
@@ -27,16 +28,6 @@ export const commissionStatus = pgEnum('commission_status', [
 	'expired'
 ]);
 
-/** The measurements as they were when the commission was posted; later profile edits do not touch it. */
-export type MeasurementSnapshot = {
-	/** The profile it was copied from, kept for reference only (the profile may be edited or deleted). */
-	profileId: string | null;
-	label: string;
-	valuesMm: MeasurementValuesMm;
-	takenBy: MeasurementTaker;
-	takenAt: string | null;
-};
-
 export const commission = pgTable(
 	'commission',
 	{
@@ -47,17 +38,22 @@ export const commission = pgTable(
 			.references(() => user.id, { onDelete: 'cascade' }),
 		/** Garment type id from the catalogue in code. */
 		garmentType: text('garment_type').notNull(),
+		/** What the customer calls the garment when `garment_type` is `other`. */
+		garmentOther: text('garment_other').notNull().default(''),
+		/** The profile chosen while drafting; publishing copies it into `commission_measurements`. */
+		measurementProfileId: uuid('measurement_profile_id').references(() => measurementProfile.id, {
+			onDelete: 'set null'
+		}),
 		title: text('title').notNull(),
 		styleNotes: text('style_notes').notNull().default(''),
-		measurementSnapshot: jsonb('measurement_snapshot').$type<MeasurementSnapshot>(),
-		/** What quoting tailors see instead of the measurements, e.g. "bust 92–96 cm, hip 98–102 cm". */
-		sizeBand: text('size_band'),
 		fabricSource: fabricSource('fabric_source').notNull().default('tailor_sources'),
 		fabricNotes: text('fabric_notes').notNull().default(''),
 		budgetMinMinor: integer('budget_min_minor'),
 		budgetMaxMinor: integer('budget_max_minor'),
 		currency: char('currency', { length: 3 }).notNull(),
 		dateNeeded: date('date_needed', { mode: 'string' }),
+		/** ISO 3166-1 alpha-2 of the chosen place. */
+		countryCode: char('country_code', { length: 2 }),
 		city: text('city'),
 		district: text('district'),
 		/** Already coarsened (about a kilometre); the exact address is never stored here. */
@@ -66,6 +62,8 @@ export const commission = pgTable(
 		handover: handover('handover').notNull().default('pickup'),
 		status: commissionStatus('status').notNull().default('draft'),
 		publishedAt: instant('published_at'),
+		/** When an open commission with no accepted quote lapses to `expired`; set on publish. */
+		expiresAt: instant('expires_at'),
 		createdAt: createdAt(),
 		updatedAt: updatedAt()
 	},
@@ -79,12 +77,16 @@ export const commission = pgTable(
 			.on(t.approxLat, t.approxLng)
 			.where(sql`${t.status} = 'open'`),
 		index('commission_customer_idx').on(t.customerId, t.createdAt),
+		index('commission_open_expiry_idx')
+			.on(t.expiresAt)
+			.where(sql`${t.status} = 'open'`),
 		check('commission_currency_iso', sql`${t.currency} ~ '^[A-Z]{3}$'`),
 		check('commission_budget_min_nonnegative', sql`${t.budgetMinMinor} >= 0`),
 		check('commission_budget_order', sql`${t.budgetMinMinor} <= ${t.budgetMaxMinor}`),
+		// Publishing writes the measurements snapshot and the size band in the same transaction.
 		check(
-			'commission_posted_has_snapshot',
-			sql`${t.status} in ('draft', 'cancelled') or (${t.measurementSnapshot} is not null and ${t.publishedAt} is not null)`
+			'commission_posted_has_published_at',
+			sql`${t.status} in ('draft', 'cancelled') or ${t.publishedAt} is not null`
 		)
 	]
 );
@@ -106,6 +108,9 @@ export const commissionPhoto = pgTable(
 		bytes: integer('bytes').notNull(),
 		width: integer('width').notNull(),
 		height: integer('height').notNull(),
+		/** The 480 px re-encoded copy. */
+		thumbKey: text('thumb_key').unique(),
+		altText: text('alt_text').notNull().default(''),
 		sortOrder: integer('sort_order').notNull().default(0),
 		createdAt: createdAt()
 	},
@@ -116,3 +121,47 @@ export const commissionPhoto = pgTable(
 );
 export type CommissionPhoto = typeof commissionPhoto.$inferSelect;
 export type NewCommissionPhoto = typeof commissionPhoto.$inferInsert;
+
+/**
+ * The measurements as they were when the commission was published; later profile edits do not touch it.
+ * Kept off the listing row so that only queries made for permitted readers ever load it.
+ */
+export const commissionMeasurements = pgTable('commission_measurements', {
+	commissionId: uuid('commission_id')
+		.primaryKey()
+		.references(() => commission.id, { onDelete: 'cascade' }),
+	/** The profile it was copied from, for reference only (the profile may be edited or deleted). */
+	profileId: uuid('profile_id'),
+	label: text('label').notNull(),
+	unit: lengthUnit('unit').notNull().default('cm'),
+	valuesMm: jsonb('values_mm').$type<MeasurementValuesMm>().notNull(),
+	takenBy: measurementTaker('taken_by').notNull().default('self'),
+	takenAt: instant('taken_at'),
+	createdAt: createdAt()
+});
+export type CommissionMeasurements = typeof commissionMeasurements.$inferSelect;
+
+/**
+ * What quoting tailors see instead of the measurements: per control dimension (EN 13402-3), the band of
+ * body girths the wearer falls in, lower bound inclusive, upper exclusive, in millimetres.
+ */
+export const commissionSizeBand = pgTable(
+	'commission_size_band',
+	{
+		commissionId: uuid('commission_id')
+			.notNull()
+			.references(() => commission.id, { onDelete: 'cascade' }),
+		/** Measurement code: `bust_girth`, `waist_girth`, `hip_girth`. */
+		dimension: text('dimension').notNull(),
+		/** 1 for the primary dimension, 2 for the secondary. */
+		position: integer('position').notNull(),
+		lowerMm: integer('lower_mm').notNull(),
+		upperMm: integer('upper_mm').notNull()
+	},
+	(t) => [
+		primaryKey({ columns: [t.commissionId, t.dimension] }),
+		index('commission_size_band_dimension_idx').on(t.dimension, t.lowerMm),
+		check('commission_size_band_order', sql`${t.lowerMm} < ${t.upperMm}`)
+	]
+);
+export type CommissionSizeBand = typeof commissionSizeBand.$inferSelect;

@@ -1,7 +1,7 @@
 import { sql } from 'drizzle-orm';
 import { check, jsonb, pgEnum, pgTable, text, unique, uuid } from 'drizzle-orm/pg-core';
 import { id, createdAt, updatedAt, instant } from './columns';
-import { user } from './auth';
+import { lengthUnit, user } from './auth';
 
 /** Who took the measurements: the wearer alone, someone helping them, or a tailor. */
 export const measurementTaker = pgEnum('measurement_taker', ['self', 'companion', 'tailor']);
@@ -21,6 +21,8 @@ export const measurementProfile = pgTable(
 			.notNull()
 			.references(() => user.id, { onDelete: 'cascade' }),
 		label: text('label').notNull(),
+		/** The unit the owner reads and types the values in; storage is always millimetres. */
+		unit: lengthUnit('unit').notNull().default('cm'),
 		valuesMm: jsonb('values_mm').$type<MeasurementValuesMm>().notNull().default({}),
 		takenBy: measurementTaker('taken_by').notNull().default('self'),
 		takenAt: instant('taken_at'),

@@ -1,6 +1,18 @@
 import { sql } from 'drizzle-orm';
-import { boolean, check, doublePrecision, index, integer, pgEnum, pgTable, text, uuid } from 'drizzle-orm/pg-core';
-import { id, createdAt, updatedAt } from './columns';
+import {
+	boolean,
+	char,
+	check,
+	doublePrecision,
+	index,
+	integer,
+	jsonb,
+	pgEnum,
+	pgTable,
+	text,
+	uuid
+} from 'drizzle-orm/pg-core';
+import { id, createdAt, updatedAt, instant } from './columns';
 import { user } from './auth';
 
 /** State of the tailor's connected payout account at the payment provider. */
@@ -21,12 +33,25 @@ export const tailorProfile = pgTable(
 			.array()
 			.notNull()
 			.default(sql`'{}'::text[]`),
+		/** ISO 3166-1 alpha-2 of the workroom's place. */
+		countryCode: char('country_code', { length: 2 }),
 		city: text('city').notNull(),
 		district: text('district'),
 		lat: doublePrecision('lat').notNull(),
 		lng: doublePrecision('lng').notNull(),
 		serviceRadiusKm: integer('service_radius_km').notNull().default(10),
 		leadTimeDays: integer('lead_time_days').notNull().default(14),
+		/** Typical lead time per garment id, in days; `lead_time_days` covers garments not listed. */
+		leadTimes: jsonb('lead_times').$type<Record<string, number>>().notNull().default({}),
+		/** The quote helper's rates: labour per hour in minor units of `rate_currency`. */
+		hourlyRateMinor: integer('hourly_rate_minor'),
+		rateCurrency: char('rate_currency', { length: 3 }),
+		/** Default labour hours per garment id (decimals allowed: hours are not money). */
+		labourHours: jsonb('labour_hours').$type<Record<string, number>>().notNull().default({}),
+		/** Mark-up on fabric the workroom sources, in whole percent. */
+		fabricMarkupPercent: integer('fabric_markup_percent').notNull().default(0),
+		/** Set when every onboarding step is done; quoting needs it. Cleared if a required step is undone. */
+		onboardedAt: instant('onboarded_at'),
 		/** How many orders the workroom takes on at once. */
 		capacity: integer('capacity').notNull().default(3),
 		payoutAccountId: text('payout_account_id').unique(),
@@ -48,13 +73,17 @@ export const tailorProfile = pgTable(
 		check('tailor_profile_lead_time_nonnegative', sql`${t.leadTimeDays} >= 0`),
 		check('tailor_profile_capacity_positive', sql`${t.capacity} > 0`),
 		check('tailor_profile_rating_range', sql`${t.ratingAverageHundredths} between 0 and 500`),
-		check('tailor_profile_rating_count_nonnegative', sql`${t.ratingCount} >= 0`)
+		check('tailor_profile_rating_count_nonnegative', sql`${t.ratingCount} >= 0`),
+		check('tailor_profile_rate_positive', sql`${t.hourlyRateMinor} > 0`),
+		check('tailor_profile_rate_currency_iso', sql`${t.rateCurrency} ~ '^[A-Z]{3}$'`),
+		check('tailor_profile_markup_range', sql`${t.fabricMarkupPercent} between 0 and 500`)
 	]
 );
 export type TailorProfile = typeof tailorProfile.$inferSelect;
 export type NewTailorProfile = typeof tailorProfile.$inferInsert;
 export type PayoutStatus = (typeof payoutStatus.enumValues)[number];
 
+/** One piece of work in a workroom's portfolio: a caption and its photos (`portfolio_photo`). */
 export const portfolioItem = pgTable(
 	'portfolio_item',
 	{
@@ -62,7 +91,6 @@ export const portfolioItem = pgTable(
 		tailorId: uuid('tailor_id')
 			.notNull()
 			.references(() => tailorProfile.userId, { onDelete: 'cascade' }),
-		storageKey: text('storage_key').notNull().unique(),
 		caption: text('caption').notNull().default(''),
 		garmentType: text('garment_type'),
 		sortOrder: integer('sort_order').notNull().default(0),
@@ -72,3 +100,29 @@ export const portfolioItem = pgTable(
 );
 export type PortfolioItem = typeof portfolioItem.$inferSelect;
 export type NewPortfolioItem = typeof portfolioItem.$inferInsert;
+
+export const portfolioPhoto = pgTable(
+	'portfolio_photo',
+	{
+		id: id(),
+		itemId: uuid('item_id')
+			.notNull()
+			.references(() => portfolioItem.id, { onDelete: 'cascade' }),
+		storageKey: text('storage_key').notNull().unique(),
+		/** The 480 px re-encoded copy. */
+		thumbKey: text('thumb_key').notNull().unique(),
+		contentType: text('content_type').notNull(),
+		bytes: integer('bytes').notNull(),
+		width: integer('width').notNull(),
+		height: integer('height').notNull(),
+		altText: text('alt_text').notNull().default(''),
+		sortOrder: integer('sort_order').notNull().default(0),
+		createdAt: createdAt()
+	},
+	(t) => [
+		index('portfolio_photo_item_idx').on(t.itemId, t.sortOrder),
+		check('portfolio_photo_size_positive', sql`${t.bytes} > 0 and ${t.width} > 0 and ${t.height} > 0`)
+	]
+);
+export type PortfolioPhoto = typeof portfolioPhoto.$inferSelect;
+export type NewPortfolioPhoto = typeof portfolioPhoto.$inferInsert;
