@@ -18,7 +18,4 @@ export const districts = {
 
 export type DistrictKey = keyof typeof districts;
 
-/** Customers' places are shown to others at about a kilometre's precision. */
-export function coarse(value: number): number {
-	return Math.round(value * 100) / 100;
-}
+export { coarsen } from '../../src/lib/geo/coarsen';

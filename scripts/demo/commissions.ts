@@ -1,6 +1,6 @@
 import { getTemplate, sizeBand, type GarmentId } from '../../src/lib/drafting';
 import type { NewCommission } from '../../src/lib/server/db/schema';
-import { city, coarse, currency, districts, type DistrictKey } from './city';
+import { city, coarsen, currency, districts, type DistrictKey } from './city';
 import { demoId } from './ids';
 import type { demoMeasurementProfiles, ProfileKey } from './measurements';
 import { personId } from './people';
@@ -176,8 +176,8 @@ export function demoCommissions(now: Date): NewCommission[] {
 			dateNeeded: dateFrom(now, neededInDays),
 			city,
 			district: place.name,
-			approxLat: coarse(place.lat),
-			approxLng: coarse(place.lng),
+			approxLat: coarsen(place).lat,
+			approxLng: coarsen(place).lng,
 			status: posted ? 'open' : 'draft',
 			publishedAt: posted ? daysFrom(now, -postedDaysAgo) : null
 		};

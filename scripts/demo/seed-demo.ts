@@ -2,6 +2,7 @@
 import { eq } from 'drizzle-orm';
 import { hashPassword } from '../../src/lib/server/accounts/password';
 import type { Database } from '../../src/lib/server/db/client';
+import { addLocalPlaces } from '../../src/lib/server/places';
 import {
 	commission,
 	commissionMeasurements,
@@ -14,6 +15,7 @@ import {
 import { demoCommissionMeasurements, demoCommissions } from './commissions';
 import { demoMeasurementProfiles } from './measurements';
 import { adminEmail, demoPassword, demoUsers } from './people';
+import { demoPlaces } from './places';
 import { demoQuotes } from './quotes';
 import { demoTailorProfiles } from './tailors';
 
@@ -30,6 +32,7 @@ export async function seedDemo(db: Database): Promise<SeedResult> {
 	const profiles = demoMeasurementProfiles(now);
 
 	await db.transaction(async (tx) => {
+		await addLocalPlaces(tx, demoPlaces());
 		await tx.insert(user).values(demoUsers(passwordHash, now)).onConflictDoNothing();
 		await tx.insert(tailorProfile).values(demoTailorProfiles()).onConflictDoNothing();
 		await tx.insert(measurementProfile).values(Object.values(profiles)).onConflictDoNothing();

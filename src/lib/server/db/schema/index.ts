@@ -9,3 +9,4 @@ export * from './disputes';
 export * from './ledger';
 export * from './reviews';
 export * from './audit';
+export * from './places';
