@@ -3,6 +3,9 @@
  * architecture rules, unit tests, integration tests (each file on its own copy of a seeded template
  * database, with its own built server) and browser tests in Debian's Chromium.
  * Ends with one line `N passed, N failed` (the totals CI reads) and a non-zero exit on any failure.
+ *
+ * `npm test -- <paths…>` runs only the named test files or folders (unit, integration and browser alike)
+ * and skips the static checks: for focused work, never for CI.
  */
 import { execFileSync, spawn } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
@@ -24,6 +27,9 @@ import {
 } from './lib/local';
 
 type Tally = { suite: string; passed: number; failed: number; note?: string };
+const only = process.argv.slice(2).filter((arg) => !arg.startsWith('-'));
+const browserOnly = only.filter((path) => path.startsWith('tests/e2e'));
+const vitestOnly = only.filter((path) => !path.startsWith('tests/e2e'));
 const tallies: Tally[] = [];
 const bin = (name: string) => join(root, 'node_modules/.bin', name);
 const work = mkdtempSync(join(tmpdir(), 'tackline-test-'));
@@ -60,7 +66,9 @@ async function vitestSuite(suite: string, project: string, env: Record<string, s
 	const out = join(work, `${project}.json`);
 	const code = await run(
 		bin('vitest'),
-		['run', '--project', project, '--reporter=default', '--reporter=json', `--outputFile.json=${out}`],
+		['run', '--project', project, '--reporter=default', '--reporter=json', `--outputFile.json=${out}`].concat(
+			only.length ? ['--passWithNoTests', ...vitestOnly] : []
+		),
 		env
 	);
 	const report = readJson<{ numPassedTests: number; numFailedTests: number; numTotalTests: number }>(out);
@@ -72,7 +80,7 @@ async function vitestSuite(suite: string, project: string, env: Record<string, s
 
 async function playwrightSuite(env: Record<string, string>) {
 	const out = join(work, 'playwright.json');
-	const code = await run(bin('playwright'), ['test', '--reporter=list,json'], {
+	const code = await run(bin('playwright'), ['test', '--reporter=list,json', ...browserOnly], {
 		...env,
 		PLAYWRIGHT_JSON_OUTPUT_NAME: out
 	});
@@ -112,20 +120,22 @@ async function main() {
 		MAIL_RETRY_DELAY_SECONDS: '1'
 	};
 
-	for (const [suite, script] of [
+	const staticChecks = [
 		['type check', 'check'],
 		['formatting', 'lint'],
 		['lint', 'lint:eslint'],
 		['architecture', 'check:architecture']
-	]) {
+	];
+	for (const [suite, script] of only.length ? [] : staticChecks) {
 		const code = await run('npm', ['run', '--silent', script]);
 		tallies.push({ suite, passed: code === 0 ? 1 : 0, failed: code === 0 ? 0 : 1 });
 	}
 
-	await vitestSuite('unit', 'unit', env);
+	if (!only.length || vitestOnly.length) await vitestSuite('unit', 'unit', env);
 
 	await buildIfNeeded({ force: true, devTools: true });
-	await vitestSuite('integration', 'integration', env);
+	if (!only.length || vitestOnly.length) await vitestSuite('integration', 'integration', env);
+	if (only.length && !browserOnly.length) return;
 
 	const browserDatabase = await copyDatabase(database.url, 'browser');
 	cleanups.unshift(() => dropDatabase(browserDatabase));
