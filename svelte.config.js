@@ -1,7 +1,8 @@
 import adapter from '@sveltejs/adapter-node';
 import { vitePreprocess } from '@sveltejs/vite-plugin-svelte';
 
-const nodeAdapter = adapter({ out: 'build' });
+// Static files ship with .br and .gz beside them; adapter-node picks one by Accept-Encoding.
+const nodeAdapter = adapter({ out: 'build', precompress: true });
 
 /**
  * adapter-node with our own entry in place of its build/index.js (server/index.js): the protective headers

@@ -10,9 +10,12 @@ function isRecentLinkSignIn(session: { signedInWith?: string; signedInAt?: numbe
 	);
 }
 
+/** Auth.js's session cookie (`__Secure-` over https, `.0`, `.1`… when chunked); without one there is no session. */
+const sessionCookie = 'authjs.session-token';
+
 /**
- * Re-reads the user row and the session row on every request, so a role change, a suspension or an
- * ended session bites at once.
+ * Re-reads the user row and the session row on every request that carries a session cookie, so a role
+ * change, a suspension or an ended session bites at once. A request without one is anonymous as it stands.
  */
 export const loadUser: Handle = async ({ event, resolve }) => {
 	event.locals.user = null;
@@ -20,6 +23,7 @@ export const loadUser: Handle = async ({ event, resolve }) => {
 	event.locals.suspended = false;
 	event.locals.guarded = false;
 	event.locals.recentLinkSignIn = false;
+	if (!event.request.headers.get('cookie')?.includes(sessionCookie)) return resolve(event);
 	const session = await event.locals.auth();
 	const id = session?.user?.id;
 	if (id) {

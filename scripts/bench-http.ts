@@ -1,0 +1,264 @@
+/**
+ * `npm run bench:http`: the built app beside two yardsticks (a bare node:http page and a node:http + pg
+ * keyset list on the same database), each loaded in short interleaved slices with autocannon, the order
+ * reversed every other round. Prints per scenario the medians over rounds of req/s, p50, p99 and CPU per
+ * request (server process, and PostgreSQL's backends), and the median of per-round ratios to the keyset
+ * list. Absolute figures swing on a shared machine; the ratios are what to compare.
+ *
+ * Options: --rounds N (5), --seconds S per slice (3), --connections C (50), --only REGEX (scenario names;
+ * the keyset baseline always runs), --profile (the app runs under `node --cpu-prof`; a summary follows).
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
+import { chmodSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { parseArgs } from 'node:util';
+import { startStandins } from '../docker/standins';
+import { demoPassword } from './demo/people';
+import { slice, type Slice } from './bench/load';
+import { summariseProfile } from './bench/profile';
+import { baselineName, demoAccounts, scenarios, type Scenario, type Target } from './bench/scenarios';
+import { median, table } from './bench/stats';
+import {
+	buildIfNeeded,
+	freePort,
+	log,
+	migrateAndSeed,
+	root,
+	startDatabase,
+	startServer,
+	waitForHealth
+} from './lib/local';
+
+const { values: options } = parseArgs({
+	options: {
+		rounds: { type: 'string', default: '5' },
+		seconds: { type: 'string', default: '3' },
+		connections: { type: 'string', default: '50' },
+		only: { type: 'string' },
+		profile: { type: 'boolean', default: false }
+	}
+});
+const rounds = Number(options.rounds);
+const seconds = Number(options.seconds);
+const connections = Number(options.connections);
+
+const work = mkdtempSync(join(tmpdir(), 'tackline-bench-'));
+chmodSync(work, 0o755); // the postgres user must be able to enter it
+const profileDir = join(work, 'profile');
+const cleanups: (() => unknown)[] = [];
+
+function exited(child: ChildProcess, timeoutMs: number) {
+	if (child.exitCode !== null || child.signalCode !== null) return Promise.resolve();
+	return new Promise<void>((resolve) => {
+		const timer = setTimeout(resolve, timeoutMs);
+		child.once('exit', () => {
+			clearTimeout(timer);
+			resolve();
+		});
+	});
+}
+
+async function stop(child: ChildProcess, timeoutMs = 10_000) {
+	child.kill('SIGTERM');
+	await exited(child, timeoutMs);
+	if (child.exitCode === null && child.signalCode === null) child.kill('SIGKILL');
+}
+
+async function waitForAnswer(url: string, timeoutMs = 30_000) {
+	const deadline = Date.now() + timeoutMs;
+	while (Date.now() < deadline) {
+		try {
+			if ((await fetch(url)).ok) return;
+		} catch {
+			// not listening yet
+		}
+		await new Promise((r) => setTimeout(r, 200));
+	}
+	throw new Error(`${url} did not answer within ${timeoutMs / 1000} s`);
+}
+
+function startBaseline(kind: 'bare' | 'keyset', port: number, databaseUrl: string) {
+	return spawn(
+		process.execPath,
+		['--import', 'tsx', 'scripts/bench/baseline-server.ts', kind, String(port), databaseUrl],
+		{
+			cwd: root,
+			stdio: ['ignore', 'ignore', 'inherit']
+		}
+	);
+}
+
+/** Signs a demo account in through the password form and answers its cookie header. */
+async function signIn(baseUrl: string, email: string) {
+	const response = await fetch(`${baseUrl}/sign-in?/password`, {
+		method: 'POST',
+		headers: { origin: baseUrl, 'content-type': 'application/x-www-form-urlencoded', 'x-forwarded-for': '198.19.0.1' },
+		body: new URLSearchParams({ email, password: demoPassword }),
+		redirect: 'manual'
+	});
+	const cookie = response.headers
+		.getSetCookie()
+		.map((header) => header.split(';')[0])
+		.filter((pair) => !pair.endsWith('='))
+		.join('; ');
+	if (!cookie.includes('session-token')) throw new Error(`signing in ${email} failed (${response.status})`);
+	return cookie;
+}
+
+type Run = { scenario: Scenario; url: string; headers: Record<string, string>; body?: string; slices: Slice[] };
+
+async function main() {
+	const database = await startDatabase({
+		dataDir: join(work, 'pg', 'data'),
+		port: await freePort(),
+		user: 'tackline',
+		password: randomBytes(16).toString('hex'),
+		database: 'tackline_bench',
+		throwaway: true
+	});
+	cleanups.push(() => database.stop());
+	await migrateAndSeed(database.url, { seed: true });
+	const postmasterPid = Number(readFileSync(join(work, 'pg', 'data', 'postmaster.pid'), 'utf8').split('\n')[0]);
+	const standins = await startStandins({ smtp: await freePort(), mailApi: await freePort() });
+	cleanups.unshift(() => standins.stop());
+	await buildIfNeeded({ devTools: false });
+
+	const ports: Record<Target, number> = { app: await freePort(), bare: await freePort(), keyset: await freePort() };
+	const appUrl = `http://localhost:${ports.app}`;
+	if (options.profile) mkdirSync(profileDir);
+	const app = startServer(
+		{
+			...standins.env,
+			DATABASE_URL: database.url,
+			AUTH_SECRET: randomBytes(32).toString('base64url'),
+			AUTH_TRUST_HOST: 'true',
+			ORIGIN: appUrl,
+			PORT: String(ports.app),
+			HOST: '127.0.0.1',
+			ADDRESS_HEADER: 'x-forwarded-for'
+		},
+		process.execPath,
+		options.profile ? ['--cpu-prof', `--cpu-prof-dir=${profileDir}`, 'build'] : ['build']
+	);
+	cleanups.unshift(() => stop(app, 30_000));
+	const bare = startBaseline('bare', ports.bare, database.url);
+	cleanups.unshift(() => stop(bare));
+	const keyset = startBaseline('keyset', ports.keyset, database.url);
+	cleanups.unshift(() => stop(keyset));
+	await waitForHealth(appUrl);
+	await waitForAnswer(`http://127.0.0.1:${ports.bare}/`);
+	await waitForAnswer(`http://127.0.0.1:${ports.keyset}/`);
+	const pids: Record<Target, number> = { app: app.pid!, bare: bare.pid!, keyset: keyset.pid! };
+
+	const cookies = {
+		customer: await signIn(appUrl, demoAccounts.customer),
+		tailor: await signIn(appUrl, demoAccounts.tailor)
+	};
+	const only = options.only ? new RegExp(options.only, 'i') : null;
+	const runs: Run[] = [];
+	for (const scenario of scenarios) {
+		if (only && scenario.name !== baselineName && !only.test(scenario.name)) continue;
+		const base = scenario.target === 'app' ? appUrl : `http://127.0.0.1:${ports[scenario.target]}`;
+		const headers: Record<string, string> = { origin: base, accept: 'text/html,application/json' };
+		if (scenario.as) headers.cookie = cookies[scenario.as];
+		if (scenario.body !== undefined) headers['content-type'] = 'application/json';
+		const run: Run = { scenario, url: base + scenario.path, headers, slices: [] };
+		if (scenario.body !== undefined) run.body = JSON.stringify(scenario.body);
+		const probe = await fetch(run.url, {
+			method: scenario.method ?? 'GET',
+			headers,
+			body: run.body,
+			redirect: 'manual'
+		});
+		await probe.arrayBuffer();
+		if (probe.status === 404 && scenario.optional) {
+			log(`skipping "${scenario.name}": ${scenario.path} answers 404`);
+			continue;
+		}
+		if (probe.status !== (scenario.status ?? 200)) log(`warning: "${scenario.name}" answers ${probe.status}`);
+		runs.push(run);
+	}
+
+	const load = (run: Run, secondsPerSlice: number) =>
+		slice({
+			url: run.url,
+			method: run.scenario.method ?? 'GET',
+			headers: run.headers,
+			body: run.body,
+			connections,
+			seconds: secondsPerSlice,
+			serverPid: pids[run.scenario.target],
+			postmasterPid,
+			status: run.scenario.status ?? 200
+		});
+
+	log(`warming up ${runs.length} scenarios…`);
+	for (const run of runs) await load(run, 1);
+	for (let round = 0; round < rounds; round++) {
+		log(`round ${round + 1} of ${rounds}`);
+		const order = round % 2 ? [...runs].reverse() : runs;
+		for (const run of order) run.slices.push(await load(run, seconds));
+	}
+
+	report(runs);
+	// Requests cut off by the last slice may still be running in the app: let them end before it stops.
+	await new Promise((r) => setTimeout(r, 3000));
+	if (options.profile) {
+		await stop(app, 30_000);
+		for (const file of readdirSync(profileDir))
+			console.log(`\nCPU profile of the app (${file}):\n${summariseProfile(join(profileDir, file))}`);
+	}
+}
+
+function report(runs: Run[]) {
+	const baseline = runs.find((r) => r.scenario.name === baselineName)!;
+	const figure = (value: number, digits = 0) => (Number.isFinite(value) ? value.toFixed(digits) : '—');
+	const rows = [['scenario', 'req/s', 'p50 ms', 'p99 ms', 'server µs/req', 'db µs/req', '× keyset', 'failed']];
+	for (const run of runs) {
+		const ratios = run.slices.map((s, round) => s.requestsPerSecond / baseline.slices[round].requestsPerSecond);
+		const failures = run.slices.reduce((sum, s) => sum + s.failures, 0);
+		const requests = run.slices.reduce((sum, s) => sum + s.requests, 0);
+		rows.push([
+			run.scenario.name,
+			figure(median(run.slices.map((s) => s.requestsPerSecond))),
+			figure(median(run.slices.map((s) => s.p50))),
+			figure(median(run.slices.map((s) => s.p99))),
+			figure(median(run.slices.map((s) => s.serverCpuMicrosPerRequest))),
+			figure(median(run.slices.map((s) => s.databaseCpuMicrosPerRequest))),
+			figure(median(ratios), 2),
+			failures ? `${((100 * failures) / Math.max(1, requests)).toFixed(0)} %` : '0'
+		]);
+	}
+	console.log(
+		`\nTackline HTTP bench — ${rounds} rounds of ${seconds} s slices, ${connections} connections, Node ${process.version}\n` +
+			'(medians over rounds; "× keyset" is the median of per-round req/s ratios to the keyset list)\n'
+	);
+	console.log(table(rows));
+	const odd = runs.filter((r) => r.slices.some((s) => s.failures));
+	for (const run of odd) {
+		const codes: Record<string, number> = {};
+		for (const s of run.slices)
+			for (const [code, n] of Object.entries(s.statusCodes)) codes[code] = (codes[code] ?? 0) + n;
+		console.log(`  ${run.scenario.name}: status codes ${JSON.stringify(codes)}`);
+	}
+}
+
+let failed = false;
+try {
+	await main();
+} catch (error) {
+	failed = true;
+	console.error(error);
+} finally {
+	for (const cleanup of cleanups) {
+		try {
+			await cleanup();
+		} catch (error) {
+			console.error('cleanup failed:', error);
+		}
+	}
+	rmSync(work, { recursive: true, force: true });
+}
+process.exit(failed ? 1 : 0);
