@@ -8,28 +8,17 @@
  * Options: --rounds N (5), --seconds S per slice (3), --connections C (50), --only REGEX (scenario names;
  * the keyset baseline always runs), --profile (the app runs under `node --cpu-prof`; a summary follows).
  */
-import { spawn, type ChildProcess } from 'node:child_process';
-import { randomBytes } from 'node:crypto';
-import { chmodSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { spawn } from 'node:child_process';
+import { mkdtempSync, readdirSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { parseArgs } from 'node:util';
-import { startStandins } from '../docker/standins';
-import { demoPassword } from './demo/people';
+import { startBenchEnvironment, signIn, stopChild, waitForAnswer } from './bench/environment';
 import { slice, type Slice } from './bench/load';
 import { summariseProfile } from './bench/profile';
 import { baselineName, demoAccounts, scenarios, type Scenario, type Target } from './bench/scenarios';
 import { median, table } from './bench/stats';
-import {
-	buildIfNeeded,
-	freePort,
-	log,
-	migrateAndSeed,
-	root,
-	startDatabase,
-	startServer,
-	waitForHealth
-} from './lib/local';
+import { freePort, log, root } from './lib/local';
 
 const { values: options } = parseArgs({
 	options: {
@@ -44,41 +33,6 @@ const rounds = Number(options.rounds);
 const seconds = Number(options.seconds);
 const connections = Number(options.connections);
 
-const work = mkdtempSync(join(tmpdir(), 'tackline-bench-'));
-chmodSync(work, 0o755); // the postgres user must be able to enter it
-const profileDir = join(work, 'profile');
-const cleanups: (() => unknown)[] = [];
-
-function exited(child: ChildProcess, timeoutMs: number) {
-	if (child.exitCode !== null || child.signalCode !== null) return Promise.resolve();
-	return new Promise<void>((resolve) => {
-		const timer = setTimeout(resolve, timeoutMs);
-		child.once('exit', () => {
-			clearTimeout(timer);
-			resolve();
-		});
-	});
-}
-
-async function stop(child: ChildProcess, timeoutMs = 10_000) {
-	child.kill('SIGTERM');
-	await exited(child, timeoutMs);
-	if (child.exitCode === null && child.signalCode === null) child.kill('SIGKILL');
-}
-
-async function waitForAnswer(url: string, timeoutMs = 30_000) {
-	const deadline = Date.now() + timeoutMs;
-	while (Date.now() < deadline) {
-		try {
-			if ((await fetch(url)).ok) return;
-		} catch {
-			// not listening yet
-		}
-		await new Promise((r) => setTimeout(r, 200));
-	}
-	throw new Error(`${url} did not answer within ${timeoutMs / 1000} s`);
-}
-
 function startBaseline(kind: 'bare' | 'keyset', port: number, databaseUrl: string) {
 	return spawn(
 		process.execPath,
@@ -90,64 +44,19 @@ function startBaseline(kind: 'bare' | 'keyset', port: number, databaseUrl: strin
 	);
 }
 
-/** Signs a demo account in through the password form and answers its cookie header. */
-async function signIn(baseUrl: string, email: string) {
-	const response = await fetch(`${baseUrl}/sign-in?/password`, {
-		method: 'POST',
-		headers: { origin: baseUrl, 'content-type': 'application/x-www-form-urlencoded', 'x-forwarded-for': '198.19.0.1' },
-		body: new URLSearchParams({ email, password: demoPassword }),
-		redirect: 'manual'
-	});
-	const cookie = response.headers
-		.getSetCookie()
-		.map((header) => header.split(';')[0])
-		.filter((pair) => !pair.endsWith('='))
-		.join('; ');
-	if (!cookie.includes('session-token')) throw new Error(`signing in ${email} failed (${response.status})`);
-	return cookie;
-}
-
 type Run = { scenario: Scenario; url: string; headers: Record<string, string>; body?: string; slices: Slice[] };
 
-async function main() {
-	const database = await startDatabase({
-		dataDir: join(work, 'pg', 'data'),
-		port: await freePort(),
-		user: 'tackline',
-		password: randomBytes(16).toString('hex'),
-		database: 'tackline_bench',
-		throwaway: true
+async function main(profileDir: string | null) {
+	const environment = await startBenchEnvironment({
+		nodeArgs: profileDir ? ['--cpu-prof', `--cpu-prof-dir=${profileDir}`] : []
 	});
-	cleanups.push(() => database.stop());
-	await migrateAndSeed(database.url, { seed: true });
-	const postmasterPid = Number(readFileSync(join(work, 'pg', 'data', 'postmaster.pid'), 'utf8').split('\n')[0]);
-	const standins = await startStandins({ smtp: await freePort(), mailApi: await freePort() });
-	cleanups.unshift(() => standins.stop());
-	await buildIfNeeded({ devTools: false });
-
-	const ports: Record<Target, number> = { app: await freePort(), bare: await freePort(), keyset: await freePort() };
-	const appUrl = `http://localhost:${ports.app}`;
-	if (options.profile) mkdirSync(profileDir);
-	const app = startServer(
-		{
-			...standins.env,
-			DATABASE_URL: database.url,
-			AUTH_SECRET: randomBytes(32).toString('base64url'),
-			AUTH_TRUST_HOST: 'true',
-			ORIGIN: appUrl,
-			PORT: String(ports.app),
-			HOST: '127.0.0.1',
-			ADDRESS_HEADER: 'x-forwarded-for'
-		},
-		process.execPath,
-		options.profile ? ['--cpu-prof', `--cpu-prof-dir=${profileDir}`, 'build'] : ['build']
-	);
-	cleanups.unshift(() => stop(app, 30_000));
-	const bare = startBaseline('bare', ports.bare, database.url);
-	cleanups.unshift(() => stop(bare));
-	const keyset = startBaseline('keyset', ports.keyset, database.url);
-	cleanups.unshift(() => stop(keyset));
-	await waitForHealth(appUrl);
+	cleanups.push(environment.stop);
+	const { app, appUrl, databaseUrl, postmasterPid } = environment;
+	const ports = { bare: await freePort(), keyset: await freePort() };
+	const bare = startBaseline('bare', ports.bare, databaseUrl);
+	cleanups.unshift(() => stopChild(bare));
+	const keyset = startBaseline('keyset', ports.keyset, databaseUrl);
+	cleanups.unshift(() => stopChild(keyset));
 	await waitForAnswer(`http://127.0.0.1:${ports.bare}/`);
 	await waitForAnswer(`http://127.0.0.1:${ports.keyset}/`);
 	const pids: Record<Target, number> = { app: app.pid!, bare: bare.pid!, keyset: keyset.pid! };
@@ -205,8 +114,8 @@ async function main() {
 	report(runs);
 	// Requests cut off by the last slice may still be running in the app: let them end before it stops.
 	await new Promise((r) => setTimeout(r, 3000));
-	if (options.profile) {
-		await stop(app, 30_000);
+	if (profileDir) {
+		await stopChild(app, 30_000);
 		for (const file of readdirSync(profileDir))
 			console.log(`\nCPU profile of the app (${file}):\n${summariseProfile(join(profileDir, file))}`);
 	}
@@ -245,9 +154,12 @@ function report(runs: Run[]) {
 	}
 }
 
+const cleanups: (() => unknown)[] = [];
 let failed = false;
 try {
-	await main();
+	const profileDir = options.profile ? mkdtempSync(join(tmpdir(), 'tackline-profile-')) : null;
+	if (profileDir) cleanups.push(() => rmSync(profileDir, { recursive: true, force: true }));
+	await main(profileDir);
 } catch (error) {
 	failed = true;
 	console.error(error);
@@ -259,6 +171,5 @@ try {
 			console.error('cleanup failed:', error);
 		}
 	}
-	rmSync(work, { recursive: true, force: true });
 }
 process.exit(failed ? 1 : 0);
