@@ -18,7 +18,7 @@ import { slice, type Slice } from './bench/load';
 import { summariseProfile } from './bench/profile';
 import { baselineName, demoAccounts, scenarios, type Scenario, type Target } from './bench/scenarios';
 import { median, table } from './bench/stats';
-import { freePort, log, root } from './lib/local';
+import { freePort, log, root, runCleanups } from './lib/local';
 
 const { values: options } = parseArgs({
 	options: {
@@ -164,12 +164,6 @@ try {
 	failed = true;
 	console.error(error);
 } finally {
-	for (const cleanup of cleanups) {
-		try {
-			await cleanup();
-		} catch (error) {
-			console.error('cleanup failed:', error);
-		}
-	}
+	await runCleanups(cleanups);
 }
 process.exit(failed ? 1 : 0);

@@ -9,6 +9,7 @@ import lighthouse from 'lighthouse';
 import { signIn, startBenchEnvironment } from './bench/environment';
 import { demoAccounts } from './bench/scenarios';
 import { table } from './bench/stats';
+import { chromiumFlags, chromiumPath } from './lib/chromium';
 import { log } from './lib/local';
 
 type Page = { name: string; path: string; as?: keyof typeof demoAccounts };
@@ -21,20 +22,13 @@ const pages: Page[] = [
 	{ name: 'workroom (tailor)', path: '/workroom', as: 'tailor' }
 ];
 
-const chromeFlags = [
-	'--headless=new',
-	'--no-sandbox',
-	'--disable-gpu',
-	'--disable-background-networking',
-	'--disable-component-update',
-	'--disable-sync',
-	'--no-first-run'
-];
-
 type Audit = { numericValue?: number; details?: { items?: { resourceType?: string; transferSize?: number }[] } };
 
 const environment = await startBenchEnvironment();
-const chrome = await chromeLauncher.launch({ chromePath: '/usr/bin/chromium', chromeFlags });
+const chrome = await chromeLauncher.launch({
+	chromePath: chromiumPath,
+	chromeFlags: ['--headless=new', ...chromiumFlags]
+});
 let failed = false;
 try {
 	const rows = [['page', 'performance', 'accessibility', 'best practices', 'FCP ms', 'LCP ms', 'TBT ms', 'script KB']];
@@ -71,6 +65,7 @@ try {
 			const weighs = audit.scoreDisplayMode === 'binary' || audit.scoreDisplayMode === 'numeric';
 			if (weighs && audit.score !== null && audit.score < 0.9 && !id.includes('paint') && id !== 'total-blocking-time')
 				log(`  ${page.name}: ${id} — ${audit.title}${audit.displayValue ? ` (${audit.displayValue})` : ''}`);
+			if (id === 'inspector-issues' && audit.score === 0) log(`    ${JSON.stringify(audit.details).slice(0, 600)}`);
 		}
 	}
 	console.log(`\nTackline pages under Lighthouse (mobile, Node ${process.version})\n`);

@@ -17,6 +17,7 @@ import {
 	log,
 	migrateAndSeed,
 	root,
+	runCleanups,
 	startDatabase,
 	startServer,
 	stopProcess,
@@ -151,13 +152,7 @@ try {
 	crashed = true;
 	console.error(error);
 } finally {
-	for (const cleanup of cleanups) {
-		try {
-			await cleanup();
-		} catch (error) {
-			console.error('cleanup failed:', error);
-		}
-	}
+	await runCleanups(cleanups);
 	rmSync(work, { recursive: true, force: true });
 }
 

@@ -9,7 +9,15 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { startStandins } from '../../docker/standins';
 import { demoPassword } from '../demo/people';
-import { buildIfNeeded, freePort, migrateAndSeed, startDatabase, startServer, waitForHealth } from '../lib/local';
+import {
+	buildIfNeeded,
+	freePort,
+	migrateAndSeed,
+	runCleanups,
+	startDatabase,
+	startServer,
+	waitForHealth
+} from '../lib/local';
 
 function exited(child: ChildProcess, timeoutMs: number) {
 	if (child.exitCode !== null || child.signalCode !== null) return Promise.resolve();
@@ -63,15 +71,7 @@ export async function startBenchEnvironment(options: { nodeArgs?: string[] } = {
 	const work = mkdtempSync(join(tmpdir(), 'tackline-bench-'));
 	chmodSync(work, 0o755); // the postgres user must be able to enter it
 	const cleanups: (() => unknown)[] = [() => rmSync(work, { recursive: true, force: true })];
-	const stop = async () => {
-		for (const cleanup of cleanups) {
-			try {
-				await cleanup();
-			} catch (error) {
-				console.error('cleanup failed:', error);
-			}
-		}
-	};
+	const stop = () => runCleanups(cleanups);
 	try {
 		const database = await startDatabase({
 			dataDir: join(work, 'pg', 'data'),
