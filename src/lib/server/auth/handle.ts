@@ -1,4 +1,5 @@
 import type { Handle } from '@sveltejs/kit';
+import { env } from '$env/dynamic/private';
 import * as accounts from '../accounts';
 import { SIGN_IN_LINK_LIFETIME_SECONDS } from '../limits/constants';
 import { readSessionToken, sessionCookieName } from './session-token';
@@ -23,7 +24,7 @@ export const loadUser: Handle = async ({ event, resolve }) => {
 	event.locals.recentLinkSignIn = false;
 	const cookies = event.request.headers.get('cookie');
 	if (!cookies?.includes(sessionCookieName)) return resolve(event);
-	const token = await readSessionToken(cookies, { secure: event.url.protocol === 'https:' });
+	const token = await readSessionToken(cookies, { secure: event.url.protocol === 'https:', secret: env.AUTH_SECRET });
 	const id = token?.sub;
 	if (token && id) {
 		const found = await accounts.getSessionUser(event.locals.db, { id, sessionId: token.sessionId });

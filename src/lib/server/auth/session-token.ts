@@ -1,5 +1,4 @@
 import { decode, getToken, type JWT } from '@auth/core/jwt';
-import { env } from '$env/dynamic/private';
 
 /** Auth.js's session cookie (`__Secure-` over https, `.0`, `.1`… when chunked). */
 export const sessionCookieName = 'authjs.session-token';
@@ -26,11 +25,14 @@ async function decodeOnce(params: Parameters<typeof decode>[0]) {
  * makes, without building a request for its session endpoint or re-issuing the cookie. The session
  * row it names is checked separately, on every request.
  */
-export async function readSessionToken(cookieHeader: string, { secure }: { secure: boolean }) {
+export async function readSessionToken(
+	cookieHeader: string,
+	{ secure, secret }: { secure: boolean; secret: string | undefined }
+) {
 	try {
 		return await getToken({
 			req: { headers: { cookie: cookieHeader } },
-			secret: env.AUTH_SECRET,
+			secret,
 			secureCookie: secure,
 			decode: decodeOnce
 		});
