@@ -1,4 +1,5 @@
 import { defineConfig, devices } from '@playwright/test';
+import { chromiumFlags, chromiumPath } from './scripts/lib/chromium';
 
 // The test harness (`npm test`) starts the built server and passes its address.
 const baseURL = process.env.TACKLINE_BASE_URL ?? 'http://localhost:3000';
@@ -22,17 +23,7 @@ export default defineConfig({
 			name: 'chromium',
 			use: {
 				...devices['Desktop Chrome'],
-				launchOptions: {
-					executablePath: '/usr/bin/chromium',
-					args: [
-						'--no-sandbox',
-						'--disable-gpu',
-						'--disable-background-networking',
-						'--disable-component-update',
-						'--disable-sync',
-						'--no-first-run'
-					]
-				}
+				launchOptions: { executablePath: chromiumPath, args: chromiumFlags }
 			}
 		}
 	]

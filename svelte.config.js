@@ -1,11 +1,13 @@
 import adapter from '@sveltejs/adapter-node';
 import { vitePreprocess } from '@sveltejs/vite-plugin-svelte';
 
-const nodeAdapter = adapter({ out: 'build' });
+// Static files ship with .br and .gz beside them; adapter-node picks one by Accept-Encoding.
+const nodeAdapter = adapter({ out: 'build', precompress: true });
 
 /**
  * adapter-node with our own entry in place of its build/index.js (server/index.js): the protective headers
- * reach static files too, which adapter-node serves before any hook runs.
+ * reach static files too, which adapter-node serves before any hook runs, and public pages are answered
+ * from memory to anyone not signed in.
  * @type {import('@sveltejs/kit').Adapter}
  */
 const nodeAdapterWithOwnEntry = {
@@ -15,6 +17,12 @@ const nodeAdapterWithOwnEntry = {
 		builder.rimraf('build/index.js.map');
 		builder.copy('server/index.js', 'build/index.js');
 		builder.copy('src/lib/server/http/protective-headers.js', 'build/protective-headers.js');
+		builder.copy('server/public-pages.js', 'build/public-pages.js');
+		// Public pages go where only our entry serves them (to requests without a session); adapter-node
+		// finds its prerendered folder empty and hands a signed-in request to SvelteKit instead.
+		builder.copy('build/prerendered', 'build/public-pages');
+		builder.rimraf('build/prerendered');
+		builder.mkdirp('build/prerendered');
 	}
 };
 

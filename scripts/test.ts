@@ -20,6 +20,7 @@ import {
 	log,
 	migrateAndSeed,
 	root,
+	runCleanups,
 	startDatabase,
 	startServer,
 	stopProcess,
@@ -161,13 +162,7 @@ try {
 	crashed = true;
 	console.error(error);
 } finally {
-	for (const cleanup of cleanups) {
-		try {
-			await cleanup();
-		} catch (error) {
-			console.error('cleanup failed:', error);
-		}
-	}
+	await runCleanups(cleanups);
 	rmSync(work, { recursive: true, force: true });
 }
 

@@ -5,10 +5,12 @@
 import http from 'node:http';
 import process from 'node:process';
 import { protectiveHeaders } from './protective-headers.js';
+import { loadPublicPages, servePublicPage } from './public-pages.js';
 
 // The largest body any request may carry. Each route reads with its own, smaller limit (forms 64 KB, JSON 32 KB).
 process.env.BODY_SIZE_LIMIT ??= '1M';
 const { handler } = await import('./handler.js');
+const publicPages = loadPublicPages(new URL('./public-pages', import.meta.url).pathname);
 
 const host = process.env.HOST ?? '0.0.0.0';
 const port = Number(process.env.PORT ?? 3000);
@@ -78,6 +80,7 @@ const server = http.createServer((req, res) => {
 		res.writeHead(403, { 'content-type': 'application/json' }).end(crossSiteBody);
 		return;
 	}
+	if (servePublicPage(publicPages, req, res)) return;
 	handler(req, res, () => {
 		res.writeHead(404, { 'content-type': 'text/plain' }).end('Not found');
 	});

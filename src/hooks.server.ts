@@ -1,5 +1,6 @@
 import { sequence } from '@sveltejs/kit/hooks';
 import type { Handle, HandleServerError, ServerInit } from '@sveltejs/kit';
+import { building } from '$app/environment';
 import { gateAreas } from '$lib/server/auth/area-gate';
 import { authEndpoints } from '$lib/server/auth/endpoints';
 import { loadUser } from '$lib/server/auth/handle';
@@ -14,6 +15,7 @@ import * as mail from '$lib/server/mail';
 
 /** Background jobs (mail and later ones) run in the app process; adapter-node's shutdown lets them finish. */
 export const init: ServerInit = async () => {
+	if (building) return; // prerendering public pages needs no database
 	process.once('sveltekit:shutdown', () => void stopJobs());
 	await startJobs({ [queueNames.mail]: mail.deliver });
 	void mail.relayStatus(); // warm the health check's cache

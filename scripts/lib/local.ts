@@ -130,3 +130,14 @@ export async function stopProcess(child: ChildProcess) {
 	child.kill('SIGTERM');
 	await Promise.race([exited, new Promise((resolveWait) => setTimeout(resolveWait, 5000))]);
 }
+
+/** Runs each clean-up in turn, reporting (not throwing) a failing one so the rest still run. */
+export async function runCleanups(cleanups: (() => unknown)[]) {
+	for (const cleanup of cleanups) {
+		try {
+			await cleanup();
+		} catch (error) {
+			console.error('cleanup failed:', error);
+		}
+	}
+}

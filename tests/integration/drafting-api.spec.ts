@@ -56,6 +56,23 @@ describe('GET /api/v1/garments', () => {
 		expect(body.error.code).toBe('invalid_input');
 		expect(issuePaths(body)).toEqual(['unit']);
 	});
+
+	it('answers the same list with a validator and a cache lifetime, and 304 when the copy is current', async () => {
+		const first = await fetch(`${baseUrl}/api/v1/garments?unit=cm`);
+		const etag = first.headers.get('etag');
+		expect(etag).toMatch(/^"[\w-]+"$/);
+		expect(first.headers.get('cache-control')).toBe('public, max-age=3600');
+		const inches = await fetch(`${baseUrl}/api/v1/garments?unit=in`);
+		expect(inches.headers.get('etag')).not.toBe(etag);
+
+		const again = await fetch(`${baseUrl}/api/v1/garments?unit=cm`, { headers: { 'if-none-match': `W/${etag}` } });
+		expect(again.status).toBe(304);
+		expect(await again.text()).toBe('');
+		expect(again.headers.get('etag')).toBe(etag);
+		const stale = await fetch(`${baseUrl}/api/v1/garments?unit=cm`, { headers: { 'if-none-match': '"old"' } });
+		expect(stale.status).toBe(200);
+		expect(await stale.json()).toEqual(await first.json());
+	});
 });
 
 describe('POST /api/v1/drafts', () => {

@@ -11,6 +11,8 @@ import { handle as authjs } from '.';
 export const authEndpoints: Handle = async ({ event, resolve }) => {
 	const { pathname } = event.url;
 	const isAuthPath = pathname === '/auth' || pathname.startsWith('/auth/');
+	// Elsewhere the session is read from its cookie (./handle.ts); Auth.js has nothing to do.
+	if (!isAuthPath) return resolve(event);
 	if (isAuthPath && event.request.method !== 'GET' && event.request.method !== 'HEAD') {
 		error(404, { message: 'Sign in on the sign-in page.', code: 'not_found' });
 	}

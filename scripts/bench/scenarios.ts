@@ -1,0 +1,46 @@
+/**
+ * What `npm run bench:http` loads, in one list. `target` says which server answers; `as` signs in a
+ * demo account first and sends its cookie; `optional` scenarios are skipped when their route answers 404
+ * (a feature not built yet).
+ */
+export type Target = 'app' | 'bare' | 'keyset';
+
+export type Scenario = {
+	name: string;
+	target: Target;
+	path: string;
+	method?: 'GET' | 'POST';
+	body?: unknown;
+	as?: 'customer' | 'tailor';
+	optional?: boolean;
+	/** The answer expected; anything else counts as a failure. */
+	status?: number;
+};
+
+/** The yardstick every ratio is taken against. */
+export const baselineName = 'keyset list (node:http + pg)';
+
+/** A trousers draft from the drafting API's own tests (inches). */
+const trousersDraft = {
+	garment: 'wide-leg-trousers',
+	unit: 'in',
+	measurements: { hip_girth: 40, waist_girth: 28, thigh_girth: 25 },
+	options: { length: 45.5 }
+};
+
+export const scenarios: Scenario[] = [
+	{ name: 'bare node:http 2 KB page', target: 'bare', path: '/' },
+	{ name: baselineName, target: 'keyset', path: '/' },
+	{ name: 'home, anonymous', target: 'app', path: '/' },
+	{ name: 'how it works, anonymous', target: 'app', path: '/how-it-works' },
+	{ name: 'draft calculator page', target: 'app', path: '/draft-calculator' },
+	{ name: 'GET /api/v1/garments', target: 'app', path: '/api/v1/garments' },
+	{ name: 'POST /api/v1/drafts', target: 'app', path: '/api/v1/drafts', method: 'POST', body: trousersDraft },
+	{ name: 'unknown /api/v1 path (404)', target: 'app', path: '/api/v1/no-such-thing', status: 404 },
+	{ name: 'customer: commissions page', target: 'app', path: '/commissions', as: 'customer' },
+	{ name: 'tailor: workroom browse page', target: 'app', path: '/workroom', as: 'tailor' },
+	{ name: 'search API', target: 'app', path: '/api/v1/search?q=linen', optional: true }
+];
+
+/** Demo accounts from scripts/demo/people.ts. */
+export const demoAccounts = { customer: 'customer@tackline.test', tailor: 'tailor@tackline.test' } as const;
