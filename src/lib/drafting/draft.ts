@@ -1,6 +1,7 @@
 import { checkMeasurements, isChildBody, type Finding } from './checks';
 import { defaultFabricSpec, estimateFabric, type FabricSpec } from './fabric';
 import { boundingBox } from './geometry';
+import { draftNestBudget, nestFabricEstimate, type NestBudget } from './marker/index';
 import type { GarmentId, MeasurementCode, Measurements } from './measurements';
 import { resolveOptions, type GivenOptions } from './options';
 import type { Caution, DraftPiece } from './pieces';
@@ -44,6 +45,8 @@ export interface FabricOut {
 	/** What rounding up to the buying step (⅛ yd or 10 cm) added (request unit). */
 	roundingAdded: number;
 	notes: string[];
+	/** The real outlines were nested on the cloth (else their boxes were packed). */
+	nested: boolean;
 }
 
 export interface DraftResponse {
@@ -70,6 +73,8 @@ export interface DraftInputMm {
 	fabric?: Partial<FabricSpec>;
 	/** The person has confirmed the numbers are in `unit`, answering a suspected unit mix-up. */
 	unitConfirmed?: boolean;
+	/** Nest the real outlines within this budget (the boxes stand if it runs out); boxes only when absent. */
+	nest?: NestBudget;
 }
 
 export const childCaution: Caution = {
@@ -127,7 +132,8 @@ export function draftGarmentMm(input: DraftInputMm): DraftResponse {
 
 	const draft = template.draft(bodyMm, resolved.options);
 	const spec = { ...defaultFabricSpec(unit), ...input.fabric };
-	const { estimate, warnings: fabricWarnings } = estimateFabric(draft.pieces, spec, unit);
+	const { estimate: boxes, warnings: fabricWarnings } = estimateFabric(draft.pieces, spec, unit);
+	const estimate = boxes && input.nest ? nestFabricEstimate(boxes, draft.pieces, spec, input.nest) : boxes;
 	const fabric: FabricOut | null = estimate && {
 		width: toUnitValue(estimate.widthMm, unit),
 		folded: estimate.folded,
@@ -141,7 +147,8 @@ export function draftGarmentMm(input: DraftInputMm): DraftResponse {
 		packedLength: toUnitValue(estimate.packedMm, unit),
 		shrinkagePercent: estimate.shrinkagePercent,
 		roundingAdded: toUnitValue(estimate.rounded.mm - estimate.lengthMm, unit),
-		notes: estimate.notes
+		notes: estimate.notes,
+		nested: Boolean(estimate.nested)
 	};
 	return {
 		...base,
@@ -158,7 +165,7 @@ export function draftGarmentMm(input: DraftInputMm): DraftResponse {
 /** Errors that mean the numbers themselves cannot be drafted (an API client answers 422 for them). */
 export const implausibleCodes: ReadonlySet<Finding['code']> = new Set(['likely_typo', 'unit_mixup']);
 
-export function draftGarment(request: DraftRequest): DraftResponse {
+export function draftGarment(request: DraftRequest, nest: NestBudget | undefined = draftNestBudget): DraftResponse {
 	const parsed = draftRequestSchema.parse(request);
 	const { unit } = parsed;
 	const template = getTemplate(parsed.garment);
@@ -185,6 +192,7 @@ export function draftGarment(request: DraftRequest): DraftResponse {
 		bodyMm,
 		optionsMm,
 		fabric,
-		unitConfirmed: parsed.unitConfirmed
+		unitConfirmed: parsed.unitConfirmed,
+		nest
 	});
 }
