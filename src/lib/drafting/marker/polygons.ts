@@ -123,6 +123,12 @@ export function bounds(path: Path64) {
 	return Clipper.getBounds(path);
 }
 
+/** The outline grown by `mm` all round, corners rounded (the cutting gap's reach). */
+export function grownOutline(outline: readonly Point[], mm: number): Point[] {
+	const grown = Clipper.inflatePaths([toPath(outline)], mm * unitsPerMm, JoinType.Round, EndType.Polygon);
+	return toPoints(largest(grown));
+}
+
 /** Area of overlap of two outlines in mm² (zero when they only touch). */
 export function overlapArea(a: readonly Point[], b: readonly Point[]): number {
 	const common = Clipper.intersect([toPath(a)], [toPath(b)], FillRule.NonZero);
