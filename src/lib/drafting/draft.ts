@@ -111,6 +111,11 @@ function pieceOut(piece: DraftPiece, unit: Unit): PieceOut {
 
 /** The drafting core: checks, options, template, fabric layout and size band, all from millimetres. */
 export function draftGarmentMm(input: DraftInputMm): DraftResponse {
+	return draftWithPieces(input).response;
+}
+
+/** The draft and the pieces it was made from (none when the draft is stopped), for full-size printing. */
+export function draftWithPieces(input: DraftInputMm): { response: DraftResponse; pieces: DraftPiece[] } {
 	const template = getTemplate(input.garment);
 	const { unit, bodyMm } = input;
 	const checks = checkMeasurements(bodyMm, unit, template.requiredMeasurements, {
@@ -127,8 +132,10 @@ export function draftGarmentMm(input: DraftInputMm): DraftResponse {
 		warnings: checks.warnings,
 		errors
 	};
-	if (errors.length)
-		return { ...base, pieces: [], fabric: null, allowances: [], notes: [], cautions: cautionsFor(bodyMm, []) };
+	if (errors.length) {
+		const cautions = cautionsFor(bodyMm, []);
+		return { response: { ...base, pieces: [], fabric: null, allowances: [], notes: [], cautions }, pieces: [] };
+	}
 
 	const draft = template.draft(bodyMm, resolved.options);
 	const spec = { ...defaultFabricSpec(unit), ...input.fabric };
@@ -150,7 +157,7 @@ export function draftGarmentMm(input: DraftInputMm): DraftResponse {
 		notes: estimate.notes,
 		nested: Boolean(estimate.nested)
 	};
-	return {
+	const response: DraftResponse = {
 		...base,
 		pieces: draft.pieces.map((p) => pieceOut(p, unit)),
 		fabric,
@@ -159,13 +166,19 @@ export function draftGarmentMm(input: DraftInputMm): DraftResponse {
 		cautions: cautionsFor(bodyMm, draft.cautions),
 		warnings: [...checks.warnings, ...draft.warnings, ...fabricWarnings]
 	};
+	return { response, pieces: draft.pieces };
 }
 
 /** POST /api/v1/drafts: measurements, length options and fabric in the request's unit. */
 /** Errors that mean the numbers themselves cannot be drafted (an API client answers 422 for them). */
 export const implausibleCodes: ReadonlySet<Finding['code']> = new Set(['likely_typo', 'unit_mixup']);
 
-export function draftGarment(request: DraftRequest, nest: NestBudget | undefined = draftNestBudget): DraftResponse {
+export function draftGarment(request: DraftRequest): DraftResponse {
+	return draftGarmentMm({ ...draftInputFromRequest(request), nest: draftNestBudget });
+}
+
+/** A request in its own unit, validated, as the drafting core's millimetre input. */
+export function draftInputFromRequest(request: DraftRequest): DraftInputMm {
 	const parsed = draftRequestSchema.parse(request);
 	const { unit } = parsed;
 	const template = getTemplate(parsed.garment);
@@ -186,13 +199,5 @@ export function draftGarment(request: DraftRequest, nest: NestBudget | undefined
 		shrinkagePercent: parsed.fabric.shrinkage,
 		repeatMm: toMm(parsed.fabric.repeat, unit)
 	};
-	return draftGarmentMm({
-		garment: parsed.garment,
-		unit,
-		bodyMm,
-		optionsMm,
-		fabric,
-		unitConfirmed: parsed.unitConfirmed,
-		nest
-	});
+	return { garment: parsed.garment, unit, bodyMm, optionsMm, fabric, unitConfirmed: parsed.unitConfirmed };
 }

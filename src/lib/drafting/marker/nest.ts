@@ -86,7 +86,7 @@ interface Context {
 
 function noFit(context: Context, fixed: Variant, moving: Variant): Paths64 {
 	let row = context.nfps.get(fixed);
-	if (!row) context.nfps.set(fixed, (row = new Map()));
+	if (!row) context.nfps.set(fixed, (row = new Map<Variant, Paths64>()));
 	let nfp = row.get(moving);
 	if (!nfp) row.set(moving, (nfp = noFitPolygon(fixed.shape, moving.shape)));
 	return nfp;
