@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { estimateFabric, type FabricSpec } from '../fabric';
+import { defaultFabricSpec, estimateFabric, type FabricSpec } from '../fabric';
 import { distance, mirrorX, polygonArea, pt, type Point } from '../geometry';
 import { packStrip } from '../layout';
 import type { DraftPiece } from '../pieces';
@@ -124,14 +124,8 @@ describe('marker: hand-checked shapes', () => {
 	});
 });
 
-const clothSpec = (widthMm: number, extra: Partial<FabricSpec> = {}): FabricSpec => ({
-	widthMm,
-	folded: true,
-	directional: false,
-	shrinkagePercent: 0,
-	repeatMm: 0,
-	...extra
-});
+/** 115 cm cloth, folded, no nap, shrinkage or repeat, unless `extra` says otherwise. */
+const clothSpec = (extra: Partial<FabricSpec> = {}): FabricSpec => ({ ...defaultFabricSpec('cm'), ...extra });
 
 const draftOf = (id: string): DraftPiece[] =>
 	draftIn(templates[id as keyof typeof templates], 'cm', standardBodyCm).pieces;
@@ -143,7 +137,7 @@ describe('marker: every garment', () => {
 
 	it.each(cases)('$garment, folded $folded, nap $directional: sound, and never worse than the boxes', (c) => {
 		const pieces = draftOf(c.garment);
-		const spec = clothSpec(1150, { folded: c.folded, directional: c.directional });
+		const spec = clothSpec({ folded: c.folded, directional: c.directional });
 		const boxes = estimateFabric(pieces, spec, 'cm').estimate!;
 		const items = markerItems(boxes, pieces, spec)!.map((g) => g.item);
 		const marker = nestMarker(items, { width: boxes.layWidthMm, orderings: 2 })!;
@@ -175,7 +169,7 @@ describe('marker: every garment', () => {
 			lines: [],
 			grainline: [pt(175, 100), pt(175, 600)]
 		};
-		const spec = clothSpec(1150, { folded: false });
+		const spec = clothSpec({ folded: false });
 		const boxes = estimateFabric([gore], spec, 'cm').estimate!;
 		expect(boxes.packedMm).toBe(1400);
 		const nested = nestFabricEstimate(boxes, [gore], spec, { budgetMs: Infinity });
