@@ -1,7 +1,7 @@
 import { checkMeasurements, isChildBody, type Finding } from './checks';
 import { defaultFabricSpec, estimateFabric, type FabricSpec } from './fabric';
 import { boundingBox } from './geometry';
-import { draftNestBudget, nestFabricEstimate, type NestBudget } from './marker/index';
+import { nestFabricEstimate, type NestBudget } from './marker/index';
 import type { GarmentId, MeasurementCode, Measurements } from './measurements';
 import { resolveOptions, type GivenOptions } from './options';
 import type { Caution, DraftPiece } from './pieces';
@@ -173,8 +173,8 @@ export function draftWithPieces(input: DraftInputMm): { response: DraftResponse;
 /** Errors that mean the numbers themselves cannot be drafted (an API client answers 422 for them). */
 export const implausibleCodes: ReadonlySet<Finding['code']> = new Set(['likely_typo', 'unit_mixup']);
 
-export function draftGarment(request: DraftRequest): DraftResponse {
-	return draftGarmentMm({ ...draftInputFromRequest(request), nest: draftNestBudget });
+export function draftGarment(request: DraftRequest, options: { nest?: NestBudget } = {}): DraftResponse {
+	return draftGarmentMm({ ...draftInputFromRequest(request), nest: options.nest });
 }
 
 /** A request in its own unit, validated, as the drafting core's millimetre input. */

@@ -1,6 +1,7 @@
 // Relative imports only: this module also runs inside worker threads, outside Vite.
 import { draftGarment, type DraftResponse } from '../../drafting/draft';
 import { estimateQuoteRequest, layoutRectangles, type LayoutResponse } from '../../drafting/requests';
+import { draftNestBudget } from '../../drafting/marker/index';
 import { patternPdfForRequest, type PaperId, type PatternPdfResult } from '../../drafting/print/index';
 import type { DraftRequest, LayoutRequest, QuoteRequest } from '../../drafting/schemas';
 
@@ -24,7 +25,8 @@ export function runTask(task: Task): TaskResult[Task['kind']] | Promise<TaskResu
 		case 'ping':
 			return 'pong';
 		case 'draft':
-			return draftGarment(task.request);
+			// The API nests the real outlines; the calculator in the browser keeps to the boxes as it types.
+			return draftGarment(task.request, { nest: draftNestBudget });
 		case 'layout':
 			return layoutRectangles(task.request);
 		case 'estimate':
