@@ -56,7 +56,8 @@ function squaresPt(stream: string): number[] {
 const hex = (text: string) =>
 	[...text].map((c) => c.charCodeAt(0).toString(16).toUpperCase().padStart(2, '0')).join('');
 
-describe('full-size pattern PDF', () => {
+// Making a tiled PDF takes about a second; a loaded machine can take several.
+describe('full-size pattern PDF', { timeout: 30_000 }, () => {
 	it('tiles A4 pages (ISO 216: 210 × 297 mm = 595.28 × 841.89 pt) with both test squares on the first', async () => {
 		const doc = await pdfFor('a4');
 		expect(doc.getPageCount()).toBeGreaterThan(4);
