@@ -1,10 +1,13 @@
 /**
- * npm run bench — times the drafting core per garment: draftGarment (checks, template, fabric layout,
- * SVGs) and the fabric layout alone. Prints mean and p95 per call after a warm-up.
+ * npm run bench — times the drafting core per garment: the draft as the calculator makes it (checks,
+ * template, box layout, SVGs) and the box layout alone, mean and p95 per call after a warm-up; then the
+ * marker (real outlines nested) per garment on folded and open cloth against the box layout: time,
+ * length and cloth used. Target: the marker under 2 s a garment and never behind the boxes.
  */
 import { performance } from 'node:perf_hooks';
 import {
-	draftGarment,
+	draftGarmentMm,
+	draftInputFromRequest,
 	estimateFabric,
 	garments,
 	getTemplate,
@@ -13,6 +16,7 @@ import {
 	toMm,
 	type DraftRequest
 } from '../src/lib/drafting/index';
+import { nestFabricEstimate } from '../src/lib/drafting/marker/index';
 import { hopperTurtonC1P1 } from '../src/lib/drafting/strip-packing-instances';
 
 const warmUp = 200;
@@ -50,18 +54,43 @@ function time(run: () => unknown): { mean: number; p95: number } {
 }
 
 const format = (us: number) => (us >= 1000 ? `${(us / 1000).toFixed(2)} ms` : `${us.toFixed(1)} µs`);
-const rows: string[][] = [['garment', 'draftGarment mean', 'p95', 'layout mean', 'p95', 'yardage']];
+const rows: string[][] = [['garment', 'draft mean', 'p95', 'box layout mean', 'p95', 'yardage']];
+const markerRows: string[][] = [
+	['garment', 'cloth', 'marker time', 'boxes length', 'marker length', 'boxes used', 'marker used', 'area bound']
+];
 
 for (const garment of garments) {
 	const request: DraftRequest = { garment: garment.id, unit: 'cm', measurements: bodyCm, fabric: { width: 115 } };
-	const response = draftGarment(request);
+	const input = draftInputFromRequest(request);
+	const response = draftGarmentMm(input);
 	if (response.errors.length) throw new Error(`${garment.id}: ${response.errors.map((e) => e.message).join('; ')}`);
-	const full = time(() => draftGarment(request));
+	const full = time(() => draftGarmentMm(input));
 	const template = getTemplate(garment.id);
 	const bodyMm = Object.fromEntries(Object.entries(bodyCm).map(([code, cm]) => [code, toMm(cm, 'cm')]));
 	const pieces = template.draft(bodyMm, resolveOptions(template, {}, bodyMm, 'cm').options).pieces;
 	const spec = { widthMm: 1150, folded: true, directional: false, shrinkagePercent: 0, repeatMm: 0 };
 	const layout = time(() => estimateFabric(pieces, spec, 'cm'));
+	for (const folded of [true, false]) {
+		const cloth = { ...spec, folded };
+		const boxes = estimateFabric(pieces, cloth, 'cm').estimate!;
+		const runs = [0, 1, 2, 3].map(() => {
+			const start = performance.now();
+			const nested = nestFabricEstimate(boxes, pieces, cloth, { budgetMs: Infinity });
+			return { ms: performance.now() - start, nested };
+		});
+		const { nested } = runs[0];
+		const ms = runs.slice(1).reduce((sum, r) => sum + r.ms, 0) / 3;
+		markerRows.push([
+			garment.id,
+			folded ? 'folded' : 'open',
+			`${ms.toFixed(0)} ms`,
+			`${(boxes.packedMm / 10).toFixed(1)} cm`,
+			nested.nested ? `${(nested.packedMm / 10).toFixed(1)} cm` : 'boxes kept',
+			`${(boxes.efficiency * 100).toFixed(1)} %`,
+			`${(nested.efficiency * 100).toFixed(1)} %`,
+			nested.nested ? `${(nested.nested.areaBoundMm / 10).toFixed(1)} cm` : '—'
+		]);
+	}
 	rows.push([
 		garment.id,
 		format(full.mean),
@@ -75,10 +104,16 @@ for (const garment of garments) {
 const c1p1 = hopperTurtonC1P1.items;
 const strip = time(() => packStrip(c1p1, hopperTurtonC1P1.width));
 
-const widths = rows[0].map((_, col) => Math.max(...rows.map((r) => r[col].length)));
-console.log(`Tackline drafting bench — ${iterations} calls after ${warmUp} warm-up, Node ${process.version}\n`);
-for (const [i, row] of rows.entries()) {
-	console.log(row.map((cell, col) => cell.padEnd(widths[col])).join('  '));
-	if (i === 0) console.log(widths.map((w) => '─'.repeat(w)).join('  '));
+function printTable(table: string[][]) {
+	const widths = table[0].map((_, col) => Math.max(...table.map((r) => r[col].length)));
+	for (const [i, row] of table.entries()) {
+		console.log(row.map((cell, col) => cell.padEnd(widths[col])).join('  '));
+		if (i === 0) console.log(widths.map((w) => '─'.repeat(w)).join('  '));
+	}
 }
+
+console.log(`Tackline drafting bench — ${iterations} calls after ${warmUp} warm-up, Node ${process.version}\n`);
+printTable(rows);
+console.log('\nMarker on 115 cm cloth, mean of three runs after one (no budget; the draft API allows 2 s):\n');
+printTable(markerRows);
 console.log(`\npackStrip on Hopper–Turton C1-P1 (16 items): mean ${format(strip.mean)}, p95 ${format(strip.p95)}`);

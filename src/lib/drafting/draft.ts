@@ -1,6 +1,7 @@
 import { checkMeasurements, isChildBody, type Finding } from './checks';
 import { defaultFabricSpec, estimateFabric, type FabricSpec } from './fabric';
 import { boundingBox } from './geometry';
+import { nestFabricEstimate, type NestBudget } from './marker/index';
 import type { GarmentId, MeasurementCode, Measurements } from './measurements';
 import { resolveOptions, type GivenOptions } from './options';
 import type { Caution, DraftPiece } from './pieces';
@@ -44,6 +45,8 @@ export interface FabricOut {
 	/** What rounding up to the buying step (⅛ yd or 10 cm) added (request unit). */
 	roundingAdded: number;
 	notes: string[];
+	/** The real outlines were nested on the cloth (else their boxes were packed). */
+	nested: boolean;
 }
 
 export interface DraftResponse {
@@ -70,6 +73,8 @@ export interface DraftInputMm {
 	fabric?: Partial<FabricSpec>;
 	/** The person has confirmed the numbers are in `unit`, answering a suspected unit mix-up. */
 	unitConfirmed?: boolean;
+	/** Nest the real outlines within this budget (the boxes stand if it runs out); boxes only when absent. */
+	nest?: NestBudget;
 }
 
 export const childCaution: Caution = {
@@ -106,6 +111,11 @@ function pieceOut(piece: DraftPiece, unit: Unit): PieceOut {
 
 /** The drafting core: checks, options, template, fabric layout and size band, all from millimetres. */
 export function draftGarmentMm(input: DraftInputMm): DraftResponse {
+	return draftWithPieces(input).response;
+}
+
+/** The draft and the pieces it was made from (none when the draft is stopped), for full-size printing. */
+export function draftWithPieces(input: DraftInputMm): { response: DraftResponse; pieces: DraftPiece[] } {
 	const template = getTemplate(input.garment);
 	const { unit, bodyMm } = input;
 	const checks = checkMeasurements(bodyMm, unit, template.requiredMeasurements, {
@@ -122,12 +132,15 @@ export function draftGarmentMm(input: DraftInputMm): DraftResponse {
 		warnings: checks.warnings,
 		errors
 	};
-	if (errors.length)
-		return { ...base, pieces: [], fabric: null, allowances: [], notes: [], cautions: cautionsFor(bodyMm, []) };
+	if (errors.length) {
+		const cautions = cautionsFor(bodyMm, []);
+		return { response: { ...base, pieces: [], fabric: null, allowances: [], notes: [], cautions }, pieces: [] };
+	}
 
 	const draft = template.draft(bodyMm, resolved.options);
 	const spec = { ...defaultFabricSpec(unit), ...input.fabric };
-	const { estimate, warnings: fabricWarnings } = estimateFabric(draft.pieces, spec, unit);
+	const { estimate: boxes, warnings: fabricWarnings } = estimateFabric(draft.pieces, spec, unit);
+	const estimate = boxes && input.nest ? nestFabricEstimate(boxes, draft.pieces, spec, input.nest) : boxes;
 	const fabric: FabricOut | null = estimate && {
 		width: toUnitValue(estimate.widthMm, unit),
 		folded: estimate.folded,
@@ -141,9 +154,10 @@ export function draftGarmentMm(input: DraftInputMm): DraftResponse {
 		packedLength: toUnitValue(estimate.packedMm, unit),
 		shrinkagePercent: estimate.shrinkagePercent,
 		roundingAdded: toUnitValue(estimate.rounded.mm - estimate.lengthMm, unit),
-		notes: estimate.notes
+		notes: estimate.notes,
+		nested: Boolean(estimate.nested)
 	};
-	return {
+	const response: DraftResponse = {
 		...base,
 		pieces: draft.pieces.map((p) => pieceOut(p, unit)),
 		fabric,
@@ -152,13 +166,19 @@ export function draftGarmentMm(input: DraftInputMm): DraftResponse {
 		cautions: cautionsFor(bodyMm, draft.cautions),
 		warnings: [...checks.warnings, ...draft.warnings, ...fabricWarnings]
 	};
+	return { response, pieces: draft.pieces };
 }
 
 /** POST /api/v1/drafts: measurements, length options and fabric in the request's unit. */
 /** Errors that mean the numbers themselves cannot be drafted (an API client answers 422 for them). */
 export const implausibleCodes: ReadonlySet<Finding['code']> = new Set(['likely_typo', 'unit_mixup']);
 
-export function draftGarment(request: DraftRequest): DraftResponse {
+export function draftGarment(request: DraftRequest, options: { nest?: NestBudget } = {}): DraftResponse {
+	return draftGarmentMm({ ...draftInputFromRequest(request), nest: options.nest });
+}
+
+/** A request in its own unit, validated, as the drafting core's millimetre input. */
+export function draftInputFromRequest(request: DraftRequest): DraftInputMm {
 	const parsed = draftRequestSchema.parse(request);
 	const { unit } = parsed;
 	const template = getTemplate(parsed.garment);
@@ -179,12 +199,5 @@ export function draftGarment(request: DraftRequest): DraftResponse {
 		shrinkagePercent: parsed.fabric.shrinkage,
 		repeatMm: toMm(parsed.fabric.repeat, unit)
 	};
-	return draftGarmentMm({
-		garment: parsed.garment,
-		unit,
-		bodyMm,
-		optionsMm,
-		fabric,
-		unitConfirmed: parsed.unitConfirmed
-	});
+	return { garment: parsed.garment, unit, bodyMm, optionsMm, fabric, unitConfirmed: parsed.unitConfirmed };
 }

@@ -1,5 +1,5 @@
 import type { Finding } from './checks';
-import { boundingBox, polygonArea } from './geometry';
+import { boundingBox, polygonArea, type Point } from './geometry';
 import { packStrip, type Rotation } from './layout';
 import type { DraftPiece } from './pieces';
 import { formatFabricLength, formatLength, roundUpFabric, toMm, type BuyUnit, type Unit } from './units';
@@ -35,6 +35,9 @@ export interface FabricPlacement {
 	unfolded: boolean;
 	/** How many pieces this placement cuts (two for a pair on folded cloth). */
 	yields: number;
+	/** Set when the real outline was nested: the cutting line and grainline on the cloth. */
+	outline?: Point[];
+	grainline?: [Point, Point];
 }
 
 export interface FabricEstimate {
@@ -54,6 +57,8 @@ export interface FabricEstimate {
 	shrinkagePercent: number;
 	/** How to cut what the layout alone does not say (a single piece on doubled cloth). */
 	notes: string[];
+	/** Set when the pieces' real outlines were nested (see marker/): what the boxes alone would take. */
+	nested?: { boxLengthMm: number; areaBoundMm: number };
 }
 
 interface LayItem {

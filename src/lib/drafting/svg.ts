@@ -191,6 +191,23 @@ function placementLabel(p: FabricEstimate['placements'][number], size: number): 
 	return text({ x: p.w / 2, y: p.h / 2 }, label, fit, { weight: 600, rotate: upright ? -90 : 0 });
 }
 
+/** A nested piece: its real cutting line, grain arrow and name where it lies on the cloth. */
+function nestedPlacement(p: FabricEstimate['placements'][number], size: number): string {
+	const label = p.yields > 1 ? `${p.label} ×${p.yields}` : p.label;
+	const [a, b] = p.grainline!;
+	const upright = p.h > 1.6 * p.w;
+	const fit = Math.min(size, (upright ? p.h : p.w) / (label.length * 0.65));
+	const centre = { x: p.x + p.w / 2, y: p.y + p.h / 2 };
+	const at = upright ? { x: centre.x + fit * 1.2, y: centre.y } : { x: centre.x, y: centre.y - fit * 1.2 };
+	return [
+		`<polygon points="${points(p.outline!)}" fill="#fae2da" stroke="${madder}" stroke-width="1.5" vector-effect="non-scaling-stroke" stroke-linejoin="round"/>`,
+		`<line x1="${n(a.x)}" y1="${n(a.y)}" x2="${n(b.x)}" y2="${n(b.y)}" ${stroke(ink, 1.2)}/>`,
+		arrowHead(b, a, size * 0.5, ink),
+		arrowHead(a, b, size * 0.5, ink),
+		text(at, label, fit, { weight: 600, rotate: upright ? -90 : 0 })
+	].join('');
+}
+
 /** The cloth with every piece placed, fold on the left when folded, length marks every yard or metre. */
 export function layoutSvg(estimate: FabricEstimate, pieces: readonly DraftPiece[], unit: Unit): string {
 	const width = estimate.layWidthMm;
@@ -213,6 +230,7 @@ export function layoutSvg(estimate: FabricEstimate, pieces: readonly DraftPiece[
 		);
 	}
 	const placed = estimate.placements.map((p) => {
+		if (p.outline) return nestedPlacement(p, size);
 		const piece = byId.get(p.pieceId);
 		const shape = piece ? translate(piece.outline, -p.origin.x, -p.origin.y) : [];
 		const outlines = p.unfolded ? [translate(shape, p.w / 2, 0), translate(mirrorX(shape), p.w / 2, 0)] : [shape];
@@ -245,7 +263,7 @@ export function layoutSvg(estimate: FabricEstimate, pieces: readonly DraftPiece[
 		...foldSide,
 		text(
 			{ x: width / 2, y: length + size * 1.2 },
-			`${formatLength(length, unit, { withUnit: true })} laid out`,
+			`${formatLength(length, unit, { withUnit: true })} laid out · buy ${estimate.rounded.display}`,
 			size * 0.9
 		),
 		'</svg>'

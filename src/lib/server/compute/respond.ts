@@ -1,4 +1,5 @@
 import { json } from '@sveltejs/kit';
+import { implausibleCodes, type DraftResponse } from '../../drafting/draft';
 import { apiError } from '../http/respond';
 import { Busy, compute, OverBudget } from './index';
 import type { Task, TaskResult } from './tasks';
@@ -11,9 +12,16 @@ export async function computeResponse<K extends Task['kind']>(
 	task: Extract<Task, { kind: K }>,
 	refuse?: (result: TaskResult[K]) => Response | null
 ): Promise<Response> {
+	return computeAnswer(task, (result) => refuse?.(result) ?? json(result));
+}
+
+/** As computeResponse, with the route shaping the answer from the result (a file rather than JSON). */
+export async function computeAnswer<K extends Task['kind']>(
+	task: Extract<Task, { kind: K }>,
+	answer: (result: TaskResult[K]) => Response
+): Promise<Response> {
 	try {
-		const result = await compute<K>(task);
-		return refuse?.(result) ?? json(result);
+		return answer(await compute<K>(task));
 	} catch (error) {
 		if (error instanceof OverBudget) {
 			return apiError(
@@ -31,3 +39,17 @@ export async function computeResponse<K extends Task['kind']>(
 	}
 }
 export type { TaskResult };
+
+/** A draft from values no body has, or from an unconfirmed unit mix-up, is refused rather than drawn. */
+export function refuseImplausible(draft: DraftResponse): Response | null {
+	const implausible = draft.errors.filter((e) => implausibleCodes.has(e.code));
+	if (!implausible.length) return null;
+	return apiError(
+		422,
+		'implausible_measurements',
+		implausible.some((e) => e.code === 'unit_mixup')
+			? 'Some measurements look like another unit. Correct them, change the unit, or send unitConfirmed: true if they are right.'
+			: 'Some measurements cannot be right. Please correct them.',
+		implausible.flatMap((e) => e.fields.map((field) => ({ path: `measurements.${field}`, message: e.message })))
+	);
+}

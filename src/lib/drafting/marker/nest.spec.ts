@@ -1,0 +1,181 @@
+import { describe, expect, it } from 'vitest';
+import { defaultFabricSpec, estimateFabric, type FabricSpec } from '../fabric';
+import { distance, mirrorX, polygonArea, pt, type Point } from '../geometry';
+import { packStrip } from '../layout';
+import type { DraftPiece } from '../pieces';
+import { templates } from '../templates/index';
+import { draftIn, standardBodyCm } from '../templates/test-support';
+import { markerItems, nestFabricEstimate } from './fabric';
+import { nestMarker, type MarkerItem, type MarkerResult } from './nest';
+import { areaOutside, grownOutline, overlapArea } from './polygons';
+
+const item = (outline: Point[], extra: Partial<MarkerItem> = {}): MarkerItem => ({
+	id: 'piece',
+	label: 'Piece',
+	outline,
+	grainline: [pt(10, 10), pt(10, 50)],
+	quantity: 1,
+	rotation: '180',
+	onFold: false,
+	mirrorPairs: false,
+	...extra
+});
+
+/** A right triangle with legs `a` across and `b` along the cloth. */
+const triangle = (a: number, b: number) => [pt(0, 0), pt(a, 0), pt(0, b)];
+
+function signedArea(points: readonly Point[]): number {
+	let twice = 0;
+	points.forEach((p, i) => {
+		const q = points[(i + 1) % points.length];
+		twice += p.x * q.y - q.x * p.y;
+	});
+	return twice / 2;
+}
+
+/** Lengths of the sides in order; a turn or a shift leaves them as they are. */
+const sides = (points: readonly Point[]) => points.map((p, i) => distance(p, points[(i + 1) % points.length]));
+
+function expectSound(result: MarkerResult, gapMm: number) {
+	const outlines = result.placements.map((p) => p.outline);
+	for (const outline of outlines) {
+		// Inside the cloth: nothing past either selvedge (or the fold) or before the cut end.
+		expect(areaOutside(outline, result.width, result.length)).toBeLessThan(0.01);
+	}
+	for (let i = 0; i < outlines.length; i++) {
+		for (let j = i + 1; j < outlines.length; j++) {
+			// No overlap; the tolerance is the hundredth-of-a-millimetre grid the polygons are held on.
+			expect(overlapArea(outlines[i], outlines[j])).toBeLessThan(0.01);
+		}
+	}
+	if (gapMm > 0) {
+		// The cutting gap: every outline grown by just under half the gap still overlaps no other.
+		const grown = outlines.map((o) => grownOutline(o, gapMm / 2 - 0.05));
+		for (let i = 0; i < grown.length; i++) {
+			for (let j = i + 1; j < grown.length; j++) expect(overlapArea(grown[i], grown[j])).toBeLessThan(0.01);
+		}
+	}
+	expect(result.length).toBeGreaterThanOrEqual(result.areaBound - 1e-6);
+	expect(result.efficiency).toBeLessThanOrEqual(1 + 1e-9);
+}
+
+describe('marker: hand-checked shapes', () => {
+	it('interlocks two right triangles into their rectangle when they may turn end for end (hand check)', () => {
+		// Two 300 × 800 right triangles turned 180° to each other make a 300 × 800 rectangle; their boxes need 1600.
+		const tri = item(triangle(300, 800), { quantity: 2 });
+		const result = nestMarker([tri], { width: 300, gapMm: 0 })!;
+		expect(result.length).toBeCloseTo(800, 1);
+		expect(result.efficiency).toBeCloseTo(1, 3);
+		expect(packStrip([{ w: 300, h: 800, quantity: 2 }], 300).length).toBe(1600);
+		expect(result.placements.map((p) => p.turn).sort()).toEqual([0, 180]);
+		expectSound(result, 0);
+	});
+
+	it('keeps every piece one way up with a nap, so the triangles cannot interlock (hand check)', () => {
+		const tri = item(triangle(300, 800), { quantity: 2, rotation: 'none' });
+		const result = nestMarker([tri], { width: 300, gapMm: 0 })!;
+		expect(result.placements.every((p) => p.turn === 0)).toBe(true);
+		expect(result.length).toBeCloseTo(1600, 1);
+		expectSound(result, 0);
+	});
+
+	it('leaves the cutting gap between pieces (common practice: room for the blade)', () => {
+		const tri = item(triangle(300, 800), { quantity: 2 });
+		const result = nestMarker([tri], { width: 400, gapMm: 3 })!;
+		expectSound(result, 3);
+		expect(result.length).toBeGreaterThan(800);
+	});
+
+	it('lays a pair on open cloth as a piece and its mirror image', () => {
+		// An asymmetric quadrilateral: only a reflection, never a turn, makes its other half.
+		const shape = [pt(0, 0), pt(200, 0), pt(260, 500), pt(0, 420)];
+		const result = nestMarker([item(shape, { quantity: 2, mirrorPairs: true })], { width: 700 })!;
+		const [left, right] = result.placements;
+		expect([left.mirrored, right.mirrored]).toEqual([false, true]);
+		// A reflection reverses the outline's sense of travel; a turn keeps it.
+		expect(Math.sign(signedArea(left.outline))).toBe(-Math.sign(signedArea(right.outline)));
+		expect(sides(mirrorX(right.outline)).map((s) => s.toFixed(6))).toEqual(
+			sides(left.outline).map((s) => s.toFixed(6))
+		);
+		expect(polygonArea(left.outline)).toBeCloseTo(polygonArea(shape), 6);
+		expectSound(result, 2);
+	});
+
+	it('puts a cut-on-fold piece with its fold edge on the fold', () => {
+		const bodice = item([pt(0, 0), pt(180, 20), pt(220, 150), pt(240, 500), pt(0, 500)], { onFold: true, quantity: 1 });
+		const sleeve = item(triangle(250, 400), { quantity: 2 });
+		const result = nestMarker([bodice, sleeve], { width: 600 })!;
+		const onFold = result.placements.find((p) => p.item === 0)!;
+		expect(onFold.box.x).toBeCloseTo(0, 6);
+		expectSound(result, 2);
+	});
+
+	it('starts every piece on the pattern repeat', () => {
+		const result = nestMarker([item(triangle(300, 450), { quantity: 3 })], { width: 500, yStep: 320 })!;
+		for (const p of result.placements) expect((p.box.y / 320) % 1).toBeCloseTo(0, 6);
+		expectSound(result, 2);
+	});
+
+	it('gives up (so the boxes stand) when its budget runs out before any marker is finished', () => {
+		let clock = 0;
+		const tick = () => (clock += 1000);
+		const items = [item(triangle(300, 800), { quantity: 4 })];
+		expect(nestMarker(items, { width: 600, budgetMs: 10, now: tick })).toBeNull();
+	});
+});
+
+/** 115 cm cloth, folded, no nap, shrinkage or repeat, unless `extra` says otherwise. */
+const clothSpec = (extra: Partial<FabricSpec> = {}): FabricSpec => ({ ...defaultFabricSpec('cm'), ...extra });
+
+const draftOf = (id: string): DraftPiece[] =>
+	draftIn(templates[id as keyof typeof templates], 'cm', standardBodyCm).pieces;
+
+describe('marker: every garment', () => {
+	const cases = Object.keys(templates).flatMap((garment) =>
+		[true, false].flatMap((folded) => [true, false].map((directional) => ({ garment, folded, directional })))
+	);
+
+	it.each(cases)('$garment, folded $folded, nap $directional: sound, and never worse than the boxes', (c) => {
+		const pieces = draftOf(c.garment);
+		const spec = clothSpec({ folded: c.folded, directional: c.directional });
+		const boxes = estimateFabric(pieces, spec, 'cm').estimate!;
+		const items = markerItems(boxes, pieces, spec)!.map((g) => g.item);
+		const marker = nestMarker(items, { width: boxes.layWidthMm, orderings: 2 })!;
+		expectSound(marker, 2);
+		for (const [i, it] of items.entries()) {
+			const placed = marker.placements.filter((p) => p.item === i);
+			expect(placed).toHaveLength(it.quantity);
+			if (it.onFold) expect(placed.every((p) => Math.abs(p.box.x) < 0.01)).toBe(true);
+			// Grain stays along the cloth: a nap allows no turn, plain cloth end for end only.
+			expect(placed.every((p) => (c.directional ? p.turn === 0 : p.turn === 0 || p.turn === 180))).toBe(true);
+			for (const p of placed) expect(p.grainline[0].x).toBeCloseTo(p.grainline[1].x, 6);
+		}
+		const nested = nestFabricEstimate(boxes, pieces, spec, { budgetMs: Infinity, orderings: 2 });
+		expect(nested.efficiency).toBeGreaterThanOrEqual(boxes.efficiency - 1e-12);
+		expect(nested.packedMm).toBeLessThanOrEqual(boxes.packedMm);
+		expect(nested.rounded.mm).toBeGreaterThanOrEqual(nested.lengthMm - 1e-6);
+		if (nested.nested) expect(nested.packedMm).toBeGreaterThanOrEqual(nested.nested.areaBoundMm - 1e-6);
+	});
+
+	it('halves the cloth for four skirt gores that interlock end for end (hand check)', () => {
+		// Gores 150 wide at the waist, 350 at the hem, 700 long. Boxes: three across 1150 cm cloth, one below: 1400.
+		// Turned alternately the four make a band 4 × 250 + 100 = 1100 wide (plus three 2 mm gaps): one row, 700.
+		const gore: DraftPiece = {
+			id: 'gore',
+			label: 'Gore',
+			cut: { quantity: 4, onFold: false, pair: false, grain: 'lengthwise' },
+			outline: [pt(100, 0), pt(250, 0), pt(350, 700), pt(0, 700)],
+			marks: [],
+			lines: [],
+			grainline: [pt(175, 100), pt(175, 600)]
+		};
+		const spec = clothSpec({ folded: false });
+		const boxes = estimateFabric([gore], spec, 'cm').estimate!;
+		expect(boxes.packedMm).toBe(1400);
+		const nested = nestFabricEstimate(boxes, [gore], spec, { budgetMs: Infinity });
+		expect(nested.packedMm).toBeCloseTo(700, 6);
+		expect(nested.efficiency).toBeCloseTo(2 * boxes.efficiency, 6);
+		expect(nested.nested).toEqual({ boxLengthMm: 1400, areaBoundMm: (4 * 175_000) / 1150 });
+		expect(nested.placements.every((p) => p.outline && p.grainline)).toBe(true);
+	});
+});

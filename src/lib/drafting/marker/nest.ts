@@ -1,0 +1,279 @@
+/**
+ * A marker: real piece outlines nested on the cloth. Each copy goes, in turn, to the lowest place along the
+ * cloth (then the leftmost) where it touches nothing — the bottom-left rule — found exactly from no-fit
+ * polygons (Art 1966; Burke, Hellier, Kendall & Whitwell, Operations Research 54(3), 2006) rather than
+ * by sliding. Several orderings are tried within the budget and the shortest marker is kept.
+ */
+import { boundingBox, polygonArea, translate as shift, type Box, type Point } from '../geometry';
+import {
+	difference,
+	lineOutside,
+	noFitPolygon,
+	translate,
+	union,
+	unitsPerMm,
+	type Path64,
+	type Paths64
+} from './polygons';
+import { variantsFor, type MarkerItem, type Turn, type Variant } from './variants';
+
+export type { MarkerItem, Turn };
+
+export interface MarkerOptions {
+	/** Width of the cloth as laid (half the width when folded), mm. */
+	width: number;
+	/** Space left between pieces for the cutting line, mm. */
+	gapMm?: number;
+	/** How far the nesting shape may stray from a curve, mm. */
+	toleranceMm?: number;
+	/** Every piece starts on a multiple of this (pattern repeat), 0 for none. */
+	yStep?: number;
+	/** Orderings to try at most. */
+	orderings?: number;
+	/** No new ordering starts after this; with nothing finished by then there is no marker. */
+	budgetMs?: number;
+	/** Clock for the budget, ms. */
+	now?: () => number;
+}
+
+export interface MarkerPlacement {
+	item: number;
+	copy: number;
+	turn: Turn;
+	mirrored: boolean;
+	/** Cutting line on the cloth, mm, fold at x = 0. */
+	outline: Point[];
+	grainline: [Point, Point];
+	box: Box;
+}
+
+export interface MarkerResult {
+	width: number;
+	length: number;
+	placements: MarkerPlacement[];
+	/** Σ outline area ÷ (width × length). */
+	efficiency: number;
+	/** Σ outline area ÷ width: no marker can be shorter. */
+	areaBound: number;
+	orderingsTried: number;
+}
+
+export const defaultGapMm = 2;
+export const flatteningToleranceMm = 1;
+
+interface Unit {
+	item: number;
+	copy: number;
+	variants: Variant[];
+	onFold: boolean;
+	area: number;
+}
+
+interface Placed {
+	unit: Unit;
+	variant: Variant;
+	x: number;
+	y: number;
+}
+
+interface Context {
+	width: number;
+	margin: number;
+	yStep: number;
+	yLimit: number;
+	nfps: Map<Variant, Map<Variant, Paths64>>;
+}
+
+function noFit(context: Context, fixed: Variant, moving: Variant): Paths64 {
+	let row = context.nfps.get(fixed);
+	if (!row) context.nfps.set(fixed, (row = new Map<Variant, Paths64>()));
+	let nfp = row.get(moving);
+	if (!nfp) row.set(moving, (nfp = noFitPolygon(fixed.shape, moving.shape)));
+	return nfp;
+}
+
+const stepUp = (y: number, step: number) => Math.ceil(y / step - 1e-9) * step;
+
+/** Lowest, then leftmost, free reference positions for one variant among the placed pieces. */
+function candidates(context: Context, placed: Placed[], unit: Unit, variant: Variant): Point[] {
+	const { width, margin, yStep, yLimit } = context;
+	const blocked = union(placed.flatMap((p) => translate(noFit(context, p.variant, variant), p.x, p.y)));
+	const top = -margin;
+	if (unit.onFold) {
+		if (variant.width > width) return [];
+		return lineOutside({ x: 0, y: top }, { x: 0, y: yLimit }, blocked).flatMap((segment) => {
+			const [a, b] = [Math.min(segment[0].y, segment[1].y), Math.max(segment[0].y, segment[1].y)];
+			const y = yStep > 0 ? stepUp(a + variant.topInset, yStep) - variant.topInset : a;
+			return y <= b ? [{ x: 0, y }] : [];
+		});
+	}
+	const left = -margin;
+	const right = width + margin - variant.width;
+	if (right < left) return [];
+	if (yStep > 0) {
+		// The cutting line's top, not the grown shape's, lands on the repeat.
+		for (let y = stepUp(top + variant.topInset, yStep) - variant.topInset; y <= yLimit; y += yStep) {
+			const free = lineOutside({ x: left, y }, { x: right, y }, blocked);
+			if (free.length) return free.map((s) => ({ x: Math.min(s[0].x, s[1].x), y }));
+		}
+		return [];
+	}
+	const room: Path64 = [
+		{ x: left, y: top },
+		{ x: right, y: top },
+		{ x: right, y: yLimit },
+		{ x: left, y: yLimit }
+	];
+	// A piece as wide as the room can only sit on a vertical line.
+	if (right === left) {
+		return lineOutside({ x: left, y: top }, { x: left, y: yLimit }, blocked).map((s) => ({
+			x: left,
+			y: Math.min(s[0].y, s[1].y)
+		}));
+	}
+	return difference([room], blocked).flat();
+}
+
+/**
+ * Bottom-left: the lower far end wins (or, in the second pass, the lower near end, which fills gaps
+ * first), then the position nearer the fold or the left selvedge.
+ */
+function better(byNearEnd: boolean, c: Point, variant: Variant, best: Placed): boolean {
+	const key = byNearEnd ? c.y : c.y + variant.height;
+	const bestKey = byNearEnd ? best.y : best.y + best.variant.height;
+	return key < bestKey || (key === bestKey && c.x < best.x);
+}
+
+function placeAll(context: Context, units: Unit[], byNearEnd: boolean, overdue: () => boolean): Placed[] | null {
+	const placed: Placed[] = [];
+	for (const unit of units) {
+		if (overdue()) return null;
+		let best: Placed | null = null;
+		for (const variant of unit.variants) {
+			for (const c of candidates(context, placed, unit, variant)) {
+				if (!best || better(byNearEnd, c, variant, best)) {
+					best = { unit, variant, x: c.x, y: c.y };
+				}
+			}
+		}
+		if (!best) return null;
+		placed.push(best);
+	}
+	return placed;
+}
+
+function placedOutline(p: Placed): { outline: Point[]; grainline: [Point, Point] } {
+	const dx = p.x / unitsPerMm + p.variant.shift.x;
+	const dy = p.y / unitsPerMm + p.variant.shift.y;
+	return {
+		outline: shift(p.variant.outline, dx, dy),
+		grainline: shift(p.variant.grainline, dx, dy) as [Point, Point]
+	};
+}
+
+function markerLength(placed: Placed[]): number {
+	return placed.reduce((max, p) => {
+		const { outline } = placedOutline(p);
+		return Math.max(max, boundingBox(outline).y + boundingBox(outline).height);
+	}, 0);
+}
+
+type Order = (a: Unit, b: Unit) => number;
+const biggest = (u: Unit) => Math.max(...u.variants.map((v) => v.width * v.height));
+const orders: Order[] = [
+	(a, b) => Number(b.onFold) - Number(a.onFold) || b.area - a.area,
+	(a, b) => b.area - a.area,
+	(a, b) => Math.max(...b.variants.map((v) => v.height)) - Math.max(...a.variants.map((v) => v.height)),
+	(a, b) => biggest(b) - biggest(a)
+];
+
+/** A fixed pseudo-random sequence (a linear congruential generator), so results repeat run to run. */
+function* swaps(count: number): Generator<[number, number]> {
+	let seed = 0x2545f491;
+	for (;;) {
+		seed = (Math.imul(seed, 1103515245) + 12345) >>> 0;
+		const i = seed % count;
+		seed = (Math.imul(seed, 1103515245) + 12345) >>> 0;
+		yield [i, (i + 1 + (seed % 3)) % count];
+	}
+}
+
+/** Nests the items on the cloth. Null when a piece cannot fit the width or the budget ran out first. */
+export function nestMarker(items: readonly MarkerItem[], options: MarkerOptions): MarkerResult | null {
+	const now = options.now ?? (() => performance.now());
+	const started = now();
+	const gap = options.gapMm ?? defaultGapMm;
+	const tolerance = options.toleranceMm ?? flatteningToleranceMm;
+	const units: Unit[] = [];
+	items.forEach((item, index) => {
+		const [plain, mirrored] = variantsFor(item, tolerance, gap / 2);
+		const area = polygonArea(item.outline);
+		for (let copy = 0; copy < item.quantity; copy++) {
+			const variants = copy % 2 && item.mirrorPairs ? mirrored : plain;
+			units.push({ item: index, copy, variants, onFold: item.onFold, area });
+		}
+	});
+	if (!units.length) return null;
+	const context: Context = {
+		width: Math.round(options.width * unitsPerMm),
+		margin: Math.round((gap / 2) * unitsPerMm),
+		yStep: Math.round((options.yStep ?? 0) * unitsPerMm),
+		yLimit: units.reduce((sum, u) => sum + Math.max(...u.variants.map((v) => Math.max(v.width, v.height))), 0) * 2,
+		nfps: new Map()
+	};
+	const maxAttempts = options.orderings ?? 12;
+	const budget = options.budgetMs ?? Infinity;
+	const overdue = () => now() - started > budget;
+	let best: Placed[] | null = null;
+	let bestLength = Infinity;
+	let bestAttempt = { order: units, byNearEnd: false };
+	let tried = 0;
+	const perturb = swaps(units.length);
+	while (tried < maxAttempts && (tried === 0 || !overdue())) {
+		let attempt: typeof bestAttempt;
+		if (tried < 2 * orders.length) {
+			attempt = { order: [...units].sort(orders[tried >> 1]), byNearEnd: tried % 2 === 1 };
+		} else {
+			const order = [...bestAttempt.order];
+			const [i, j] = perturb.next().value as [number, number];
+			// The fold pieces stay where the ordering put them; everything else may swap.
+			if (order[i].onFold === order[j].onFold) [order[i], order[j]] = [order[j], order[i]];
+			attempt = { order, byNearEnd: bestAttempt.byNearEnd };
+		}
+		tried++;
+		const placed = placeAll(context, attempt.order, attempt.byNearEnd, overdue);
+		if (placed) {
+			const length = markerLength(placed);
+			if (length < bestLength - 1e-6) {
+				best = placed;
+				bestLength = length;
+				bestAttempt = attempt;
+			}
+		}
+	}
+	if (!best) return null;
+	const width = options.width;
+	const placements = best
+		.map((p): MarkerPlacement => {
+			const { outline, grainline } = placedOutline(p);
+			return {
+				item: p.unit.item,
+				copy: p.unit.copy,
+				turn: p.variant.turn,
+				mirrored: p.variant.mirrored,
+				outline,
+				grainline,
+				box: boundingBox(outline)
+			};
+		})
+		.sort((a, b) => a.item - b.item || a.copy - b.copy);
+	const area = units.reduce((sum, u) => sum + u.area, 0);
+	return {
+		width,
+		length: bestLength,
+		placements,
+		efficiency: area / (width * bestLength),
+		areaBound: area / width,
+		orderingsTried: tried
+	};
+}
