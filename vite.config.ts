@@ -18,7 +18,7 @@ export default defineConfig({
 				test: {
 					name: 'unit',
 					environment: 'node',
-					include: ['src/**/*.spec.ts'],
+					include: ['src/**/*.spec.ts', 'docker/**/*.spec.ts'],
 					exclude: ['src/**/*.db.spec.ts']
 				}
 			},

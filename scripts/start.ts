@@ -36,7 +36,8 @@ const standins = await startStandins(
 	{
 		smtp: Number(process.env.TACKLINE_SMTP_PORT ?? 2525),
 		mailApi: Number(process.env.TACKLINE_MAIL_API_PORT ?? 2526),
-		s3: Number(process.env.TACKLINE_S3_PORT ?? 2527)
+		s3: Number(process.env.TACKLINE_S3_PORT ?? 2527),
+		search: Number(process.env.TACKLINE_SEARCH_PORT ?? 7701)
 	},
 	{ s3DataDir: join(dataDir, 's3') }
 );

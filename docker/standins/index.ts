@@ -4,9 +4,10 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { startMailStandin } from './mail';
 import { startS3Standin } from './s3';
+import { startSearchStandin } from './search';
 
-/** `s3` 0 (the default) picks a free port. */
-export type StandinPorts = { smtp: number; mailApi: number; s3?: number };
+/** `s3` and `search` 0 (the default) pick a free port. */
+export type StandinPorts = { smtp: number; mailApi: number; s3?: number; search?: number };
 
 /** Without `s3DataDir`, stored objects go to a throwaway folder removed on stop. */
 export async function startStandins(ports: StandinPorts, options: { s3DataDir?: string } = {}) {
@@ -17,16 +18,19 @@ export async function startStandins(ports: StandinPorts, options: { s3DataDir?: 
 		dataDir: options.s3DataDir ?? (throwaway as string),
 		bucket: 'tackline-photos'
 	});
+	const search = await startSearchStandin({ port: ports.search ?? 0 });
 	return {
+		search,
 		env: {
 			SMTP_URL: mail.smtpUrl,
 			MAIL_INBOX_URL: mail.inboxUrl,
 			MAIL_FROM: 'Tackline <hello@tackline.test>',
 			...s3.env,
+			...search.env,
 			AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: 'true'
 		},
 		async stop() {
-			await Promise.all([mail.stop(), s3.stop()]);
+			await Promise.all([mail.stop(), s3.stop(), search.stop()]);
 			if (throwaway) rmSync(throwaway, { recursive: true, force: true });
 		}
 	};

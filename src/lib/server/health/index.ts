@@ -2,6 +2,7 @@ import { sql } from 'drizzle-orm';
 import type { Executor } from '../db';
 import { jobsRunning } from '../jobs/runner';
 import * as mail from '../mail';
+import * as search from '../services/search';
 import * as storage from '../services/storage';
 
 export type HealthChecks = {
@@ -9,9 +10,11 @@ export type HealthChecks = {
 	mail: 'ok' | 'degraded';
 	queue: 'ok' | 'down';
 	storage: 'ok' | 'degraded';
+	/** When search is down, lists come from PostgreSQL instead: slower, still right. */
+	search: 'ok' | 'degraded';
 };
 export type HealthReport = {
-	/** `down` when the database is: nothing works without it. `degraded` when mail, jobs or storage wait. */
+	/** `down` when the database is: nothing works without it. `degraded` when mail, jobs, storage or search wait. */
 	status: 'ok' | 'degraded' | 'down';
 	checks: HealthChecks;
 	/** Internal error text, for administrators only. */
@@ -29,12 +32,18 @@ async function database(db: Executor): Promise<string | null> {
 
 /** Each hosted service adds its check here. The relay's answer is cached, so this is cheap to poll. */
 export async function report(db: Executor, { withDetails = false } = {}): Promise<HealthReport> {
-	const [databaseError, relay, storageCheck] = await Promise.all([database(db), mail.relayStatus(), storage.check()]);
+	const [databaseError, relay, storageCheck, searchCheck] = await Promise.all([
+		database(db),
+		mail.relayStatus(),
+		storage.check(),
+		search.check()
+	]);
 	const checks: HealthChecks = {
 		database: databaseError ? 'down' : 'ok',
 		mail: relay.ok ? 'ok' : 'degraded',
 		queue: jobsRunning() ? 'ok' : 'down',
-		storage: storageCheck === 'ok' ? 'ok' : 'degraded'
+		storage: storageCheck === 'ok' ? 'ok' : 'degraded',
+		search: searchCheck === 'ok' ? 'ok' : 'degraded'
 	};
 	const status =
 		checks.database === 'down' ? 'down' : Object.values(checks).every((c) => c === 'ok') ? 'ok' : 'degraded';
@@ -43,5 +52,6 @@ export async function report(db: Executor, { withDetails = false } = {}): Promis
 	if (databaseError) details.database = databaseError;
 	if (relay.error) details.mail = relay.error;
 	if (storageCheck !== 'ok') details.storage = storageCheck;
+	if (searchCheck !== 'ok') details.search = searchCheck;
 	return { status, checks, details };
 }
