@@ -22,8 +22,8 @@ for (const { width, height, address } of screens) {
 			await expect(page.getByRole('heading', { level: 1, name: 'New measurement profile' })).toBeVisible();
 			await expect(page.getByText('parent or guardian')).toBeVisible();
 			await page.getByLabel('Profile name').fill('Me');
-			await page.getByLabel(/^Someone else/).check();
-			await page.getByLabel('Inches').check();
+			await page.getByRole('radio', { name: /^Someone else/ }).check();
+			await page.getByRole('radio', { name: 'Inches' }).check();
 
 			const hip = page.getByLabel('Hip', { exact: true });
 			await hip.fill('100');
@@ -37,7 +37,8 @@ for (const { width, height, address } of screens) {
 			expect(overflow).toBeLessThanOrEqual(0);
 
 			await page.getByRole('button', { name: 'Save profile' }).click();
-			await expect(page).toHaveURL(/\/measurements\/[0-9a-f-]{36}\?saved=1$/);
+			// Saving and loading the saved profile can take a while on a busy machine.
+			await expect(page).toHaveURL(/\/measurements\/[0-9a-f-]{36}\?saved=1$/, { timeout: 20_000 });
 			await expect(page.getByText('Saved.')).toBeVisible();
 			await expect(page.getByLabel('Hip', { exact: true })).toHaveValue('40 3/8');
 			await expect(page.getByLabel('Waist', { exact: true })).toHaveValue('30 1/8');
