@@ -9,10 +9,12 @@ import {
 	commission,
 	commissionMeasurements,
 	commissionSizeBand,
+	measurementProfile,
 	tailorProfile,
 	user,
 	type CommissionStatus,
 	type NewCommission,
+	type NewMeasurementProfile,
 	type NewTailorProfile,
 	type UserRole
 } from '../../src/lib/server/db/schema';
@@ -72,10 +74,13 @@ export async function createUser(db: Executor, options: PersonOptions = {}): Pro
 
 export type Workroom = Person & { shopName: string; slug: string };
 
-/** A tailor with a workroom in Merrowgate's Old Quay, accepting work unless the profile says otherwise. */
+/**
+ * A tailor with a workroom in Merrowgate's Old Quay, accepting work unless the profile says otherwise.
+ * Onboarding is complete (rates set, `onboarded_at` stamped) unless `onboarded: false`.
+ */
 export async function createWorkroom(
 	db: Executor,
-	options: PersonOptions & { profile?: Partial<Omit<NewTailorProfile, 'userId'>> } = {}
+	options: PersonOptions & { profile?: Partial<Omit<NewTailorProfile, 'userId'>>; onboarded?: boolean } = {}
 ): Promise<Workroom> {
 	const tailor = await createUser(db, { ...options, role: 'tailor' });
 	const slug = options.profile?.slug ?? unique('workroom');
@@ -86,6 +91,9 @@ export async function createWorkroom(
 		lat: place.lat,
 		lng: place.lng,
 		specialties: ['straight-skirt', 'wide-leg-trousers'],
+		...(options.onboarded === false
+			? {}
+			: { countryCode: 'FR', hourlyRateMinor: 2800, rateCurrency: 'EUR', onboardedAt: new Date() }),
 		...options.profile,
 		userId: tailor.id,
 		slug,
@@ -137,4 +145,17 @@ export async function createCommission(
 		]);
 	}
 	return { id: row.id, customerId, status, title };
+}
+
+/** A measurement profile owned by `ownerId`; values in millimetres. */
+export async function createMeasurementProfile(
+	db: Executor,
+	options: { ownerId: string } & Partial<Omit<NewMeasurementProfile, 'ownerId'>>
+): Promise<{ id: string; label: string }> {
+	const label = options.label ?? unique('Profile');
+	const [row] = await db
+		.insert(measurementProfile)
+		.values({ valuesMm: { waist_girth: 740, hip_girth: 1000, waist_to_hip: 205 }, takenBy: 'self', ...options, label })
+		.returning({ id: measurementProfile.id });
+	return { id: row.id, label };
 }

@@ -41,6 +41,17 @@ export function newClient(address = `198.18.${randomInt(0, 255)}.${randomInt(1, 
 			});
 			remember(response);
 			return response;
+		},
+		/** A JSON API call; `body` is sent as JSON when given. */
+		async json(method: string, path: string, body?: unknown) {
+			const response = await fetch(baseUrl + path, {
+				method,
+				headers: headers(body === undefined ? {} : { 'content-type': 'application/json' }),
+				body: body === undefined ? undefined : JSON.stringify(body),
+				redirect: 'manual'
+			});
+			remember(response);
+			return response;
 		}
 	};
 }

@@ -7,6 +7,8 @@ import {
 	formatLength,
 	fromMm,
 	parseLength,
+	parseLengths,
+	retypeLengths,
 	roundUpFabric,
 	toMm,
 	toUnitValue
@@ -143,3 +145,20 @@ describe('round trips (property)', () => {
 function parsedMmOrZero(text: string): number {
 	return text === '0' ? 0 : parsedMm(text, 'in');
 }
+
+describe('parseLengths and retypeLengths', () => {
+	it('reads the three ways of writing 10 3/8 in alike and names what it cannot read', () => {
+		const parsed = parseLengths({ a: '10 3/8', b: '10⅜', c: '10.375', d: 'ten', e: '  ' }, 'in');
+		// 10.375 in × 25.4 mm/in = 263.525 mm (1 in = 25.4 mm exactly).
+		for (const key of ['a', 'b', 'c']) expect(parsed.mm[key], key).toBeCloseTo(263.525, 9);
+		expect(Object.keys(parsed.problems)).toEqual(['d']);
+		expect(parsed.mm.e).toBeUndefined();
+	});
+
+	it('rewrites readable entries in the other unit and leaves the rest as typed', () => {
+		const texts = { hip: '40', waist: '28 1/2', odd: 'ten' };
+		const inCm = retypeLengths(texts, parseLengths(texts, 'in'), 'cm');
+		// 40 in = 101.6 cm; 28.5 in = 72.39 cm, shown to one decimal.
+		expect(inCm).toEqual({ hip: '101.6', waist: '72.4', odd: 'ten' });
+	});
+});

@@ -72,6 +72,38 @@ export function parseLength(text: string, fieldUnit: Unit): ParsedLength {
 	return { ok: true, mm, unit };
 }
 
+export interface ParsedLengths {
+	mm: Record<string, number>;
+	problems: Record<string, string>;
+}
+
+/** Several typed lengths at once: the readable ones in mm, a message for each unreadable one; blanks are skipped. */
+export function parseLengths(texts: Record<string, string>, fieldUnit: Unit): ParsedLengths {
+	const mm: Record<string, number> = {};
+	const problems: Record<string, string> = {};
+	for (const [key, text] of Object.entries(texts)) {
+		if (!text.trim()) continue;
+		const parsed = parseLength(text, fieldUnit);
+		if (parsed.ok) mm[key] = parsed.mm;
+		else problems[key] = parsed.message;
+	}
+	return { mm, problems };
+}
+
+/** Typed lengths rewritten in another unit so nothing changes size; unreadable entries stay as typed. */
+export function retypeLengths(
+	texts: Record<string, string>,
+	parsed: ParsedLengths,
+	next: Unit
+): Record<string, string> {
+	return Object.fromEntries(
+		Object.entries(texts).map(([key, text]) => [
+			key,
+			parsed.mm[key] !== undefined ? formatForInput(parsed.mm[key], next) : text
+		])
+	);
+}
+
 function parseAmount(text: string): number | null {
 	const decimal = /^\d+(?:[.,]\d+)?$|^[.,]\d+$/;
 	if (decimal.test(text)) return Number(text.replace(',', '.'));

@@ -5,6 +5,8 @@ import {
 	getTemplate,
 	metricDefaultMm,
 	parseLength,
+	parseLengths,
+	retypeLengths,
 	toMm,
 	type DraftResponse,
 	type GarmentId,
@@ -46,23 +48,6 @@ const examples: Record<GarmentId, { unit: Unit; measurements: Texts; options?: T
 	tunic: { unit: 'cm', measurements: { bust_girth: '88', hip_girth: '96', shoulder_width: '38' } }
 };
 
-export interface ParsedFields {
-	mm: Record<string, number>;
-	problems: Record<string, string>;
-}
-
-function parseAll(texts: Texts, unit: Unit): ParsedFields {
-	const mm: Record<string, number> = {};
-	const problems: Record<string, string> = {};
-	for (const [key, text] of Object.entries(texts)) {
-		if (!text.trim()) continue;
-		const parsed = parseLength(text, unit);
-		if (parsed.ok) mm[key] = parsed.mm;
-		else problems[key] = parsed.message;
-	}
-	return { mm, problems };
-}
-
 /** Everything the draft calculator page knows, computed in the browser from what has been typed. */
 export class DraftCalculator {
 	garment = $state<GarmentId>('wide-leg-trousers');
@@ -81,9 +66,9 @@ export class DraftCalculator {
 
 	template = $derived(getTemplate(this.garment));
 	fields = $derived<MeasurementCode[]>([...this.template.requiredMeasurements, ...this.template.optionalMeasurements]);
-	measurements = $derived(parseAll(this.measurementTexts, this.unit));
-	options = $derived(parseAll(this.optionTexts, this.unit));
-	repeat = $derived(parseAll({ repeat: this.repeatText }, this.unit));
+	measurements = $derived(parseLengths(this.measurementTexts, this.unit));
+	options = $derived(parseLengths(this.optionTexts, this.unit));
+	repeat = $derived(parseLengths({ repeat: this.repeatText }, this.unit));
 	widthPresets = $derived(fabricWidthPresets[this.unit]);
 
 	/** In centimetres, empty length options take round metric defaults (1.5 cm, not 1.6 cm for ⅝ in). */
@@ -140,16 +125,9 @@ export class DraftCalculator {
 	/** Switch units, rewriting every readable entry in the new unit so nothing changes size. */
 	setUnit(next: Unit) {
 		if (next === this.unit) return;
-		const convert = (texts: Texts, parsed: ParsedFields) =>
-			Object.fromEntries(
-				Object.entries(texts).map(([key, text]) => [
-					key,
-					parsed.mm[key] !== undefined ? formatForInput(parsed.mm[key], next) : text
-				])
-			);
-		this.measurementTexts = convert(this.measurementTexts, this.measurements);
-		this.optionTexts = convert(this.optionTexts, this.options);
-		this.repeatText = convert({ repeat: this.repeatText }, this.repeat).repeat;
+		this.measurementTexts = retypeLengths(this.measurementTexts, this.measurements, next);
+		this.optionTexts = retypeLengths(this.optionTexts, this.options, next);
+		this.repeatText = retypeLengths({ repeat: this.repeatText }, this.repeat, next).repeat;
 		this.unit = next;
 	}
 

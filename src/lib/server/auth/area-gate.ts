@@ -3,6 +3,7 @@ import type { UserRole } from '../db/schema';
 
 const areas: [prefix: string, role: UserRole][] = [
 	['/commissions', 'customer'],
+	['/measurements', 'customer'],
 	['/workroom', 'tailor'],
 	['/desk', 'admin']
 ];

@@ -1,0 +1,20 @@
+/**
+ * Every page, form action and endpoint of the marketplace areas, tried by each kind of person: anonymous,
+ * the owner, another customer, a tailor (onboarded and not), an admin and a suspended account. Each area's
+ * rows live in `./authorization/<area>.ts`; add an area by importing its rows and adding one line below.
+ */
+import { afterAll, beforeAll } from 'vitest';
+import { castActors } from './authorization/actors';
+import { describeMatrix, type World } from './authorization/matrix';
+import { measurementProfileRows } from './authorization/measurement-profiles';
+import { testDb } from './db';
+
+const { db, pool } = testDb();
+let world: World;
+
+beforeAll(async () => {
+	world = { db, cast: await castActors(db) };
+});
+afterAll(() => pool.end());
+
+describeMatrix('measurement profiles', measurementProfileRows, () => world);
