@@ -31,7 +31,8 @@ describe('GET /api/v1/places', () => {
 		['near=north', 'a point that is not two numbers'],
 		['near=91,10', 'a point off the earth'],
 		['q=Lyon&limit=500', 'a limit above 20'],
-		[`q=${'a'.repeat(101)}`, 'a name over 100 characters']
+		[`q=${'a'.repeat(101)}`, 'a name over 100 characters'],
+		['q=Ly%00on', 'a name carrying a NUL byte']
 	])('answers 400 with the error shape for %s (%s)', async (query) => {
 		const { status, body } = await get(query);
 		expect(status).toBe(400);

@@ -89,3 +89,21 @@ export async function parseJsonBody<S extends z.ZodType>(
 	const parsed = schema.safeParse(body.body);
 	return parsed.success ? { ok: true, data: parsed.data } : { ok: false, response: invalidInput(parsed.error) };
 }
+
+/**
+ * Reads a query string against a schema: 400 with the usual error body when a parameter carries a control
+ * character (which no database text accepts) or the schema refuses it.
+ */
+export function parseQuery<T extends z.ZodType>(
+	url: URL,
+	schema: T
+): { ok: true; data: z.output<T> } | { ok: false; response: Response } {
+	const params = Object.fromEntries(url.searchParams);
+	const dirty = Object.entries(params)
+		.filter(([key, value]) => hasControlCharacters(key) || hasControlCharacters(value))
+		.map(([key]) => ({ path: key, message: 'Contains control characters.' }));
+	if (dirty.length)
+		return { ok: false, response: apiError(400, 'invalid_input', 'The request has invalid fields.', dirty) };
+	const parsed = schema.safeParse(params);
+	return parsed.success ? { ok: true, data: parsed.data } : { ok: false, response: invalidInput(parsed.error) };
+}

@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import { coarsen } from '$lib/geo/coarsen';
-import { invalidInput } from '$lib/server/http/respond';
+import { parseQuery } from '$lib/server/http/respond';
 import * as places from '$lib/server/places';
 import type { RequestHandler } from './$types';
 
@@ -26,8 +26,8 @@ const query = z
 
 /** Towns by name (with an optional country), or the town nearest a point. Public, like the gazetteer. */
 export const GET: RequestHandler = async ({ url, locals }) => {
-	const parsed = query.safeParse(Object.fromEntries(url.searchParams));
-	if (!parsed.success) return invalidInput(parsed.error);
+	const parsed = parseQuery(url, query);
+	if (!parsed.ok) return parsed.response;
 	const { q, country, near, limit } = parsed.data;
 	if (near) {
 		const [lat, lng] = near;
