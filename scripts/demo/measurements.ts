@@ -118,7 +118,7 @@ const nadia: MeasurementValuesMm = {
 	arm_length: 560
 };
 
-type DemoProfile = Pick<NewMeasurementProfile, 'label' | 'valuesMm' | 'takenBy' | 'notes'> & {
+type DemoProfile = Pick<NewMeasurementProfile, 'label' | 'unit' | 'valuesMm' | 'takenBy' | 'notes'> & {
 	n: number;
 	owner: string;
 	takenDaysAgo: number;
@@ -154,6 +154,7 @@ const profiles = {
 		n: 4,
 		owner: 'felix.garrow@tackline.test',
 		label: 'Me',
+		unit: 'in',
 		valuesMm: felix,
 		takenBy: 'self',
 		takenDaysAgo: 12
