@@ -2,7 +2,9 @@ import { expect, test } from '@playwright/test';
 import { signInWithPassword } from './helpers';
 
 // Signing in hashes a password; give a busy machine room.
-test.setTimeout(120_000);
+test.setTimeout(180_000);
+// Each step saves on the server before the next page loads; a busy machine takes its time.
+const after = expect.configure({ timeout: 30_000 });
 
 function isoDaysAhead(days: number) {
 	return new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
@@ -22,30 +24,30 @@ for (const width of [390, 1280]) {
 			await page.getByLabel('Title').fill(title);
 			await page.getByLabel('Style notes').fill('Midi length, deep pockets.');
 			await page.getByRole('button', { name: 'Save and continue' }).click();
-			await expect(page).toHaveURL(/\/edit\/photos$/);
+			await page.waitForURL(/\/edit\/photos$/, { waitUntil: 'commit', timeout: 30_000 });
 
 			// The photo step is joined in separately; the step navigation reaches the next one.
 			const id = /commissions\/([0-9a-f-]{36})\//.exec(page.url())![1];
 			await page.goto(`/commissions/${id}/edit/measurements`);
-			await expect(page.getByText('Has everything this garment needs.')).toBeVisible();
+			await after(page.getByText('Has everything this garment needs.')).toBeVisible();
 			await page.getByRole('radio', { name: 'Me' }).check();
 			await page.getByRole('button', { name: 'Save and continue' }).click();
 
-			await expect(page.getByRole('heading', { name: 'Fabric' })).toBeVisible();
+			await after(page.getByRole('heading', { name: 'Fabric' })).toBeVisible();
 			await page.getByLabel('The tailor sources it').check();
 			await page.getByRole('button', { name: 'Save and continue' }).click();
 
-			await expect(page.getByRole('heading', { name: 'Budget and date' })).toBeVisible();
+			await after(page.getByRole('heading', { name: 'Budget and date' })).toBeVisible();
 			await page.getByLabel('From').fill('90');
 			await page.getByLabel('Up to').fill('60');
 			await page.getByLabel('Needed by').fill(isoDaysAhead(50));
 			await page.getByRole('button', { name: 'Save and continue' }).click();
-			await expect(page.getByText('The lowest amount must not be above the highest.')).toBeVisible();
+			await after(page.getByText('The lowest amount must not be above the highest.')).toBeVisible();
 			await expect(page.getByLabel('From')).toHaveValue('90');
 			await page.getByLabel('Up to').fill('140');
 			await page.getByRole('button', { name: 'Save and continue' }).click();
 
-			await expect(page.getByRole('heading', { name: 'Place and handover' })).toBeVisible();
+			await after(page.getByRole('heading', { name: 'Place and handover' })).toBeVisible();
 			await page.getByLabel('Town').fill('Merrowgate');
 			await page.getByLabel('Country code').fill('FR');
 			await page.getByLabel('Latitude').fill('46.8398');
@@ -53,11 +55,11 @@ for (const width of [390, 1280]) {
 			await page.getByLabel('I collect it from the workroom').check();
 			await page.getByRole('button', { name: 'Save and review' }).click();
 
-			await expect(page.getByRole('heading', { name: 'Review and publish' })).toBeVisible();
+			await after(page.getByRole('heading', { name: 'Review and publish' })).toBeVisible();
 			await expect(page.getByText('€90 – €140')).toBeVisible();
 			await page.getByRole('button', { name: 'Publish commission' }).click();
 
-			await expect(page.getByText('Published. Tailors near you can now see it')).toBeVisible();
+			await after(page.getByText('Published. Tailors near you can now see it')).toBeVisible();
 			await expect(page.getByText('Open for quotes', { exact: true })).toBeVisible();
 			await expect(page.getByRole('table')).toContainText('Waist');
 		});

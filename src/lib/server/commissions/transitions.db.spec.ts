@@ -37,7 +37,7 @@ async function customer(): Promise<Actor & { profileId: string }> {
 			ownerId: person.id,
 			label: 'Me',
 			unit: 'in',
-			valuesMm: { bust_girth: 920, waist_girth: 740, hip_girth: 1000 }
+			valuesMm: { bust_girth: 920, waist_girth: 740, hip_girth: 1000, shoulder_width: 385 }
 		})
 		.returning({ id: measurementProfile.id });
 	return { id: person.id, role: 'customer', profileId: profile.id };
