@@ -21,7 +21,9 @@ export type Actor = { id: string; role: 'customer' | 'tailor' | 'admin'; ip?: st
 type Columns = Partial<typeof commission.$inferInsert>;
 
 function toColumns(changes: DraftChanges): Columns {
-	const { place, ...rest } = changes;
+	const { place, ...given } = changes;
+	// A named garment carries no free-text name.
+	const rest = given.garmentType && given.garmentType !== 'other' ? { ...given, garmentOther: '' } : given;
 	if (!place) return rest;
 	const point = coarsen(place);
 	return {
@@ -50,8 +52,6 @@ async function validate(
 		issues.push({ path: 'budget', message: 'The lowest amount must not be above the highest.' });
 	if (changes.measurementProfileId && !(await snapshotFor(db, { profileId: changes.measurementProfileId, ownerId })))
 		issues.push({ path: 'measurementProfileId', message: 'Choose one of your own measurement profiles.' });
-	if (changes.garmentType && changes.garmentType !== 'other' && changes.garmentOther === undefined)
-		changes.garmentOther = '';
 	if (issues.length) throw new CommissionError('invalid', 'Some fields need another look.', issues);
 }
 
