@@ -5,6 +5,7 @@ import * as audit from '../audit';
 import type { Executor } from '../db';
 import { commission, commissionMeasurements, commissionSizeBand, type Commission } from '../db/schema';
 import * as mail from '../mail';
+import type { Mail } from '../mail';
 import { commissionOpenDays } from '../services/commission-settings';
 import { CommissionError, type CommissionIssue } from './errors';
 import { coarsen } from './location';
@@ -78,6 +79,41 @@ function wrongStatus(row: Commission, doing: string): never {
 	throw new CommissionError('wrong_status', `A commission that is ${row.status} cannot be ${doing}.`);
 }
 
+/** The columns whose value would actually change. */
+function changedColumns(row: Commission, columns: Columns): Columns {
+	return Object.fromEntries(Object.entries(columns).filter(([key, value]) => row[key as keyof Commission] !== value));
+}
+
+/** Writes a change to a locked row and its audit event; the new row comes back. */
+async function saveChange(
+	tx: Executor,
+	row: Commission,
+	{ actor, set, action, data }: { actor: Actor; set: Columns; action: string; data: Record<string, unknown> }
+) {
+	const [updated] = await tx
+		.update(commission)
+		.set({ ...set, updatedAt: new Date() })
+		.where(eq(commission.id, row.id))
+		.returning();
+	await audit.record(tx, {
+		actorId: actor.id,
+		ip: actor.ip,
+		action,
+		subjectType: 'commission',
+		subjectId: row.id,
+		data
+	});
+	return updated;
+}
+
+/** One mail to each tailor with a live quote on the commission. */
+async function mailQuotingTailors(tx: Executor, commissionId: string, write: (to: string) => Mail) {
+	for (const { tailorId } of await liveQuoteTailors(tx, commissionId)) {
+		const tailor = await accounts.getProfile(tx, { id: tailorId });
+		if (tailor) await mail.queue(tx, write(tailor.email));
+	}
+}
+
 /**
  * Starts a draft. A retry of the same request (same garment and title within a minute) returns the draft
  * the first attempt made instead of a second one.
@@ -139,20 +175,13 @@ export async function updateDraft(
 		const row = await lockOwn(tx, id, actor);
 		if (row.status !== 'draft') wrongStatus(row, 'edited as a draft');
 		await validate(tx, changes, row, { ownerId: actor.id, today: await customerToday(tx, actor, today) });
-		const columns = toColumns(changes);
-		if (Object.keys(columns).length === 0) return row;
-		const [updated] = await tx
-			.update(commission)
-			.set({ ...columns, updatedAt: new Date() })
-			.where(eq(commission.id, id))
-			.returning();
-		await audit.record(tx, {
-			actorId: actor.id,
-			ip: actor.ip,
+		const set = changedColumns(row, toColumns(changes));
+		if (Object.keys(set).length === 0) return row;
+		const updated = await saveChange(tx, row, {
+			actor,
+			set,
 			action: 'commission.draft_saved',
-			subjectType: 'commission',
-			subjectId: id,
-			data: { fields: Object.keys(columns) }
+			data: { fields: Object.keys(set) }
 		});
 		return updated;
 	});
@@ -241,31 +270,16 @@ export async function editOpen(
 				locked.map((path) => ({ path, message: 'Fixed once the commission is open.' }))
 			);
 		await validate(tx, changes, row, { ownerId: actor.id, today: await customerToday(tx, actor, today) });
-		const columns = toColumns(changes);
-		const changed = Object.fromEntries(
-			Object.entries(columns).filter(([key, value]) => row[key as keyof Commission] !== value)
-		) as Columns;
-		if (Object.keys(changed).length === 0) return row;
-		const [updated] = await tx
-			.update(commission)
-			.set({ ...changed, updatedAt: new Date() })
-			.where(eq(commission.id, id))
-			.returning();
-		const lines = describeChanges(row, updated);
-		await audit.record(tx, {
-			actorId: actor.id,
-			ip: actor.ip,
+		const set = changedColumns(row, toColumns(changes));
+		if (Object.keys(set).length === 0) return row;
+		const updated = await saveChange(tx, row, {
+			actor,
+			set,
 			action: 'commission.edited',
-			subjectType: 'commission',
-			subjectId: id,
-			data: { fields: Object.keys(changed) }
+			data: { fields: Object.keys(set) }
 		});
-		if (lines.length) {
-			for (const tailor of await liveQuoteTailors(tx, id)) {
-				const profile = await accounts.getProfile(tx, { id: tailor.tailorId });
-				if (profile) await mail.queue(tx, changedMail(profile.email, updated, lines));
-			}
-		}
+		const lines = describeChanges(row, updated);
+		if (lines.length) await mailQuotingTailors(tx, id, (to) => changedMail(to, updated, lines));
 		return updated;
 	});
 }
@@ -276,25 +290,13 @@ export async function cancel(db: Executor, { id, actor }: { id: string; actor: A
 		const row = await lockOwn(tx, id, actor);
 		if (row.status === 'cancelled') return row;
 		if (row.status !== 'draft' && row.status !== 'open') wrongStatus(row, 'cancelled');
-		const [updated] = await tx
-			.update(commission)
-			.set({ status: 'cancelled', updatedAt: new Date() })
-			.where(eq(commission.id, id))
-			.returning();
-		await audit.record(tx, {
-			actorId: actor.id,
-			ip: actor.ip,
+		const updated = await saveChange(tx, row, {
+			actor,
+			set: { status: 'cancelled' },
 			action: 'commission.cancelled',
-			subjectType: 'commission',
-			subjectId: id,
 			data: { from: row.status }
 		});
-		if (row.status === 'open') {
-			for (const tailor of await liveQuoteTailors(tx, id)) {
-				const profile = await accounts.getProfile(tx, { id: tailor.tailorId });
-				if (profile) await mail.queue(tx, cancelledMail(profile.email, row));
-			}
-		}
+		if (row.status === 'open') await mailQuotingTailors(tx, id, (to) => cancelledMail(to, row));
 		return updated;
 	});
 }
