@@ -1,8 +1,6 @@
 /** Merrowgate, the invented river-mouth city the demo takes place in. */
 export const city = 'Merrowgate';
 export const currency = 'EUR';
-/** The country the invented city is placed in, for places and commissions. */
-export const countryCode = 'FR';
 export const timeZone = 'Europe/Paris';
 
 export const districts = {

@@ -1,9 +1,10 @@
 import { getTemplate, sizeBand, type GarmentId } from '../../src/lib/drafting';
 import type { NewCommission } from '../../src/lib/server/db/schema';
-import { city, coarsen, countryCode, currency, districts, type DistrictKey } from './city';
+import { city, coarsen, currency, districts, type DistrictKey } from './city';
 import { demoId } from './ids';
 import type { demoMeasurementProfiles, ProfileKey } from './measurements';
 import { personId } from './people';
+import { demoCountry } from './places';
 import { dateFrom, daysFrom } from './time';
 
 type Profiles = ReturnType<typeof demoMeasurementProfiles>;
@@ -245,7 +246,7 @@ export function demoCommissions(now: Date): NewCommission[] {
 			dateNeeded: dateFrom(now, ended === 'expired' ? neededInDays - (postedDaysAgo ?? 0) : neededInDays),
 			city,
 			district: place.name,
-			countryCode,
+			countryCode: demoCountry,
 			approxLat: point.lat,
 			approxLng: point.lng,
 			status: ended ?? (posted ? 'open' : 'draft'),

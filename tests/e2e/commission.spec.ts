@@ -48,10 +48,8 @@ for (const width of [390, 1280]) {
 			await page.getByRole('button', { name: 'Save and continue' }).click();
 
 			await after(page.getByRole('heading', { name: 'Place and handover' })).toBeVisible();
-			await page.getByLabel('Town').fill('Merrowgate');
-			await page.getByLabel('Country code').fill('FR');
-			await page.getByLabel('Latitude').fill('46.8398');
-			await page.getByLabel('Longitude').fill('3.2243');
+			await page.getByLabel('Town name').fill('Ferrin Hill');
+			await page.getByLabel('Country', { exact: true }).selectOption('FR');
 			await page.getByLabel('I collect it from the workroom').check();
 			await page.getByRole('button', { name: 'Save and review' }).click();
 
@@ -60,6 +58,7 @@ for (const width of [390, 1280]) {
 			await page.getByRole('button', { name: 'Publish commission' }).click();
 
 			await after(page.getByText('Published. Tailors near you can now see it')).toBeVisible();
+			await expect(page.getByText('Ferrin Hill')).toBeVisible();
 			await expect(page.getByText('Open for quotes', { exact: true })).toBeVisible();
 			await expect(page.getByRole('table')).toContainText('Waist');
 		});

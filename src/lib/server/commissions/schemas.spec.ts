@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
 import { leadTimeWarning, todayIn } from './lead-times';
-import { coarsen } from './location';
 import { amountForInput, budgetForm, garmentForm } from './schemas';
 
 const budget = (fields: Record<string, string>) =>
@@ -60,30 +59,5 @@ describe('lead time', () => {
 		const lateEvening = new Date('2027-01-01T23:30:00Z');
 		expect(todayIn('Asia/Tokyo', lateEvening)).toBe('2027-01-02');
 		expect(todayIn('America/Los_Angeles', lateEvening)).toBe('2027-01-01');
-	});
-});
-
-describe('coarsen', () => {
-	// Haversine distance on a sphere of radius 6371 km (the IUGG mean Earth radius).
-	function km(a: { lat: number; lng: number }, b: { lat: number; lng: number }) {
-		const rad = Math.PI / 180;
-		const h =
-			Math.sin(((b.lat - a.lat) * rad) / 2) ** 2 +
-			Math.cos(a.lat * rad) * Math.cos(b.lat * rad) * Math.sin(((b.lng - a.lng) * rad) / 2) ** 2;
-		return 2 * 6371 * Math.asin(Math.sqrt(h));
-	}
-
-	it('moves a point to its cell centre, under a kilometre away at any latitude, the same for nearby points', () => {
-		for (const point of [
-			{ lat: 46.8512, lng: 3.2089 },
-			{ lat: 69.6492, lng: 18.9553 },
-			{ lat: -33.8688, lng: 151.2093 },
-			{ lat: 0.0001, lng: -0.0001 }
-		]) {
-			const cell = coarsen(point);
-			expect(km(point, cell)).toBeLessThan(0.75);
-			expect(cell).not.toEqual(point);
-		}
-		expect(coarsen({ lat: 46.85121, lng: 3.20891 })).toEqual(coarsen({ lat: 46.85122, lng: 3.20892 }));
 	});
 });

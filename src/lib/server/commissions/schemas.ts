@@ -161,17 +161,6 @@ export const budgetForm = z
 
 export const handoverForm = z.object({ handover });
 
-const coordinate = (bound: number) => z.coerce.number({ error: 'Choose your town.' }).min(-bound).max(bound);
-
-/** The place step: the town as the place picker submits it, and the handover. */
-export const placeForm = z.object({
-	place_name: text({ min: 1, max: 120, tooShort: 'Choose your town.' }),
-	place_country: countryCode,
-	place_lat: coordinate(90),
-	place_lng: coordinate(180),
-	handover
-});
-
 /** Minor units shown back in a form field, in the currency's own decimals. */
 export function amountForInput(amountMinor: number | null, currencyCode: string) {
 	if (amountMinor === null) return '';

@@ -8,7 +8,7 @@ import * as mail from '../mail';
 import type { Mail } from '../mail';
 import { commissionOpenDays } from '../services/commission-settings';
 import { CommissionError, type CommissionIssue } from './errors';
-import { coarsen } from './location';
+import { coarsen } from '$lib/geo/coarsen';
 import { cancelledMail, changedMail, describeChanges, expiredMail } from './mails';
 import { snapshotFor } from './profile-snapshot';
 import { liveQuoteTailors, hasAcceptedQuote, sizeBandOf } from './quotes-read';

@@ -1,6 +1,7 @@
 import { json } from '@sveltejs/kit';
 import * as commissions from '$lib/server/commissions';
 import { apiError } from '$lib/server/http/respond';
+import { placeFromPoint } from '$lib/server/places/form';
 import type { SessionUser } from '$lib/types/user';
 
 type View = commissions.CommissionView;
@@ -30,4 +31,14 @@ export function refused(error: unknown) {
 
 export function actorOf(user: SessionUser, ip: string): commissions.Actor {
 	return { id: user.id, role: user.role, ip };
+}
+
+type Changes = ReturnType<typeof commissions.schemas.changesFromApi>;
+
+/** A bare point from an API client is named after the nearest town, as the place picker would. */
+export async function withTownName<T extends Changes>(db: App.Locals['db'], changes: T): Promise<T> {
+	if (!changes.place || changes.place.city) return changes;
+	const found = await placeFromPoint(db, changes.place);
+	if (!found.ok) return changes;
+	return { ...changes, place: { ...changes.place, city: found.place.name, countryCode: changes.place.countryCode ?? found.place.country } };
 }

@@ -56,7 +56,12 @@ export async function saveStep<S extends z.ZodType>(
 		schema,
 		fields,
 		toChanges
-	}: { step: CommissionStepId; schema: S; fields: string[]; toChanges: (data: z.output<S>) => DraftChanges }
+	}: {
+		step: CommissionStepId;
+		schema: S;
+		fields: string[];
+		toChanges: (data: z.output<S>, db: App.Locals['db']) => DraftChanges | Promise<DraftChanges>;
+	}
 ) {
 	const user = requireRole('customer');
 	const { locals, params } = event;
@@ -74,12 +79,12 @@ export async function saveStep<S extends z.ZodType>(
 		if (then === 'back' && !isOpen) redirect(303, destination(params.id, step, 'back', false));
 		return fail(400, { values, errors: parsed.errors });
 	}
-	const input = {
-		id: params.id,
-		actor: { id: user.id, role: user.role, ip: event.getClientAddress() },
-		changes: toChanges(parsed.data)
-	};
 	try {
+		const input = {
+			id: params.id,
+			actor: { id: user.id, role: user.role, ip: event.getClientAddress() },
+			changes: await toChanges(parsed.data, locals.db)
+		};
 		if (isOpen) await commissions.editOpen(locals.db, input);
 		else await commissions.updateDraft(locals.db, input);
 	} catch (cause) {

@@ -1,7 +1,7 @@
 import { requireRole, requireUser } from '$lib/server/auth/guard';
 import * as commissions from '$lib/server/commissions';
 import { apiError, parseJsonBody } from '$lib/server/http/respond';
-import { actorOf, answerWith, refused } from '../respond.server';
+import { actorOf, answerWith, refused, withTownName } from '../respond.server';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = async ({ params, locals }) => answerWith(locals.db, requireUser(), params.id);
@@ -16,7 +16,7 @@ export const PATCH: RequestHandler = async ({ params, request, locals, getClient
 	const input = {
 		id: params.id,
 		actor: actorOf(user, getClientAddress()),
-		changes: commissions.schemas.changesFromApi(parsed.data)
+		changes: await withTownName(locals.db, commissions.schemas.changesFromApi(parsed.data))
 	};
 	try {
 		if (own.status === 'open') await commissions.editOpen(locals.db, input);
