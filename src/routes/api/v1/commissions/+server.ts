@@ -8,7 +8,10 @@ export const POST: RequestHandler = async ({ request, locals, getClientAddress }
 	const user = requireRole('customer');
 	const parsed = await parseJsonBody(request, commissions.schemas.apiCreate);
 	if (!parsed.ok) return parsed.response;
-	const { garmentType, title, ...changes } = await withTownName(locals.db, commissions.schemas.changesFromApi(parsed.data));
+	const { garmentType, title, ...changes } = await withTownName(
+		locals.db,
+		commissions.schemas.changesFromApi(parsed.data)
+	);
 	try {
 		const draft = await commissions.createDraft(locals.db, {
 			actor: actorOf(user, getClientAddress()),

@@ -40,5 +40,8 @@ export async function withTownName<T extends Changes>(db: App.Locals['db'], chan
 	if (!changes.place || changes.place.city) return changes;
 	const found = await placeFromPoint(db, changes.place);
 	if (!found.ok) return changes;
-	return { ...changes, place: { ...changes.place, city: found.place.name, countryCode: changes.place.countryCode ?? found.place.country } };
+	return {
+		...changes,
+		place: { ...changes.place, city: found.place.name, countryCode: changes.place.countryCode ?? found.place.country }
+	};
 }
