@@ -11,13 +11,17 @@ import { describeForLog, redact } from '$lib/server/http/redact';
 import { limitPublicApi } from '$lib/server/limits/handle';
 import { queueNames } from '$lib/server/jobs/names';
 import { startJobs, stopJobs } from '$lib/server/jobs/runner';
+import * as commissions from '$lib/server/commissions';
 import * as mail from '$lib/server/mail';
 
 /** Background jobs (mail and later ones) run in the app process; adapter-node's shutdown lets them finish. */
 export const init: ServerInit = async () => {
 	if (building) return; // prerendering public pages needs no database
 	process.once('sveltekit:shutdown', () => void stopJobs());
-	await startJobs({ [queueNames.mail]: mail.deliver });
+	await startJobs({
+		[queueNames.mail]: mail.deliver,
+		[queueNames.commissionExpiry]: async () => void (await commissions.expireDue(db))
+	});
 	void mail.relayStatus(); // warm the health check's cache
 };
 

@@ -4,6 +4,7 @@ import { city, coarsen, currency, districts, type DistrictKey } from './city';
 import { demoId } from './ids';
 import type { demoMeasurementProfiles, ProfileKey } from './measurements';
 import { personId } from './people';
+import { demoCountry } from './places';
 import { dateFrom, daysFrom } from './time';
 
 type Profiles = ReturnType<typeof demoMeasurementProfiles>;
@@ -20,7 +21,14 @@ type DemoCommission = Pick<
 	neededInDays: number;
 	/** Absent for a draft. */
 	postedDaysAgo?: number;
+	/** Where it ended when it is no longer a draft or open. */
+	ended?: 'cancelled' | 'expired';
+	/** Reference photos the demo image generator makes for it (scripts/demo/images.ts). */
+	photos?: { count: number; motif: string };
 };
+
+/** How long a demo commission stays open, as COMMISSION_OPEN_DAYS defaults. */
+const openDays = 30;
 
 const demoCommissionList: DemoCommission[] = [
 	{
@@ -37,7 +45,8 @@ const demoCommissionList: DemoCommission[] = [
 		budget: [12000, 18000],
 		neededInDays: 45,
 		handover: 'pickup',
-		postedDaysAgo: 3
+		postedDaysAgo: 3,
+		photos: { count: 2, motif: 'sand linen trousers, front and side' }
 	},
 	{
 		n: 2,
@@ -83,7 +92,8 @@ const demoCommissionList: DemoCommission[] = [
 		budget: [20000, 32000],
 		neededInDays: 60,
 		handover: 'delivery',
-		postedDaysAgo: 5
+		postedDaysAgo: 5,
+		photos: { count: 3, motif: 'teal shift dress, bateau neckline' }
 	},
 	{
 		n: 5,
@@ -113,7 +123,8 @@ const demoCommissionList: DemoCommission[] = [
 		budget: [9000, 14000],
 		neededInDays: 35,
 		handover: 'pickup',
-		postedDaysAgo: 6
+		postedDaysAgo: 6,
+		photos: { count: 1, motif: 'rust needlecord midi skirt' }
 	},
 	{
 		n: 7,
@@ -129,8 +140,64 @@ const demoCommissionList: DemoCommission[] = [
 		neededInDays: 35,
 		handover: 'pickup',
 		postedDaysAgo: 6
+	},
+	{
+		n: 8,
+		customer: 'tamsin.oyelaran@tackline.test',
+		profile: 'tamsin',
+		district: 'brightwater',
+		garmentType: 'straight-skirt',
+		title: 'Pencil skirt in navy crepe',
+		styleNotes: 'Just below the knee, walking slit at the back, no waistband (faced instead).',
+		fabricSource: 'tailor_sources',
+		fabricNotes: 'Heavy navy crepe with a little stretch.',
+		budget: [9000, 13000],
+		neededInDays: 20,
+		handover: 'pickup',
+		postedDaysAgo: 12,
+		ended: 'cancelled'
+	},
+	{
+		n: 9,
+		customer: 'felix.garrow@tackline.test',
+		profile: 'felix',
+		district: 'cobbleRow',
+		garmentType: 'tunic',
+		title: 'Collarless work tunic in heavy cotton',
+		styleNotes: 'Hip length, patch pocket on the chest, sleeves that roll up and stay there.',
+		fabricSource: 'tailor_sources',
+		fabricNotes: 'Undyed heavy cotton canvas or drill.',
+		budget: [7000, 10000],
+		neededInDays: 10,
+		handover: 'delivery',
+		postedDaysAgo: 34,
+		ended: 'expired'
+	},
+	{
+		n: 10,
+		customer: 'nadia.kestrel@tackline.test',
+		profile: 'nadia',
+		district: 'ferrinHill',
+		garmentType: 'shift-dress',
+		title: 'Winter shift dress in wool crepe',
+		styleNotes: 'Long sleeves, round neck, pockets in the side seams. Still choosing the colour.',
+		fabricSource: 'customer_supplies',
+		fabricNotes: '',
+		budget: [18000, 26000],
+		neededInDays: 70,
+		handover: 'pickup'
 	}
 ];
+
+/**
+ * The hook for demo reference photos: which commissions get generated images, how many, of what. The
+ * photo generator (scripts/demo/images.ts) makes and stores them and writes the `commission_photo` rows.
+ */
+export function demoCommissionPhotoPlan() {
+	return demoCommissionList
+		.filter((c) => c.photos)
+		.map((c) => ({ commissionId: demoId('commission', c.n), title: c.title, ...c.photos! }));
+}
 
 /** What publishing writes beside each posted commission: the frozen measurements and the size band. */
 export function demoCommissionMeasurements(profiles: Profiles) {
@@ -146,6 +213,7 @@ export function demoCommissionMeasurements(profiles: Profiles) {
 					commissionId,
 					profileId: profile.id,
 					label: profile.label,
+					unit: profile.unit ?? 'cm',
 					valuesMm,
 					takenBy: profile.takenBy,
 					takenAt: profile.takenAt ?? null
@@ -163,9 +231,11 @@ export function demoCommissionMeasurements(profiles: Profiles) {
 
 export function demoCommissions(now: Date): NewCommission[] {
 	return demoCommissionList.map((c) => {
-		const { n, customer, profile, district, budget, neededInDays, postedDaysAgo, ...rest } = c;
+		const { n, customer, profile, district, budget, neededInDays, postedDaysAgo, ended, photos, ...rest } = c;
 		const place = districts[district];
 		const posted = postedDaysAgo !== undefined;
+		const publishedAt = posted ? daysFrom(now, -postedDaysAgo) : null;
+		const point = coarsen(place);
 		return {
 			...rest,
 			id: demoId('commission', n),
@@ -173,13 +243,15 @@ export function demoCommissions(now: Date): NewCommission[] {
 			budgetMinMinor: budget[0],
 			budgetMaxMinor: budget[1],
 			currency,
-			dateNeeded: dateFrom(now, neededInDays),
+			dateNeeded: dateFrom(now, ended === 'expired' ? neededInDays - (postedDaysAgo ?? 0) : neededInDays),
 			city,
 			district: place.name,
-			approxLat: coarsen(place).lat,
-			approxLng: coarsen(place).lng,
-			status: posted ? 'open' : 'draft',
-			publishedAt: posted ? daysFrom(now, -postedDaysAgo) : null
+			countryCode: demoCountry,
+			approxLat: point.lat,
+			approxLng: point.lng,
+			status: ended ?? (posted ? 'open' : 'draft'),
+			publishedAt,
+			expiresAt: publishedAt && daysFrom(publishedAt, openDays)
 		};
 	});
 }

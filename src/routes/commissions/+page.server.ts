@@ -2,7 +2,12 @@ import { requireRole } from '$lib/server/auth/guard';
 import * as commissions from '$lib/server/commissions';
 import type { PageServerLoad } from './$types';
 
-export const load: PageServerLoad = async ({ locals }) => {
+export const load: PageServerLoad = async ({ locals, url }) => {
 	const user = requireRole('customer');
-	return { user, commissions: await commissions.listForCustomer(locals.db, { customerId: user.id }) };
+	const today = commissions.todayIn(await commissions.customerTimeZone(locals.db, user.id));
+	return {
+		user,
+		commissions: await commissions.listForCustomer(locals.db, { customerId: user.id, today }),
+		saved: url.searchParams.has('saved')
+	};
 };

@@ -2,7 +2,9 @@
 export const queueNames = {
 	mail: 'mail-send',
 	/** Mail that failed every retry waits here, with its last error, until an admin acts on the desk. */
-	mailDeadLetter: 'mail-dead-letter'
+	mailDeadLetter: 'mail-dead-letter',
+	/** Every few minutes: open commissions past their expiry with no accepted quote become `expired`. */
+	commissionExpiry: 'commission-expiry'
 } as const;
 
 export type QueueName = (typeof queueNames)[keyof typeof queueNames];

@@ -36,6 +36,13 @@ export function queueDefinitions(): QueueDefinition[] {
 				expireInSeconds: 120,
 				deadLetter: queueNames.mailDeadLetter
 			}
+		},
+		{
+			name: queueNames.commissionExpiry,
+			// One run at a time is enough: a run that finds nothing due is cheap, and a missed run's work is
+			// picked up by the next (each commission expires in its own transaction, at most once).
+			options: { policy: 'singleton', retryLimit: 3, retryDelay: 60, expireInSeconds: 300 },
+			cron: { expression: '*/5 * * * *' }
 		}
 	];
 }
