@@ -7,7 +7,7 @@ import { lengthUnit, user } from './auth';
 export const measurementTaker = pgEnum('measurement_taker', ['self', 'companion', 'tailor']);
 
 /**
- * Body measurements in whole millimetres, keyed by measurement code (`waist_girth`, …).
+ * Body measurements in millimetres (kept to 0.01 mm, so inch eighths come back exactly), keyed by measurement code (`waist_girth`, …).
  * The vocabulary lives in the drafting module; the database only stores what it is given.
  */
 export type MeasurementValuesMm = Record<string, number>;
