@@ -1,5 +1,5 @@
 import type { FabricEstimate } from './fabric';
-import { boundingBox, mirrorX, translate, type Box, type Point } from './geometry';
+import { boundingBox, mirrorX, translate, type Box, type CurvedPath, type Point } from './geometry';
 import type { DraftPiece, PieceMark } from './pieces';
 import { formatLength, mmPerMetre, mmPerYard, type Unit } from './units';
 
@@ -18,6 +18,13 @@ export function escapeXml(text: string): string {
 
 const n = (value: number) => (Math.round(value * 10) / 10).toString();
 const points = (list: readonly Point[]) => list.map((p) => `${n(p.x)},${n(p.y)}`).join(' ');
+
+/** SVG path data for a closed outline: L for straight edges, Q for curved ones. */
+export function pathData(path: CurvedPath): string {
+	const xy = (p: Point) => `${n(p.x)},${n(p.y)}`;
+	const steps = path.steps.map((s) => (s.control ? `Q${xy(s.control)} ${xy(s.to)}` : `L${xy(s.to)}`));
+	return `M${xy(path.start)} ${steps.join(' ')} Z`;
+}
 
 function stroke(colour: string, width: number, dash?: string): string {
 	return `stroke="${colour}" stroke-width="${width}" vector-effect="non-scaling-stroke"${dash ? ` stroke-dasharray="${dash}"` : ''} fill="none"`;
@@ -170,7 +177,7 @@ export function pieceSvg(piece: DraftPiece, unit: Unit): string {
 	return [
 		`<svg xmlns="http://www.w3.org/2000/svg" viewBox="${n(view.x)} ${n(view.y)} ${n(view.width)} ${n(view.height)}" role="img" font-family="Poppins, ui-sans-serif, sans-serif" data-piece="${escapeXml(piece.id)}">`,
 		`<title>${escapeXml(title)}</title>`,
-		`<polygon points="${points(piece.outline)}" fill="#f7f2e9" stroke="${ink}" stroke-width="2" vector-effect="non-scaling-stroke" stroke-linejoin="round"/>`,
+		`<${piece.path ? `path d="${pathData(piece.path)}"` : `polygon points="${points(piece.outline)}"`} fill="#f7f2e9" stroke="${ink}" stroke-width="2" vector-effect="non-scaling-stroke" stroke-linejoin="round"/>`,
 		...piece.marks.map((m) => mark(m, size)),
 		grainline(piece.grainline, size),
 		piece.cut.onFold ? foldMarker(outlineBox, size) : '',
