@@ -129,3 +129,26 @@ export function flattenPath(path: CurvedPath, tolerance = 1): Point[] {
 	if (points.length > 1 && distance(last, path.start) < 1e-9) points.pop();
 	return points;
 }
+
+/**
+ * The part of a polygon on the left of the directed line a → b (y down, so "left" is where a turn from
+ * a → b towards −y lies). One pass of Sutherland–Hodgman clipping (Sutherland & Hodgman, "Reentrant
+ * polygon clipping", CACM 17(1), 1974).
+ */
+export function clipToSide(polygon: readonly Point[], a: Point, b: Point): Point[] {
+	const side = (p: Point) => (b.x - a.x) * (p.y - a.y) - (b.y - a.y) * (p.x - a.x);
+	const kept: Point[] = [];
+	const push = (p: Point) => {
+		const last = kept[kept.length - 1];
+		if (!last || distance(last, p) > 1e-9) kept.push(p);
+	};
+	polygon.forEach((current, i) => {
+		const previous = polygon[(i + polygon.length - 1) % polygon.length];
+		const sc = side(current);
+		const sp = side(previous);
+		if (sc <= 0 !== sp <= 0) push(lerp(previous, current, sp / (sp - sc)));
+		if (sc <= 0) push(current);
+	});
+	if (kept.length > 1 && distance(kept[0], kept[kept.length - 1]) <= 1e-9) kept.pop();
+	return kept;
+}

@@ -59,8 +59,8 @@ describe('cropped top — the dressmaker’s method (common practice)', () => {
 });
 
 describe('cropped top — geometry', () => {
-	it('both pieces are cut on the fold and fit inside the fold width', () => {
-		for (const piece of example.pieces) {
+	it('both body pieces are cut on the fold and fit inside the fold width', () => {
+		for (const piece of example.pieces.slice(0, 2)) {
 			expect(piece.cut.onFold).toBe(true);
 			const box = boundingBox(piece.outline);
 			expect(box.x).toBeCloseTo(0, 9);

@@ -2,6 +2,7 @@ import type { Finding } from '../checks';
 import { pt, quadCurve, type Point } from '../geometry';
 import type { DraftPiece, PieceLine, PieceMark } from '../pieces';
 import { fitOf, fitOption, inch, lengthOption, need, num } from './common';
+import { facingAlong, facingWidth } from './facings';
 import type { Fit, GarmentTemplate } from './types';
 
 /*
@@ -80,16 +81,19 @@ export function topFigures(
 	};
 }
 
-function outlineOf(f: TopFigures, neckDepth: number): Point[] {
-	const neckPoint = pt(f.neckWidth, 0);
+/** The neckline from the centre to the neck point. */
+function neckEdge(f: TopFigures, neckDepth: number): Point[] {
 	const centreNeck = pt(0, neckDepth);
+	return [centreNeck, ...quadCurve(centreNeck, pt(f.neckWidth * 0.9, neckDepth * 0.95), pt(f.neckWidth, 0))];
+}
+
+function outlineOf(f: TopFigures, neckDepth: number): Point[] {
 	const sleeveTop = pt(f.sleeveEnd, sleeveDrop);
 	const sleeveBottom = pt(f.sleeveEnd, sleeveDrop + f.sleeveOpening);
 	const underarmY = Math.max(f.bustLineDepth, sleeveBottom.y + inch(0.5));
 	const side = pt(f.bustWidth, underarmY);
 	return [
-		centreNeck,
-		...quadCurve(centreNeck, pt(f.neckWidth * 0.9, neckDepth * 0.95), neckPoint),
+		...neckEdge(f, neckDepth),
 		pt(f.shoulderPoint, 0),
 		sleeveTop,
 		sleeveBottom,
@@ -290,8 +294,30 @@ export const croppedTop: GarmentTemplate = {
 				neckDepth: num(options, 'neckDepth')
 			}
 		);
+		const front = piece('front', f);
+		const back = piece('back', f);
+		const end = pt(f.neckWidth + facingWidth, 0);
+		const backEdge = backNeckDepth + (needsKeyhole(f) ? keyholeLength : 0) + facingWidth;
 		return {
-			pieces: [piece('front', f), piece('back', f)],
+			pieces: [
+				front,
+				back,
+				facingAlong(front, {
+					id: 'front_facing',
+					label: 'Front neck facing',
+					edge: neckEdge(f, f.neckDepth),
+					end,
+					back: [pt(0, f.neckDepth + facingWidth)]
+				}),
+				facingAlong(back, {
+					id: 'back_facing',
+					label: 'Back neck facing',
+					edge: neckEdge(f, backNeckDepth),
+					end,
+					back: needsKeyhole(f) ? [pt(facingWidth, backEdge), pt(0, backEdge)] : [pt(0, backEdge)],
+					clearOfFold: needsKeyhole(f)
+				})
+			],
 			allowances: [
 				{ id: 'seam', label: 'Seam allowance (included in widths)', mm: num(options, 'seamAllowance') },
 				{ id: 'hem', label: 'Hem allowance', mm: num(options, 'hem') },
@@ -300,9 +326,9 @@ export const croppedTop: GarmentTemplate = {
 			notes: [
 				'Fold the cloth once lengthwise; cut front and back each with its centre on the fold.',
 				'Mark the bust darts on the front only.',
-				'The back neck is shallower than the front, as a bodice block has it.',
+				'The back neck is shallower than the front, as a bodice block has it. Finish the neck with the neck facings.',
 				needsKeyhole(f)
-					? 'The neck alone is too small to pass over the head: slit the centre back where marked, face the opening and close it at the neck with a button and loop.'
+					? 'The neck alone is too small to pass over the head: slit the centre back where marked, take the back facing down past it, and close the opening at the neck with a button and loop.'
 					: 'No fastening: check the neckline passes over the head before cutting.'
 			],
 			cautions: [],

@@ -78,11 +78,22 @@ describe('wide-leg trousers — geometry', () => {
 		expect(box.width / 25.4).toBeCloseTo(13.5, 6); // 11 hip width + 2.5 crotch extension
 		expect(box.height / 25.4).toBeCloseTo(46, 6);
 	});
-	it('the back zip allowance sits outside the centre back seam', () => {
+	it('the back zip allowance sits outside the centre back seam and tapers back into it above the hip line', () => {
 		const back = example.pieces.find((p) => p.id === 'back')!;
 		const zip = back.marks.find((m) => m.kind === 'zip')!;
 		const outward = back.outline.filter((p) => p.y < zip.points[1].y && p.x > zip.points[0].x + 20);
 		expect(outward.length).toBeGreaterThanOrEqual(2);
+		// Below the zip the outline is back on the centre seam line before the hip line (common practice).
+		const steps = back.path!.steps;
+		const hipAt = steps.findIndex((s) => s.control) - 1;
+		const taper = steps[hipAt - 1].to;
+		const centreWaist = steps[0].to;
+		const hip = steps[hipAt].to;
+		const offLine =
+			((hip.x - centreWaist.x) * (taper.y - centreWaist.y) - (hip.y - centreWaist.y) * (taper.x - centreWaist.x)) /
+			Math.hypot(hip.x - centreWaist.x, hip.y - centreWaist.y);
+		expect(Math.abs(offLine)).toBeLessThan(1e-6);
+		expect(taper.y).toBeLessThan(example.line('front.hip_line_depth') * 25.4);
 	});
 	it('length defaults to waist to floor', () => {
 		const fromFloor = draftIn(wideLegTrousers, 'in', {

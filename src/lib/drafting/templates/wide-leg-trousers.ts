@@ -208,13 +208,17 @@ function backPiece(f: TrouserFigures, zip: { length: number; width: number }): D
 	// The centre back seam runs on to the crotch line before it curves: no corner at the hip line.
 	const seatControl = alongSegment(centreWaist, centreHip, distance(centreWaist, centreHip) * slantTo(f));
 	const { crotchPoint, legCentre, inThigh, outThigh, sideHip, steps } = lowerBody(f, side, sideWaist, seatControl);
-	const zipEnd = alongSegment(centreWaist, centreHip, Math.min(zip.length, distance(centreWaist, centreHip)));
+	// The zip allowance tapers back into the seam at 45° well above the hip line, with no step there.
+	const centreSeam = distance(centreWaist, centreHip);
+	const zipLength = Math.min(zip.length, centreSeam - zip.width);
+	const zipEnd = alongSegment(centreWaist, centreHip, zipLength);
+	const taperEnd = alongSegment(centreWaist, centreHip, zipLength + zip.width);
 	const [zipTop, zipBottom] = offsetSegment(centreWaist, zipEnd, zip.width);
 	const { path, outline } = closedPath(sideWaist, [
 		{ to: centreWaist },
 		{ to: zipTop },
 		{ to: zipBottom },
-		{ to: zipEnd },
+		{ to: taperEnd },
 		{ to: centreHip },
 		...steps
 	]);
@@ -258,7 +262,7 @@ function backPiece(f: TrouserFigures, zip: { length: number; width: number }): D
 				dimension: { from: outThigh, to: inThigh }
 			},
 			{ id: 'leg_length', label: 'Leg length with hem (from the waist line)', mm: f.legLength },
-			{ id: 'zip_allowance_length', label: 'Zip allowance length', mm: zip.length },
+			{ id: 'zip_allowance_length', label: 'Zip allowance length', mm: zipLength },
 			{ id: 'zip_allowance_width', label: 'Zip allowance width', mm: zip.width }
 		],
 		grainline: [pt(legCentre, f.thighLineDepth + inch(8)), pt(legCentre, f.legLength - inch(3))]
