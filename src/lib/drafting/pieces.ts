@@ -47,6 +47,8 @@ export interface DraftPiece {
 	marks: PieceMark[];
 	lines: PieceLine[];
 	grainline: [Point, Point];
+	/** Other ways the cutter may cut a plain rectangle when that saves cloth (a long waistband). */
+	mayCut?: { crosswise: boolean; inTwo?: { joinMm: number } };
 }
 
 export interface Allowance {

@@ -52,7 +52,7 @@ describe('layoutSvg', () => {
 			{ widthMm: 45 * 25.4, folded: true, directional: false, shrinkagePercent: 0, repeatMm: 0 },
 			'in'
 		);
-		const svg = layoutSvg(estimate!, trousers.pieces, 'in');
+		const svg = layoutSvg(estimate!, 'in');
 		expect(svg).toContain('>fold<');
 		expect(svg).toContain('>1 yd<');
 		expect(svg).toContain('Front ×2');

@@ -1,5 +1,5 @@
 import type { FabricEstimate } from './fabric';
-import { boundingBox, mirrorX, translate, type Box, type CurvedPath, type Point } from './geometry';
+import { boundingBox, type Box, type CurvedPath, type Point } from './geometry';
 import type { DraftPiece, PieceMark } from './pieces';
 import { formatLength, mmPerMetre, mmPerYard, type Unit } from './units';
 
@@ -199,14 +199,13 @@ function placementLabel(p: FabricEstimate['placements'][number], size: number): 
 }
 
 /** The cloth with every piece placed, fold on the left when folded, length marks every yard or metre. */
-export function layoutSvg(estimate: FabricEstimate, pieces: readonly DraftPiece[], unit: Unit): string {
+export function layoutSvg(estimate: FabricEstimate, unit: Unit): string {
 	const width = estimate.layWidthMm;
 	const length = estimate.packedMm;
 	const size = Math.max(width, length) / 40;
 	const margin = size * 3;
 	const step = unit === 'in' ? mmPerYard : mmPerMetre;
 	const stepLabel = unit === 'in' ? 'yd' : 'm';
-	const byId = new Map(pieces.map((p) => [p.id, p]));
 	const ticks: string[] = [];
 	for (let i = 1; i * step <= length + 1e-6; i++) {
 		ticks.push(
@@ -220,14 +219,10 @@ export function layoutSvg(estimate: FabricEstimate, pieces: readonly DraftPiece[
 		);
 	}
 	const placed = estimate.placements.map((p) => {
-		const piece = byId.get(p.pieceId);
-		const shape = piece ? translate(piece.outline, -p.origin.x, -p.origin.y) : [];
-		const outlines = p.unfolded ? [translate(shape, p.w / 2, 0), translate(mirrorX(shape), p.w / 2, 0)] : [shape];
-		const drawn = piece ? outlines : [];
 		return [
 			`<g transform="translate(${n(p.x)} ${n(p.y)})">`,
 			`<rect width="${n(p.w)}" height="${n(p.h)}" ${stroke('#7b7f8c', 1, '4 3')}/>`,
-			...drawn.map(
+			...p.shapes.map(
 				(o) =>
 					`<polygon points="${points(o)}" fill="#fae2da" stroke="${madder}" stroke-width="1.5" vector-effect="non-scaling-stroke"/>`
 			),
