@@ -2,7 +2,7 @@ import type { Finding } from '../checks';
 import { pt, quadCurve, type Point } from '../geometry';
 import type { DraftPiece, PieceLine, PieceMark } from '../pieces';
 import { fitOf, fitOption, inch, lengthOption, need, num } from './common';
-import { facingAlong, facingWidth } from './facings';
+import { facingWidth, neckFacings } from './facings';
 import type { Fit, GarmentTemplate } from './types';
 
 /*
@@ -296,26 +296,18 @@ export const croppedTop: GarmentTemplate = {
 		);
 		const front = piece('front', f);
 		const back = piece('back', f);
-		const end = pt(f.neckWidth + facingWidth, 0);
-		const backEdge = backNeckDepth + (needsKeyhole(f) ? keyholeLength : 0) + facingWidth;
 		return {
 			pieces: [
 				front,
 				back,
-				facingAlong(front, {
-					id: 'front_facing',
-					label: 'Front neck facing',
-					edge: neckEdge(f, f.neckDepth),
-					end,
-					back: [pt(0, f.neckDepth + facingWidth)]
-				}),
-				facingAlong(back, {
-					id: 'back_facing',
-					label: 'Back neck facing',
-					edge: neckEdge(f, backNeckDepth),
-					end,
-					back: needsKeyhole(f) ? [pt(facingWidth, backEdge), pt(0, backEdge)] : [pt(0, backEdge)],
-					clearOfFold: needsKeyhole(f)
+				...neckFacings(front, back, {
+					end: pt(f.neckWidth + facingWidth, 0),
+					front: { edge: neckEdge(f, f.neckDepth), depth: f.neckDepth, slit: false },
+					back: {
+						edge: neckEdge(f, backNeckDepth),
+						depth: backNeckDepth + (needsKeyhole(f) ? keyholeLength : 0),
+						slit: needsKeyhole(f)
+					}
 				})
 			],
 			allowances: [

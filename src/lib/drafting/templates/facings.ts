@@ -86,3 +86,30 @@ function facingPiece(
 		grainline: [pt(midX, box.y + box.height * 0.25), pt(midX, box.y + box.height * 0.75)]
 	};
 }
+
+/** A neckline to face: its edge from the centre out, and how deep at the centre (the neck or a slit's foot). */
+export interface FacedNeck {
+	edge: Point[];
+	depth: number;
+	slit: boolean;
+}
+
+/** Front and back neck facings for pieces cut on the fold, meeting the shoulder seam at `end`. */
+export function neckFacings(
+	front: DraftPiece,
+	back: DraftPiece,
+	neck: { end: Point; front: FacedNeck; back: FacedNeck }
+): DraftPiece[] {
+	const facing = (body: DraftPiece, side: 'front' | 'back', faced: FacedNeck) => {
+		const foot = faced.depth + facingWidth;
+		return facingAlong(body, {
+			id: `${side}_facing`,
+			label: `${side === 'front' ? 'Front' : 'Back'} neck facing`,
+			edge: faced.edge,
+			end: neck.end,
+			back: faced.slit ? [pt(facingWidth, foot), pt(0, foot)] : [pt(0, foot)],
+			clearOfFold: faced.slit
+		});
+	};
+	return [facing(front, 'front', neck.front), facing(back, 'back', neck.back)];
+}

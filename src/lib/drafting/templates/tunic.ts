@@ -3,7 +3,7 @@ import { looseEase } from '../ease';
 import { pt, quadCurve, type Point } from '../geometry';
 import type { Caution, DraftPiece, PieceLine, PieceMark } from '../pieces';
 import { fitOf, fitOption, homeSeamAllowance, inch, lengthOption, need, num } from './common';
-import { facingAlong, facingWidth } from './facings';
+import { facingWidth, neckFacings } from './facings';
 import type { GarmentTemplate } from './types';
 
 /*
@@ -187,26 +187,14 @@ export const tunic: GarmentTemplate = {
 		const neckTies = options.neckTies === true;
 		const front = tunicPiece('front', f, neckTies);
 		const back = tunicPiece('back', f, neckTies);
-		const end = pt(f.neckWidth + facingWidth, -s);
-		const slitEnd = f.neckDepth + neckSlit + facingWidth;
 		return {
 			pieces: [
 				front,
 				back,
-				facingAlong(front, {
-					id: 'front_facing',
-					label: 'Front neck facing',
-					edge: neckEdge(f, f.neckDepth),
-					end,
-					back: [pt(facingWidth, slitEnd), pt(0, slitEnd)],
-					clearOfFold: true
-				}),
-				facingAlong(back, {
-					id: 'back_facing',
-					label: 'Back neck facing',
-					edge: neckEdge(f, backNeckDepth),
-					end,
-					back: [pt(0, backNeckDepth + facingWidth)]
+				...neckFacings(front, back, {
+					end: pt(f.neckWidth + facingWidth, -s),
+					front: { edge: neckEdge(f, f.neckDepth), depth: f.neckDepth + neckSlit, slit: true },
+					back: { edge: neckEdge(f, backNeckDepth), depth: backNeckDepth, slit: false }
 				})
 			],
 			allowances: [
