@@ -75,7 +75,7 @@ test('on a 360 px phone in centimetres: no alert before typing, metric allowance
 	await expect(page.getByTestId('fabric-explained')).toContainText('the pieces take');
 	await expect(page.getByTestId('fabric-explained')).toContainText('buying step');
 	// The long band forces the cloth longer whole; the layout cuts it in two and says so.
-	await expect(page.getByText(/Waistband: cut in two pieces, each half the length plus 1\.6 cm to join/)).toBeVisible();
+	await expect(page.getByText(/Waistband: cut in two pieces, each half the length plus 1\.5 cm to join/)).toBeVisible();
 	const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
 	expect(overflow).toBeLessThanOrEqual(0);
 });
