@@ -74,7 +74,8 @@ test('on a 360 px phone in centimetres: no alert before typing, metric allowance
 	await expect(page.getByRole('radio', { name: 'Centimetres' })).toBeChecked();
 	await expect(page.getByTestId('fabric-explained')).toContainText('the pieces take');
 	await expect(page.getByTestId('fabric-explained')).toContainText('buying step');
-	await expect(page.getByText(/Waistband: cut 1 .*\(cut single\)/)).toBeVisible();
+	// The long band forces the cloth longer whole; the layout cuts it in two and says so.
+	await expect(page.getByText(/Waistband: cut in two pieces, each half the length plus 1\.5 cm to join/)).toBeVisible();
 	const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
 	expect(overflow).toBeLessThanOrEqual(0);
 });
@@ -84,4 +85,41 @@ test('shows the neck-cord caution on the tunic', async ({ page }) => {
 	await page.getByRole('button', { name: 'Fill in a worked example' }).click();
 	await expect(page.getByText(/EN 14682/)).toBeVisible();
 	await expect(page.getByRole('button', { name: 'Print cut sheet' })).toBeVisible();
+});
+
+test('on a 360 px phone the drawings read at 11 px or more and zoom by pinch, keys and buttons', async ({ page }) => {
+	await page.setViewportSize({ width: 360, height: 780 });
+	await page.goto('/draft-calculator?garment=wide-leg-trousers&unit=in');
+	await page.getByRole('button', { name: 'Fill in a worked example' }).click();
+	const drawing = page.getByRole('img', { name: /^Front: Cut 2/ });
+	await expect(drawing).toBeVisible();
+	const smallest = await drawing.evaluate((svg) => {
+		const scale = (svg as SVGSVGElement).getScreenCTM()!.a;
+		const sizes = [...svg.querySelectorAll('text[fill="#24495a"]')].map((t) => Number(t.getAttribute('font-size')));
+		return Math.min(...sizes) * scale;
+	});
+	expect(smallest).toBeGreaterThanOrEqual(11);
+
+	const frame = page.getByTestId('piece-zoom').first();
+	await frame.focus();
+	await page.keyboard.press('+');
+	await expect(frame).toHaveAttribute('data-scale', '1.25');
+	await page.getByRole('button', { name: 'Reset the view of Front' }).click();
+	await expect(frame).toHaveAttribute('data-scale', '1.00');
+
+	// Two fingers 40 px apart spread to 120 px: three times the size.
+	const box = (await frame.boundingBox())!;
+	const y = box.y + box.height / 2;
+	const x = box.x + box.width / 2;
+	const touch = (type: string, pointerId: number, clientX: number) =>
+		frame.dispatchEvent(type, { pointerId, pointerType: 'touch', isPrimary: pointerId === 1, clientX, clientY: y });
+	await touch('pointerdown', 1, x - 20);
+	await touch('pointerdown', 2, x + 20);
+	await touch('pointermove', 1, x - 60);
+	await touch('pointermove', 2, x + 60);
+	await touch('pointerup', 1, x - 60);
+	await touch('pointerup', 2, x + 60);
+	await expect(frame).toHaveAttribute('data-scale', '3.00');
+	await page.getByRole('button', { name: 'Zoom out of Front' }).click();
+	await expect(frame).toHaveAttribute('data-scale', '2.00');
 });

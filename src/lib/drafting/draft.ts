@@ -150,7 +150,7 @@ export function draftWithPieces(input: DraftInputMm): { response: DraftResponse;
 		buyUnit: estimate.rounded.buyUnit,
 		lengthDisplay: estimate.rounded.display,
 		efficiency: Math.round(estimate.efficiency * 1000) / 1000,
-		svg: layoutSvg(estimate, draft.pieces, unit),
+		svg: layoutSvg(estimate, unit),
 		packedLength: toUnitValue(estimate.packedMm, unit),
 		shrinkagePercent: estimate.shrinkagePercent,
 		roundingAdded: toUnitValue(estimate.rounded.mm - estimate.lengthMm, unit),

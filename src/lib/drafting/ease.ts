@@ -35,3 +35,24 @@ export const looseEase: Readonly<Record<Fit, number>> = {
 	regular: inch(8),
 	relaxed: inch(12)
 };
+
+export interface TrouserEase {
+	/** Added to each quarter waist. */
+	waistPerQuarter: number;
+	/** Finished hip girth − body hip, all round. */
+	hip: number;
+	/** Finished thigh girth − body thigh, each leg. */
+	thigh: number;
+}
+
+/**
+ * Trouser ease. "regular" is the worked quarter-hip method (common practice): 1 in on each quarter waist
+ * and none at hip or thigh; "fitted" takes half the waist ease. "relaxed" adds the relaxed hip ease of
+ * the table above (4 in) and 2 in at the thigh, the top of the 1½–2 in minimum thigh ease for trousers in
+ * Liechty, Pottberg & Rasband, Fitting & Pattern Alteration (from memory).
+ */
+export const trouserEase: Readonly<Record<Fit, TrouserEase>> = {
+	fitted: { waistPerQuarter: inch(0.5), hip: 0, thigh: 0 },
+	regular: { waistPerQuarter: inch(1), hip: 0, thigh: 0 },
+	relaxed: { waistPerQuarter: inch(1.5), hip: wearingEase.relaxed.hip, thigh: inch(2) }
+};

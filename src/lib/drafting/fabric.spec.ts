@@ -139,3 +139,79 @@ describe('fabric estimate — what the layout alone does not say', () => {
 		expect(estimate.lengthMm).toBeCloseTo(estimate.packedMm / 0.9, 9);
 	});
 });
+
+describe('fabric estimate — nap', () => {
+	// A gored panel 200 wide at the top, 400 at the hem: two laid head to tail take 600, side by side 800.
+	const gore: DraftPiece = {
+		...rect('gore', 400, 1000, { quantity: 2 }),
+		outline: [pt(0, 0), pt(200, 0), pt(400, 1000), pt(0, 1000)]
+	};
+
+	it('without nap lays copies head to tail where that saves cloth; with nap all lie one way, so it takes more (common practice: “with nap” layouts lay every piece the same way up)', () => {
+		const without = estimateFabric([gore], spec(700, { folded: false }), 'cm').estimate!;
+		const withNap = estimateFabric([gore], spec(700, { folded: false, directional: true }), 'cm').estimate!;
+		expect(without.packedMm).toBe(1000);
+		expect(without.placements).toHaveLength(1);
+		expect(without.placements[0]).toMatchObject({ w: 600, yields: 2 });
+		expect(withNap.packedMm).toBe(2000);
+		expect(withNap.rounded.mm).toBeGreaterThan(without.rounded.mm);
+	});
+
+	it('turns the second copy end for end, its outline touching the first along the slant', () => {
+		const [placed] = estimateFabric([gore], spec(700, { folded: false }), 'cm').estimate!.placements;
+		expect(placed.shapes).toHaveLength(2);
+		expect(placed.shapes[1]).toEqual([pt(600, 1000), pt(400, 1000), pt(200, 0), pt(600, 0)]);
+	});
+
+	it('is never shorter with nap, for every garment, width and fold (property)', () => {
+		fc.assert(
+			fc.property(
+				fc.constantFrom(...Object.values(templates)),
+				fc.constantFrom(...fabricWidthPresets.cm, ...fabricWidthPresets.in.map((w) => w * 2.54)),
+				fc.boolean(),
+				(template, widthCm, folded) => {
+					const pieces = draftIn(template, 'cm', standardBodyCm).pieces;
+					const without = estimateFabric(pieces, spec(widthCm * 10, { folded }), 'cm').estimate;
+					const withNap = estimateFabric(pieces, spec(widthCm * 10, { folded, directional: true }), 'cm').estimate;
+					if (!without || !withNap) return;
+					expect(withNap.rounded.mm).toBeGreaterThanOrEqual(without.rounded.mm);
+				}
+			),
+			{ numRuns: 40 }
+		);
+	});
+});
+
+describe('fabric estimate — a long band cut another way', () => {
+	const band = (): DraftPiece => ({
+		...rect('band', 100, 1000),
+		label: 'Waistband',
+		mayCut: { crosswise: true, inTwo: { joinMm: 15 } }
+	});
+
+	it('on folded cloth cuts the band in two with a join allowance when that buys less (common practice)', () => {
+		const pieces = [rect('front', 400, 600, { onFold: true }), band()];
+		const estimate = estimateFabric(pieces, spec(1400), 'cm').estimate!;
+		// Two halves of 500 + 15 mm lie beside the front, through both layers at once.
+		expect(estimate.packedMm).toBe(600);
+		const halves = estimate.placements.find((p) => p.pieceId === 'band')!;
+		expect(halves).toMatchObject({ h: 515, yields: 2 });
+		expect(estimate.notes[0]).toMatch(/^Waistband: cut in two pieces, each half the length plus 1\.5 cm to join/);
+		expect(estimate.notes.join(' ')).not.toMatch(/cut single/);
+	});
+
+	it('on open cloth cuts it across the grain when that buys as little, without a join', () => {
+		const pieces = [rect('front', 300, 600), band()];
+		const estimate = estimateFabric(pieces, spec(1400, { folded: false }), 'cm').estimate!;
+		expect(estimate.packedMm).toBe(600);
+		expect(estimate.placements.find((p) => p.pieceId === 'band')).toMatchObject({ w: 1000, h: 100 });
+		expect(estimate.notes[0]).toMatch(/^Waistband: cut across the cloth \(crosswise grain\)/);
+	});
+
+	it('keeps the band whole when another way buys no less', () => {
+		const pieces = [rect('front', 300, 1000, { onFold: true }), band()];
+		const estimate = estimateFabric(pieces, spec(1400), 'cm').estimate!;
+		expect(estimate.placements.find((p) => p.pieceId === 'band')).toMatchObject({ w: 100, h: 1000 });
+		expect(estimate.notes).toEqual([expect.stringMatching(/^Waistband: cut 1 .*cut single/)]);
+	});
+});

@@ -1,6 +1,7 @@
 import type { Finding } from './checks';
-import { boundingBox, polygonArea, type Point } from './geometry';
-import { packStrip, type Rotation } from './layout';
+import { boundingBox, mirrorX, polygonArea, pt, quarterTurn, translate, type Point } from './geometry';
+import { headToTailOffset, secondCopy } from './head-to-tail';
+import { packStrip } from './layout';
 import type { DraftPiece } from './pieces';
 import { formatFabricLength, formatLength, roundUpFabric, toMm, type BuyUnit, type Unit } from './units';
 
@@ -33,8 +34,10 @@ export interface FabricPlacement {
 	origin: { x: number; y: number };
 	/** On open fabric a cut-on-fold piece is laid out whole (mirrored about its fold). */
 	unfolded: boolean;
-	/** How many pieces this placement cuts (two for a pair on folded cloth). */
+	/** How many pieces this placement cuts (two for a pair on folded cloth, twice that laid head to tail). */
 	yields: number;
+	/** The outlines as laid, relative to the placement's corner. */
+	shapes: Point[][];
 	/** Set when the real outline was nested: the cutting line and grainline on the cloth. */
 	outline?: Point[];
 	grainline?: [Point, Point];
@@ -55,7 +58,7 @@ export interface FabricEstimate {
 	placements: FabricPlacement[];
 	/** Shrinkage allowed for, percent. */
 	shrinkagePercent: number;
-	/** How to cut what the layout alone does not say (a single piece on doubled cloth). */
+	/** How to cut what the layout alone does not say (a single piece on doubled cloth, a band cut another way). */
 	notes: string[];
 	/** Set when the pieces' real outlines were nested (see marker/): what the boxes alone would take. */
 	nested?: { boxLengthMm: number; areaBoundMm: number };
@@ -69,13 +72,16 @@ interface LayItem {
 	anchorLeft: boolean;
 	unfolded: boolean;
 	yields: number;
-	areaPerCut: number;
+	/** Cloth one placement uses, over all its layers. */
+	clothArea: number;
+	shapes: Point[][];
 }
 
 function layItems(pieces: readonly DraftPiece[], folded: boolean): LayItem[] {
 	return pieces.map((piece) => {
 		const box = boundingBox(piece.outline);
 		const area = polygonArea(piece.outline);
+		const shape = translate(piece.outline, -box.x, -box.y);
 		const { quantity, onFold, pair } = piece.cut;
 		const plain: LayItem = {
 			piece,
@@ -85,18 +91,85 @@ function layItems(pieces: readonly DraftPiece[], folded: boolean): LayItem[] {
 			anchorLeft: false,
 			unfolded: false,
 			yields: 1,
-			areaPerCut: area
+			clothArea: area,
+			shapes: [shape]
 		};
 		// On folded cloth a fold piece sits against the fold, and one cut gives both halves of a pair.
-		if (folded && onFold) return { ...plain, anchorLeft: true, areaPerCut: 2 * area };
-		if (folded && pair) return { ...plain, quantity: Math.ceil(quantity / 2), yields: 2 };
+		if (folded && onFold) return { ...plain, anchorLeft: true, clothArea: 2 * area };
+		if (folded && pair) return { ...plain, quantity: Math.ceil(quantity / 2), yields: 2, clothArea: 2 * area };
 		// On open cloth a fold piece is cut out whole, twice as wide.
-		if (!folded && onFold) return { ...plain, w: 2 * box.width, unfolded: true, areaPerCut: 2 * area };
+		if (!folded && onFold)
+			return {
+				...plain,
+				w: 2 * box.width,
+				unfolded: true,
+				clothArea: 2 * area,
+				shapes: [translate(shape, box.width, 0), translate(mirrorX(shape), box.width, 0)]
+			};
 		return plain;
 	});
 }
 
-/** Lays the pieces' boxes on the cloth and reports the length to buy. Null when the cloth is too narrow. */
+/** Without nap, copies laid in twos head to tail where that takes less width than side by side. */
+function headToTail(items: readonly LayItem[], layWidth: number): LayItem[] {
+	return items.flatMap((item) => {
+		if (item.quantity < 2 || item.anchorLeft || item.unfolded) return [item];
+		const mirrored = item.piece.cut.pair && item.yields === 1;
+		const offset = headToTailOffset(item.shapes[0], item.w, item.h, mirrored);
+		if (offset + item.w > Math.min(2 * item.w - 1, layWidth - 1e-6)) return [item];
+		const pairs: LayItem = {
+			...item,
+			w: offset + item.w,
+			quantity: Math.floor(item.quantity / 2),
+			yields: 2 * item.yields,
+			clothArea: 2 * item.clothArea,
+			shapes: [item.shapes[0], secondCopy(item.shapes[0], item.w, item.h, mirrored, offset)]
+		};
+		return item.quantity % 2 ? [pairs, { ...item, quantity: 1 }] : [pairs];
+	});
+}
+
+/** The band as drafted, across the cloth, or in two halves each with a join allowance. */
+function bandVariants(
+	pieces: readonly DraftPiece[],
+	layWidth: number,
+	unit: Unit
+): Array<{ pieces: DraftPiece[]; note?: string }> {
+	const variants: Array<{ pieces: DraftPiece[]; note?: string }> = [{ pieces: [...pieces] }];
+	pieces.forEach((piece, i) => {
+		const box = boundingBox(piece.outline);
+		const swap = (other: DraftPiece) => pieces.map((p, j) => (j === i ? other : p));
+		if (piece.mayCut?.crosswise && box.height < layWidth - 1e-6) {
+			variants.push({
+				pieces: swap({
+					...piece,
+					outline: quarterTurn(piece.outline, box),
+					cut: { ...piece.cut, grain: 'crosswise' }
+				}),
+				note: `${piece.label}: cut across the cloth (crosswise grain), where the layout shows it; that saves cloth.`
+			});
+		}
+		const join = piece.mayCut?.inTwo?.joinMm;
+		if (join !== undefined) {
+			const half = box.height / 2 + join;
+			variants.push({
+				pieces: swap({
+					...piece,
+					outline: [
+						pt(box.x, box.y),
+						pt(box.x + box.width, box.y),
+						pt(box.x + box.width, box.y + half),
+						pt(box.x, box.y + half)
+					],
+					cut: { ...piece.cut, quantity: 2 * piece.cut.quantity, pair: true }
+				}),
+				note: `${piece.label}: cut in two pieces, each half the length plus ${formatLength(join, unit, { withUnit: true })} to join; seam them together before attaching. That saves cloth.`
+			});
+		}
+	});
+	return variants;
+}
+/** Lays the pieces on the cloth and reports the length to buy. Null when the cloth is too narrow. */
 export function estimateFabric(
 	pieces: readonly DraftPiece[],
 	spec: FabricSpec,
@@ -128,14 +201,37 @@ export function estimateFabric(
 		});
 		return { estimate: null, warnings };
 	}
-	const rotate: Rotation = spec.directional ? 'none' : '180';
-	const packed = packStrip(
-		items.map((i) => ({ w: i.w, h: i.h, quantity: i.quantity, anchorLeft: i.anchorLeft, rotate })),
-		layWidth,
-		{ yStep: spec.repeatMm }
-	);
+	const buyUnit: BuyUnit = unit === 'in' ? 'yd' : 'm';
+	const toBuy = (packedMm: number) => roundUpFabric(packedMm / (1 - shrink), buyUnit).mm;
+	// With nap every piece lies one way up; without it, copies may also lie head to tail.
+	const lay = (chosen: readonly DraftPiece[]) => {
+		const plain = layItems(chosen, folded);
+		const tries = spec.directional ? [plain] : [plain, headToTail(plain, layWidth)];
+		return tries
+			.map((laid) => ({
+				items: laid,
+				packed: packStrip(
+					laid.map((i) => ({
+						w: i.w,
+						h: i.h,
+						quantity: i.quantity,
+						anchorLeft: i.anchorLeft,
+						rotate: 'none' as const
+					})),
+					layWidth,
+					{ yStep: spec.repeatMm }
+				)
+			}))
+			.reduce((best, next) => (next.packed.length < best.packed.length - 1e-9 ? next : best));
+	};
+	let best: ReturnType<typeof lay> & { pieces: readonly DraftPiece[]; note?: string } = { ...lay(pieces), pieces };
+	for (const variant of bandVariants(pieces, layWidth, unit).slice(1)) {
+		const laid = lay(variant.pieces);
+		if (toBuy(laid.packed.length) < toBuy(best.packed.length) - 1e-6) best = { ...laid, ...variant };
+	}
+	const { packed } = best;
 	const placements: FabricPlacement[] = packed.placements.map((p) => {
-		const item = items[p.item];
+		const item = best.items[p.item];
 		const box = boundingBox(item.piece.outline);
 		return {
 			pieceId: item.piece.id,
@@ -146,20 +242,20 @@ export function estimateFabric(
 			h: p.h,
 			origin: { x: box.x, y: box.y },
 			unfolded: item.unfolded,
-			yields: item.yields
+			yields: item.yields,
+			shapes: item.shapes
 		};
 	});
-	const cutArea = packed.placements.reduce((sum, p) => sum + items[p.item].areaPerCut * items[p.item].yields, 0);
+	const cutArea = packed.placements.reduce((sum, p) => sum + best.items[p.item].clothArea, 0);
 	const clothArea = usable * packed.length;
 	const lengthMm = packed.length / (1 - shrink);
-	const buyUnit: BuyUnit = unit === 'in' ? 'yd' : 'm';
 	// Doubled cloth cuts two of everything; a piece wanted once is cut through one layer (common practice).
-	const notes = folded
-		? items
-				.filter((i) => !i.piece.cut.onFold && !i.piece.cut.pair && i.piece.cut.quantity % 2 === 1)
+	const cutSingle = folded
+		? best.pieces
+				.filter((p) => !p.cut.onFold && !p.cut.pair && p.cut.quantity % 2 === 1)
 				.map(
-					(i) =>
-						`${i.piece.label}: cut ${i.piece.cut.quantity} — on the folded cloth cut through the top layer only (cut single), or keep the second as a spare.`
+					(p) =>
+						`${p.label}: cut ${p.cut.quantity} — on the folded cloth cut through the top layer only (cut single), or keep the second as a spare.`
 				)
 		: [];
 	const rounded = roundUpFabric(lengthMm, buyUnit);
@@ -175,7 +271,7 @@ export function estimateFabric(
 			efficiency: clothArea > 0 ? cutArea / clothArea : 0,
 			placements,
 			shrinkagePercent: shrink * 100,
-			notes
+			notes: [...(best.note ? [best.note] : []), ...cutSingle]
 		},
 		warnings
 	};

@@ -95,3 +95,60 @@ export function atHeight(a: Point, b: Point, y: number): Point {
 	const t = (y - a.y) / (b.y - a.y);
 	return lerp(a, b, t);
 }
+
+/** One step of a piece's outline as drawn: a straight line or a quadratic Bézier curve. */
+export type PathStep = { to: Point; control?: Point };
+
+/** A closed outline with its curves; the last step returns to `start`. */
+export interface CurvedPath {
+	start: Point;
+	steps: PathStep[];
+}
+
+/**
+ * Chords along a quadratic Bézier that stay within `tolerance` of it. The second derivative of a
+ * quadratic is the constant 2(P0 − 2P1 + P2), so a chord over a parameter step h strays at most
+ * |P0 − 2P1 + P2|·h²/4 from the curve.
+ */
+function quadSegments(from: Point, control: Point, to: Point, tolerance: number): number {
+	const bend = Math.hypot(from.x - 2 * control.x + to.x, from.y - 2 * control.y + to.y);
+	return Math.max(1, Math.ceil(Math.sqrt(bend / (4 * tolerance))));
+}
+
+/** The outline as a polygon, curves flattened to chords within `tolerance` mm (the closing point left off). */
+export function flattenPath(path: CurvedPath, tolerance = 1): Point[] {
+	const points: Point[] = [path.start];
+	let at = path.start;
+	for (const step of path.steps) {
+		if (step.control)
+			points.push(...quadCurve(at, step.control, step.to, quadSegments(at, step.control, step.to, tolerance)));
+		else points.push(step.to);
+		at = step.to;
+	}
+	const last = points[points.length - 1];
+	if (points.length > 1 && distance(last, path.start) < 1e-9) points.pop();
+	return points;
+}
+
+/**
+ * The part of a polygon on the left of the directed line a → b (y down, so "left" is where a turn from
+ * a → b towards −y lies). One pass of Sutherland–Hodgman clipping (Sutherland & Hodgman, "Reentrant
+ * polygon clipping", CACM 17(1), 1974).
+ */
+export function clipToSide(polygon: readonly Point[], a: Point, b: Point): Point[] {
+	const side = (p: Point) => (b.x - a.x) * (p.y - a.y) - (b.y - a.y) * (p.x - a.x);
+	const kept: Point[] = [];
+	const push = (p: Point) => {
+		const last = kept[kept.length - 1];
+		if (!last || distance(last, p) > 1e-9) kept.push(p);
+	};
+	polygon.forEach((current, i) => {
+		const previous = polygon[(i + polygon.length - 1) % polygon.length];
+		const sc = side(current);
+		const sp = side(previous);
+		if (sc <= 0 !== sp <= 0) push(lerp(previous, current, sp / (sp - sc)));
+		if (sc <= 0) push(current);
+	});
+	if (kept.length > 1 && distance(kept[0], kept[kept.length - 1]) <= 1e-9) kept.pop();
+	return kept;
+}

@@ -1,5 +1,5 @@
 import type { Finding } from './checks';
-import type { Point } from './geometry';
+import type { CurvedPath, Point } from './geometry';
 
 export type Grain = 'lengthwise' | 'crosswise';
 
@@ -42,9 +42,13 @@ export interface DraftPiece {
 	cut: CutInstruction;
 	/** Closed outline, mm, cutting line (seam allowances included). */
 	outline: Point[];
+	/** The same outline with its curves, for drawing; `outline` is this flattened to 1 mm. */
+	path?: CurvedPath;
 	marks: PieceMark[];
 	lines: PieceLine[];
 	grainline: [Point, Point];
+	/** Other ways the cutter may cut a plain rectangle when that saves cloth (a long waistband). */
+	mayCut?: { crosswise: boolean; inTwo?: { joinMm: number } };
 }
 
 export interface Allowance {

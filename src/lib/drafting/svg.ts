@@ -1,6 +1,7 @@
 import type { FabricEstimate } from './fabric';
-import { boundingBox, mirrorX, translate, type Box, type Point } from './geometry';
+import { boundingBox, type Box, type CurvedPath, type Point } from './geometry';
 import type { DraftPiece, PieceMark } from './pieces';
+import { placeDimensionLabels, textRect, type DimensionLabel, type Rect } from './svg-labels';
 import { formatLength, mmPerMetre, mmPerYard, type Unit } from './units';
 
 /* Pattern drawings in millimetre user units; strokes keep their screen width at any zoom. */
@@ -18,6 +19,13 @@ export function escapeXml(text: string): string {
 
 const n = (value: number) => (Math.round(value * 10) / 10).toString();
 const points = (list: readonly Point[]) => list.map((p) => `${n(p.x)},${n(p.y)}`).join(' ');
+
+/** SVG path data for a closed outline: L for straight edges, Q for curved ones. */
+export function pathData(path: CurvedPath): string {
+	const xy = (p: Point) => `${n(p.x)},${n(p.y)}`;
+	const steps = path.steps.map((s) => (s.control ? `Q${xy(s.control)} ${xy(s.to)}` : `L${xy(s.to)}`));
+	return `M${xy(path.start)} ${steps.join(' ')} Z`;
+}
 
 function stroke(colour: string, width: number, dash?: string): string {
 	return `stroke="${colour}" stroke-width="${width}" vector-effect="non-scaling-stroke"${dash ? ` stroke-dasharray="${dash}"` : ''} fill="none"`;
@@ -42,19 +50,14 @@ function arrowHead(from: Point, tip: Point, size: number, colour: string): strin
 	return `<polygon points="${points([tip, a, b])}" fill="${colour}"/>`;
 }
 
-/** A dimension line with arrows; the label sits on the side away from the piece when the line is outside it. */
-function dimension(from: Point, to: Point, label: string, size: number, piece: Box): string {
-	const vertical = Math.abs(to.y - from.y) > Math.abs(to.x - from.x);
-	const mid = { x: (from.x + to.x) / 2, y: (from.y + to.y) / 2 };
-	const angle = (Math.atan2(to.y - from.y, to.x - from.x) * 180) / Math.PI;
-	const readable = vertical ? -90 : Math.abs(angle) > 90 ? angle - 180 : angle;
-	const outward = vertical ? (mid.x > piece.x + piece.width / 2 ? 1 : -1) : mid.y > piece.y + piece.height ? 1 : -1;
-	const offset = vertical ? { x: outward * size * 0.7, y: 0 } : { x: 0, y: outward * size * 0.7 };
+/** A dimension line with arrows and its label where the label placer put it. */
+function dimension(d: DimensionLabel): string {
+	const { from, to } = d;
 	return [
 		`<line x1="${n(from.x)}" y1="${n(from.y)}" x2="${n(to.x)}" y2="${n(to.y)}" ${stroke(woad, 1)}/>`,
-		arrowHead(to, from, size * 0.6, woad),
-		arrowHead(from, to, size * 0.6, woad),
-		text({ x: mid.x + offset.x, y: mid.y + offset.y }, label, size * 0.85, { rotate: readable, colour: woad })
+		arrowHead(to, from, d.fontSize * 0.7, woad),
+		arrowHead(from, to, d.fontSize * 0.7, woad),
+		text(d.at, d.text, d.fontSize, { rotate: d.rotate, colour: woad })
 	].join('');
 }
 
@@ -90,6 +93,11 @@ function grainline([a, b]: [Point, Point], size: number): string {
 	].join('');
 }
 
+/** The room the fold bracket and its words take. */
+function foldRect(box: Box, size: number): Rect {
+	return { x0: box.x, y0: box.y + box.height * 0.2, x1: box.x + size * 2.3, y1: box.y + box.height * 0.8 };
+}
+
 /** The usual "place on fold" bracket, drawn just inside the fold edge with arrows pointing at it. */
 function foldMarker(box: Box, size: number): string {
 	const x = box.x + size * 1.1;
@@ -119,16 +127,19 @@ export function cutText(cut: DraftPiece['cut']): string {
 }
 
 /** Piece name and cut instruction where no dimension, guide or grainline runs through them. */
-function pieceLabel(piece: DraftPiece, box: Box, size: number): string {
+function pieceLabel(piece: DraftPiece, box: Box, size: number): { svg: string; rect: Rect } {
 	const name = piece.label.toUpperCase();
 	const cut = cutText(piece.cut);
 	if (box.height > 2.5 * box.width && box.width < size * 9) {
 		const at = { x: box.x + box.width * 0.32, y: box.y + box.height / 2 };
 		const small = Math.min(size * 1.2, box.width / 4);
-		return (
-			text(at, name, small, { weight: 700, rotate: -90 }) +
-			text({ x: at.x + small * 1.3, y: at.y }, cut, small * 0.7, { rotate: -90 })
-		);
+		const nameRect = textRect(at, name, small, -90);
+		return {
+			svg:
+				text(at, name, small, { weight: 700, rotate: -90 }) +
+				text({ x: at.x + small * 1.3, y: at.y }, cut, small * 0.7, { rotate: -90 }),
+			rect: { ...nameRect, x1: nameRect.x1 + small * 1.3 }
+		};
 	}
 	const halfWidth = (Math.max(name.length * 1.2, cut.length * 0.85) * size * 0.62) / 2;
 	const centreX = box.x + box.width / 2;
@@ -148,38 +159,93 @@ function pieceLabel(piece: DraftPiece, box: Box, size: number): string {
 	};
 	const fractions = [0.42, 0.32, 0.52, 0.25, 0.62, 0.72, 0.18, 0.82];
 	const y = box.y + box.height * (fractions.find((f) => clear(box.y + box.height * f)) ?? 0.42);
-	return (
-		text({ x: centreX, y }, name, size * 1.2, { weight: 700 }) +
-		text({ x: centreX, y: y + size * 1.5 }, cut, size * 0.85)
+	return {
+		svg:
+			text({ x: centreX, y }, name, size * 1.2, { weight: 700 }) +
+			text({ x: centreX, y: y + size * 1.5 }, cut, size * 0.85),
+		rect: { x0: centreX - halfWidth, y0: y - size * 0.8, x1: centreX + halfWidth, y1: y + size * 2.1 }
+	};
+}
+
+/** A piece drawing's box on a 360 px phone, px: the card's inner width and the drawing's height limit. */
+export const phoneDrawing = { width: 300, height: 480 };
+/** The smallest a dimension label may be on that phone, px. */
+export const minLabelPx = 11;
+
+export interface PieceDrawingLayout {
+	size: number;
+	view: Box;
+	outlineBox: Box;
+	name: { svg: string; rect: Rect };
+	fold: Rect | null;
+	labels: DimensionLabel[];
+}
+
+/** Screen pixels per drawing unit when `view` is fitted into the phone's drawing box. */
+export const phoneScale = (view: Box) => Math.min(phoneDrawing.width / view.width, phoneDrawing.height / view.height);
+
+function layoutAt(piece: DraftPiece, unit: Unit, size: number): PieceDrawingLayout {
+	const outlineBox = boundingBox(piece.outline);
+	const name = pieceLabel(piece, outlineBox, size);
+	const fold = piece.cut.onFold ? foldRect(outlineBox, size) : null;
+	const dimensions = piece.lines.flatMap((l) =>
+		l.dimension ? [{ ...l.dimension, text: formatLength(l.mm, unit, { withUnit: true }) }] : []
 	);
+	const labels = placeDimensionLabels(dimensions, size * 0.85, outlineBox, fold ? [name.rect, fold] : [name.rect]);
+	const corners = (r: Rect): Point[] => [
+		{ x: r.x0, y: r.y0 },
+		{ x: r.x1, y: r.y1 }
+	];
+	const content = boundingBox([
+		...piece.outline,
+		...dimensions.flatMap((d) => [d.from, d.to]),
+		...piece.marks.flatMap((m) => m.points),
+		...labels.flatMap((l) => corners(l.rect)),
+		...corners(name.rect)
+	]);
+	const margin = size * 1.2;
+	const view = {
+		x: content.x - margin,
+		y: content.y - margin,
+		width: content.width + 2 * margin,
+		height: content.height + 2 * margin
+	};
+	return { size, view, outlineBox, name, fold, labels };
+}
+
+/**
+ * Where everything goes in a piece drawing. Text scales with the piece, grown where needed so dimension
+ * labels are at least `minLabelPx` on a 360 px phone; labels are kept clear of each other and of the fold
+ * bracket and piece name.
+ */
+export function pieceLayout(piece: DraftPiece, unit: Unit): PieceDrawingLayout {
+	const all = [
+		...piece.outline,
+		...piece.lines.flatMap((l) => (l.dimension ? [l.dimension.from, l.dimension.to] : []))
+	];
+	const box = boundingBox(all);
+	let layout = layoutAt(piece, unit, Math.max(Math.max(box.width, box.height) / 36, 6));
+	for (let i = 0; i < 8 && layout.labels.length; i++) {
+		const px = layout.labels[0].fontSize * phoneScale(layout.view);
+		if (px >= minLabelPx) break;
+		layout = layoutAt(piece, unit, layout.size * (minLabelPx / px) * 1.02);
+	}
+	return layout;
 }
 
 /** One pattern piece: outline, construction marks, grainline, fold marker and dimensions in `unit`. */
 export function pieceSvg(piece: DraftPiece, unit: Unit): string {
-	const outlineBox = boundingBox(piece.outline);
-	const everything = [
-		...piece.outline,
-		...piece.lines.flatMap((l) => (l.dimension ? [l.dimension.from, l.dimension.to] : [])),
-		...piece.marks.flatMap((m) => m.points)
-	];
-	const box = boundingBox(everything);
-	const size = Math.max(Math.max(box.width, box.height) / 36, 6);
-	const margin = size * 2.2;
-	const view = { x: box.x - margin, y: box.y - margin, width: box.width + 2 * margin, height: box.height + 2 * margin };
+	const { size, view, outlineBox, name, labels } = pieceLayout(piece, unit);
 	const title = `${piece.label}: ${cutText(piece.cut)}, ${piece.cut.grain} grain`;
 	return [
 		`<svg xmlns="http://www.w3.org/2000/svg" viewBox="${n(view.x)} ${n(view.y)} ${n(view.width)} ${n(view.height)}" role="img" font-family="Poppins, ui-sans-serif, sans-serif" data-piece="${escapeXml(piece.id)}">`,
 		`<title>${escapeXml(title)}</title>`,
-		`<polygon points="${points(piece.outline)}" fill="#f7f2e9" stroke="${ink}" stroke-width="2" vector-effect="non-scaling-stroke" stroke-linejoin="round"/>`,
+		`<${piece.path ? `path d="${pathData(piece.path)}"` : `polygon points="${points(piece.outline)}"`} fill="#f7f2e9" stroke="${ink}" stroke-width="2" vector-effect="non-scaling-stroke" stroke-linejoin="round"/>`,
 		...piece.marks.map((m) => mark(m, size)),
 		grainline(piece.grainline, size),
 		piece.cut.onFold ? foldMarker(outlineBox, size) : '',
-		pieceLabel(piece, outlineBox, size),
-		...piece.lines
-			.filter((l) => l.dimension)
-			.map((l) =>
-				dimension(l.dimension!.from, l.dimension!.to, formatLength(l.mm, unit, { withUnit: true }), size, outlineBox)
-			),
+		name.svg,
+		...labels.map(dimension),
 		'</svg>'
 	].join('');
 }
@@ -209,14 +275,13 @@ function nestedPlacement(p: FabricEstimate['placements'][number], size: number):
 }
 
 /** The cloth with every piece placed, fold on the left when folded, length marks every yard or metre. */
-export function layoutSvg(estimate: FabricEstimate, pieces: readonly DraftPiece[], unit: Unit): string {
+export function layoutSvg(estimate: FabricEstimate, unit: Unit): string {
 	const width = estimate.layWidthMm;
 	const length = estimate.packedMm;
 	const size = Math.max(width, length) / 40;
 	const margin = size * 3;
 	const step = unit === 'in' ? mmPerYard : mmPerMetre;
 	const stepLabel = unit === 'in' ? 'yd' : 'm';
-	const byId = new Map(pieces.map((p) => [p.id, p]));
 	const ticks: string[] = [];
 	for (let i = 1; i * step <= length + 1e-6; i++) {
 		ticks.push(
@@ -231,14 +296,10 @@ export function layoutSvg(estimate: FabricEstimate, pieces: readonly DraftPiece[
 	}
 	const placed = estimate.placements.map((p) => {
 		if (p.outline) return nestedPlacement(p, size);
-		const piece = byId.get(p.pieceId);
-		const shape = piece ? translate(piece.outline, -p.origin.x, -p.origin.y) : [];
-		const outlines = p.unfolded ? [translate(shape, p.w / 2, 0), translate(mirrorX(shape), p.w / 2, 0)] : [shape];
-		const drawn = piece ? outlines : [];
 		return [
 			`<g transform="translate(${n(p.x)} ${n(p.y)})">`,
 			`<rect width="${n(p.w)}" height="${n(p.h)}" ${stroke('#7b7f8c', 1, '4 3')}/>`,
-			...drawn.map(
+			...p.shapes.map(
 				(o) =>
 					`<polygon points="${points(o)}" fill="#fae2da" stroke="${madder}" stroke-width="1.5" vector-effect="non-scaling-stroke"/>`
 			),

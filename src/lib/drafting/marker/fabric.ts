@@ -1,5 +1,5 @@
 import type { FabricEstimate, FabricPlacement, FabricSpec } from '../fabric';
-import { boundingBox, mirrorX, type Point } from '../geometry';
+import { boundingBox, mirrorX, translate, type Point } from '../geometry';
 import type { DraftPiece } from '../pieces';
 import { formatFabricLength, roundUpFabric } from '../units';
 import { nestMarker, type MarkerItem } from './nest';
@@ -34,23 +34,25 @@ export function markerItems(estimate: FabricEstimate, pieces: readonly DraftPiec
 	const groups = new Map<string, { item: MarkerItem; yields: number; unfolded: boolean }>();
 	for (const p of estimate.placements) {
 		const key = `${p.pieceId}|${p.unfolded}`;
+		// A box laid head to tail holds two copies; an opened-out fold piece is one cut drawn in two halves.
+		const copies = p.unfolded ? 1 : p.shapes.length;
 		const group = groups.get(key);
 		if (group) {
-			group.item.quantity++;
+			group.item.quantity += copies;
 			continue;
 		}
 		const piece = byId.get(p.pieceId);
 		if (!piece) return null;
 		const outline = quarterTurned(p.unfolded ? openedOut(piece.outline) : piece.outline, p);
 		groups.set(key, {
-			yields: p.yields,
+			yields: p.yields / copies,
 			unfolded: p.unfolded,
 			item: {
 				id: piece.id,
 				label: piece.label,
 				outline,
 				grainline: piece.grainline,
-				quantity: 1,
+				quantity: copies,
 				rotation: spec.directional ? 'none' : '180',
 				onFold: estimate.folded && piece.cut.onFold,
 				mirrorPairs: !estimate.folded && piece.cut.pair
@@ -99,6 +101,7 @@ export function nestFabricEstimate(
 			origin: { x: 0, y: 0 },
 			unfolded,
 			yields,
+			shapes: [translate(m.outline, -m.box.x, -m.box.y)],
 			outline: m.outline,
 			grainline: m.grainline
 		};

@@ -155,6 +155,9 @@ describe('marker: every garment', () => {
 		expect(nested.packedMm).toBeLessThanOrEqual(boxes.packedMm);
 		expect(nested.rounded.mm).toBeGreaterThanOrEqual(nested.lengthMm - 1e-6);
 		if (nested.nested) expect(nested.packedMm).toBeGreaterThanOrEqual(nested.nested.areaBoundMm - 1e-6);
+		// Every cut the boxes made, copies laid head to tail included, is cut from the marker too.
+		const cuts = (e: typeof boxes) => e.placements.reduce((sum, p) => sum + p.yields, 0);
+		expect(cuts(nested)).toBe(cuts(boxes));
 	});
 
 	it('halves the cloth for four skirt gores that interlock end for end (hand check)', () => {

@@ -77,6 +77,8 @@ export function waistbandPiece(band: {
 			{ id: 'overlap', label: 'Overlap', mm: band.overlap },
 			{ id: 'seam_allowance', label: 'Seam allowance', mm: band.seam }
 		],
-		grainline: [pt(w * 0.7, inch(2)), pt(w * 0.7, h - inch(2))]
+		grainline: [pt(w * 0.7, inch(2)), pt(w * 0.7, h - inch(2))],
+		// A straight band may be cut on the crosswise grain, or in two joined with a seam (common practice).
+		mayCut: { crosswise: true, inTwo: { joinMm: band.seam } }
 	};
 }

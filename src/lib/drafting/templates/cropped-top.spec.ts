@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { estimateFabric } from '../fabric';
 import { boundingBox } from '../geometry';
-import { croppedTop } from './cropped-top';
+import { croppedTop, ellipsePerimeter } from './cropped-top';
 import { draftIn } from './test-support';
 
 // The working dressmaker's cropped-top method, worked in inches (common practice): bust 36, shoulder width
@@ -14,11 +14,14 @@ describe('cropped top — the dressmaker’s method (common practice)', () => {
 	it('fold width = quarter bust + 7', () => {
 		expect(example.line('front.fold_width')).toBeCloseTo(9 + 7, 9);
 	});
-	it('neckline 4 wide and 4 deep from the fold, the same front and back', () => {
+	// The method gives the neckline as 4 wide and 4 deep. 4 deep is a front neck: a bodice block drops the back
+	// neck only about 2 cm below the neck-point line (Aldrich, Metric Pattern Cutting for Women's Wear,
+	// close-fitting bodice block; from memory), so the back keeps the width and takes the block's depth.
+	it('neckline 4 wide front and back, 4 deep at the front, the block’s 2 cm at the back', () => {
 		expect(example.line('front.neck_width')).toBeCloseTo(4, 9);
 		expect(example.line('front.neck_depth')).toBeCloseTo(4, 9);
 		expect(example.line('back.neck_width')).toBeCloseTo(4, 9);
-		expect(example.line('back.neck_depth')).toBeCloseTo(4, 9);
+		expect(example.line('back.neck_depth') * 2.54).toBeCloseTo(2, 9);
 	});
 	it('shoulder point at half the shoulder width from the fold', () => {
 		expect(example.line('front.shoulder_point')).toBeCloseTo(7.5, 9);
@@ -56,8 +59,8 @@ describe('cropped top — the dressmaker’s method (common practice)', () => {
 });
 
 describe('cropped top — geometry', () => {
-	it('both pieces are cut on the fold and fit inside the fold width', () => {
-		for (const piece of example.pieces) {
+	it('both body pieces are cut on the fold and fit inside the fold width', () => {
+		for (const piece of example.pieces.slice(0, 2)) {
 			expect(piece.cut.onFold).toBe(true);
 			const box = boundingBox(piece.outline);
 			expect(box.x).toBeCloseTo(0, 9);
@@ -126,5 +129,27 @@ describe('cropped top — the card says how the layout folds the cloth', () => {
 		);
 		expect(estimate!.folded).toBe(true);
 		for (const p of estimate!.placements) expect(p.x).toBe(0);
+	});
+});
+
+describe('cropped top — a neck that passes over the head', () => {
+	it('measures the neck with Ramanujan’s ellipse perimeter (a circle of radius 1 gives 2π; a = 5, b = 3 gives 25.527)', () => {
+		// Ramanujan (1914) first approximation; an ellipse 5 × 3 has perimeter 25.5270 to 4 places.
+		expect(ellipsePerimeter(1, 1)).toBeCloseTo(2 * Math.PI, 12);
+		expect(ellipsePerimeter(5, 3)).toBeCloseTo(25.527, 3);
+	});
+	it('opens the centre back when the shallower back neck leaves the opening under an adult head girth (54–58 cm, from memory)', () => {
+		// 4 × 4 in front, 4 in × 2 cm back: 53.2 cm round the neck, short of 56 cm.
+		const back = example.pieces[1];
+		const slit = back.marks.find((m) => m.kind === 'slit')!;
+		expect(slit.points[0].x).toBe(0);
+		expect(example.line('back.back_opening')).toBeCloseTo(4, 9);
+		expect(example.notes.join(' ')).toMatch(/slit the centre back/);
+		expect(example.pieces[0].marks.some((m) => m.kind === 'slit')).toBe(false);
+	});
+	it('leaves the back whole when the neck is wide enough on its own', () => {
+		const wide = draftIn(croppedTop, 'in', body, { length: 18, neckWidth: 5, neckDepth: 5 });
+		expect(wide.pieces[1].marks.some((m) => m.kind === 'slit')).toBe(false);
+		expect(wide.warnings).toEqual([]);
 	});
 });

@@ -2,12 +2,16 @@ import type { Finding } from '../checks';
 import { pt, quadCurve, type Point } from '../geometry';
 import type { DraftPiece, PieceLine, PieceMark } from '../pieces';
 import { fitOf, fitOption, inch, lengthOption, need, num } from './common';
+import { facingWidth, neckFacings } from './facings';
 import type { Fit, GarmentTemplate } from './types';
 
 /*
  * A working dressmaker's method for a cropped top with cut-in-one short sleeves and bust darts (common
  * practice), in inches on the quarter bust. The cloth is folded once lengthwise and front and back are each
- * cut with the centre on that fold; the neckline is the same front and back and must pass over the head.
+ * cut with the centre on that fold. The front neck is the method's; the back neck is the bodice block's,
+ * about 2 cm below the neck-point line (Aldrich, Metric Pattern Cutting for Women's Wear, close-fitting
+ * bodice block; from memory). With no fastening the neck must pass over the head; when it is too small
+ * the back gets a keyhole opening at the centre back, closed with a button and loop (common practice).
  */
 
 /** Bust ease per quarter: "regular" is the method (4 in in all, McCunn's fitting ease with sleeves);
@@ -20,6 +24,8 @@ const waistShaping = inch(1.5);
 const dartWidth = inch(1);
 const dartLength = inch(5);
 const sleeveHem = inch(1);
+const backNeckDepth = 20;
+const keyholeLength = inch(4);
 /** Adult head girth is commonly 54–58 cm (from memory); an opening smaller than this will not go over. */
 const smallestHeadOpening = 560;
 
@@ -75,16 +81,19 @@ export function topFigures(
 	};
 }
 
-function outlineOf(f: TopFigures): Point[] {
-	const neckPoint = pt(f.neckWidth, 0);
-	const centreNeck = pt(0, f.neckDepth);
+/** The neckline from the centre to the neck point. */
+function neckEdge(f: TopFigures, neckDepth: number): Point[] {
+	const centreNeck = pt(0, neckDepth);
+	return [centreNeck, ...quadCurve(centreNeck, pt(f.neckWidth * 0.9, neckDepth * 0.95), pt(f.neckWidth, 0))];
+}
+
+function outlineOf(f: TopFigures, neckDepth: number): Point[] {
 	const sleeveTop = pt(f.sleeveEnd, sleeveDrop);
 	const sleeveBottom = pt(f.sleeveEnd, sleeveDrop + f.sleeveOpening);
 	const underarmY = Math.max(f.bustLineDepth, sleeveBottom.y + inch(0.5));
 	const side = pt(f.bustWidth, underarmY);
 	return [
-		centreNeck,
-		...quadCurve(centreNeck, pt(f.neckWidth * 0.9, f.neckDepth * 0.95), neckPoint),
+		...neckEdge(f, neckDepth),
 		pt(f.shoulderPoint, 0),
 		sleeveTop,
 		sleeveBottom,
@@ -95,7 +104,7 @@ function outlineOf(f: TopFigures): Point[] {
 	];
 }
 
-function sharedLines(f: TopFigures): PieceLine[] {
+function sharedLines(f: TopFigures, neckDepth: number): PieceLine[] {
 	return [
 		{ id: 'fold_width', label: 'Fold width needed', mm: f.foldWidth },
 		{
@@ -107,8 +116,8 @@ function sharedLines(f: TopFigures): PieceLine[] {
 		{
 			id: 'neck_depth',
 			label: 'Neck depth from the top',
-			mm: f.neckDepth,
-			dimension: { from: pt(inch(0.6), 0), to: pt(inch(0.6), f.neckDepth) }
+			mm: neckDepth,
+			dimension: { from: pt(inch(0.6), 0), to: pt(inch(0.6), neckDepth) }
 		},
 		{
 			id: 'shoulder_point',
@@ -182,31 +191,56 @@ function dartOf(f: TopFigures): { mark: PieceMark; lines: PieceLine[] } {
 }
 
 function piece(id: 'front' | 'back', f: TopFigures): DraftPiece {
-	const dart = id === 'front' ? dartOf(f) : null;
+	const front = id === 'front';
+	const dart = front ? dartOf(f) : null;
+	const neckDepth = front ? f.neckDepth : backNeckDepth;
+	const keyhole: PieceMark[] =
+		!front && needsKeyhole(f)
+			? [{ kind: 'slit', points: [pt(0, neckDepth), pt(0, neckDepth + keyholeLength)], label: 'opening' }]
+			: [];
 	return {
 		id,
-		label: id === 'front' ? 'Front' : 'Back',
+		label: front ? 'Front' : 'Back',
 		cut: { quantity: 1, onFold: true, pair: false, grain: 'lengthwise' },
-		outline: outlineOf(f),
+		outline: outlineOf(f, neckDepth),
 		marks: [
 			{ kind: 'guide', points: [pt(0, f.bustLineDepth), pt(f.bustWidth, f.bustLineDepth)], label: 'bust line' },
 			{ kind: 'guide', points: [pt(0, f.finishedLength), pt(f.bustWidth, f.finishedLength)], label: 'hemline' },
-			...(dart ? [dart.mark] : [])
+			...(dart ? [dart.mark] : []),
+			...keyhole
 		],
-		lines: [...sharedLines(f), ...(dart ? dart.lines : [])],
+		lines: [
+			...sharedLines(f, neckDepth),
+			...(dart ? dart.lines : []),
+			...(keyhole.length ? [{ id: 'back_opening', label: 'Centre-back opening (slit)', mm: keyholeLength }] : [])
+		],
 		grainline: [pt(f.bustWidth * 0.6, f.bustLineDepth + inch(1)), pt(f.bustWidth * 0.6, f.pieceLength - inch(1.5))]
 	};
 }
 
+/** Ramanujan's first approximation to the perimeter of an ellipse with semi-axes a and b. */
+export function ellipsePerimeter(a: number, b: number): number {
+	return Math.PI * (3 * (a + b) - Math.sqrt((3 * a + b) * (a + 3 * b)));
+}
+
+/** The neck seam all round: half an ellipse at the front, half at the back, both as wide as the neck. */
+export function neckOpening(f: TopFigures): number {
+	return (ellipsePerimeter(f.neckWidth, f.neckDepth) + ellipsePerimeter(f.neckWidth, backNeckDepth)) / 2;
+}
+
+function needsKeyhole(f: TopFigures): boolean {
+	return neckOpening(f) < smallestHeadOpening;
+}
+
 function topWarnings(f: TopFigures): Finding[] {
 	const warnings: Finding[] = [];
-	// Front and back necklines together make an ellipse with semi-axes neck width and neck depth.
-	const opening = 2 * Math.PI * Math.sqrt((f.neckWidth ** 2 + f.neckDepth ** 2) / 2);
+	const opening = neckOpening(f) + (needsKeyhole(f) ? 2 * keyholeLength : 0);
 	if (opening < smallestHeadOpening) {
 		warnings.push({
 			code: 'option_out_of_range',
 			fields: ['neckWidth', 'neckDepth'],
-			message: 'The neckline may be too small to pass over the head; there is no fastening. Widen or deepen it.'
+			message:
+				'The neckline may be too small to pass over the head, even with the centre-back opening. Widen or deepen it.'
 		});
 	}
 	if (f.sleeveEnd < f.bustWidth + inch(1)) {
@@ -235,7 +269,7 @@ export const croppedTop: GarmentTemplate = {
 			help: 'More for a looser sleeve.'
 		}),
 		lengthOption('neckWidth', 'Neck width from the fold', inch(4), [inch(2.5), inch(6)]),
-		lengthOption('neckDepth', 'Neck depth', inch(4), [inch(2), inch(8)]),
+		lengthOption('neckDepth', 'Front neck depth', inch(4), [inch(2), inch(8)]),
 		lengthOption('seamAllowance', 'Seam allowance', inch(1), [inch(0.25), inch(1.5)]),
 		lengthOption('hem', 'Hem allowance', inch(1), [inch(0.5), inch(3)])
 	],
@@ -260,8 +294,22 @@ export const croppedTop: GarmentTemplate = {
 				neckDepth: num(options, 'neckDepth')
 			}
 		);
+		const front = piece('front', f);
+		const back = piece('back', f);
 		return {
-			pieces: [piece('front', f), piece('back', f)],
+			pieces: [
+				front,
+				back,
+				...neckFacings(front, back, {
+					end: pt(f.neckWidth + facingWidth, 0),
+					front: { edge: neckEdge(f, f.neckDepth), depth: f.neckDepth, slit: false },
+					back: {
+						edge: neckEdge(f, backNeckDepth),
+						depth: backNeckDepth + (needsKeyhole(f) ? keyholeLength : 0),
+						slit: needsKeyhole(f)
+					}
+				})
+			],
 			allowances: [
 				{ id: 'seam', label: 'Seam allowance (included in widths)', mm: num(options, 'seamAllowance') },
 				{ id: 'hem', label: 'Hem allowance', mm: num(options, 'hem') },
@@ -270,7 +318,10 @@ export const croppedTop: GarmentTemplate = {
 			notes: [
 				'Fold the cloth once lengthwise; cut front and back each with its centre on the fold.',
 				'Mark the bust darts on the front only.',
-				'No fastening: check the neckline passes over the head before cutting.'
+				'The back neck is shallower than the front, as a bodice block has it. Finish the neck with the neck facings.',
+				needsKeyhole(f)
+					? 'The neck alone is too small to pass over the head: slit the centre back where marked, take the back facing down past it, and close the opening at the neck with a button and loop.'
+					: 'No fastening: check the neckline passes over the head before cutting.'
 			],
 			cautions: [],
 			warnings: topWarnings(f)

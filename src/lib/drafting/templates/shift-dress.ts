@@ -2,6 +2,7 @@ import { wearingEase } from '../ease';
 import { pt, quadCurve, type Point } from '../geometry';
 import type { DraftPiece, PieceLine, PieceMark } from '../pieces';
 import { fitOf, fitOption, homeSeamAllowance, inch, lengthOption, need, num } from './common';
+import { facingAbove, facingWidth } from './facings';
 import type { BodyMm, GarmentTemplate, ResolvedOptions } from './types';
 
 /*
@@ -20,6 +21,7 @@ const dartBelowUnderarm = inch(2);
 const dartShortOfApex = inch(1);
 const backNeckDepth = inch(1);
 const centreBackSeam = inch(1);
+const facingBelowUnderarm = inch(1.5);
 
 export interface DressFigures {
 	quarterBust: number;
@@ -209,8 +211,29 @@ export const shiftDress: GarmentTemplate = {
 		'Quarter-bust bodice block extended to a shift; scye depth, waist and hip lines squared down from the nape as in Aldrich’s close-fitting bodice block (Metric Pattern Cutting for Women’s Wear); wearing ease from CWU “Ease in Clothing” and McCunn.',
 	draft(body, options) {
 		const f = dressFigures(body, options);
+		const front = dressPiece('front', f);
+		const back = dressPiece('back', f);
+		// All-in-one facing: neck and armhole together, ending below the underarm, above the bust dart.
+		const side = pt(f.quarterBust + f.seam, f.napeY + f.armholeDepth + facingBelowUnderarm);
 		return {
-			pieces: [dressPiece('front', f), dressPiece('back', f)],
+			pieces: [
+				front,
+				back,
+				facingAbove(front, {
+					id: 'front_facing',
+					label: 'Front facing',
+					centre: pt(0, f.neckDepth + facingWidth),
+					side,
+					edgeAtCentre: f.neckDepth
+				}),
+				facingAbove(back, {
+					id: 'back_facing',
+					label: 'Back facing',
+					centre: pt(-centreBackSeam, backNeckDepth + facingWidth),
+					side,
+					edgeAtCentre: backNeckDepth
+				})
+			],
 			allowances: [
 				{ id: 'seam', label: 'Seam allowance', mm: f.seam },
 				{ id: 'centre_back', label: 'Centre back seam allowance (zip)', mm: centreBackSeam },
@@ -220,7 +243,7 @@ export const shiftDress: GarmentTemplate = {
 			notes: [
 				'Cut the front on the fold and the back as a pair.',
 				'The front is longer than the back by the dart intake; the dart takes it up at the side seam.',
-				'Finish the neck and armholes with facings or bias binding, seam allowances 1/4 in there.'
+				'Finish the neck and armholes with the all-in-one facings cut with the dress.'
 			],
 			cautions: [],
 			warnings: []

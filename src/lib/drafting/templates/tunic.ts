@@ -3,6 +3,7 @@ import { looseEase } from '../ease';
 import { pt, quadCurve, type Point } from '../geometry';
 import type { Caution, DraftPiece, PieceLine, PieceMark } from '../pieces';
 import { fitOf, fitOption, homeSeamAllowance, inch, lengthOption, need, num } from './common';
+import { facingWidth, neckFacings } from './facings';
 import type { GarmentTemplate } from './types';
 
 /*
@@ -38,18 +39,21 @@ interface TunicFigures {
 	slitLength: number;
 }
 
+/** The neckline from the centre to the neck point on the seamed shoulder. */
+function neckEdge(f: TunicFigures, neckDepth: number): Point[] {
+	const centreNeck = pt(0, neckDepth);
+	return [centreNeck, ...quadCurve(centreNeck, pt(f.neckWidth * 0.9, neckDepth * 0.95), pt(f.neckWidth, -f.seam))];
+}
+
 function tunicPiece(which: 'front' | 'back', f: TunicFigures, neckTies: boolean): DraftPiece {
 	const front = which === 'front';
 	const neckDepth = front ? f.neckDepth : backNeckDepth;
 	const s = f.seam;
-	const centreNeck = pt(0, neckDepth);
 	// The overarm (shoulder) and underarm edges are seamed, so each carries the seam allowance.
-	const neckPoint = pt(f.neckWidth, -s);
 	const sleeveBottom = pt(f.sleeveEnd, f.sleeveOpening + s);
 	const side = pt(f.bodyWidth, f.underarmY + s);
 	const outline: Point[] = [
-		centreNeck,
-		...quadCurve(centreNeck, pt(f.neckWidth * 0.9, neckDepth * 0.95), neckPoint),
+		...neckEdge(f, neckDepth),
 		pt(f.sleeveEnd, -s),
 		sleeveBottom,
 		...quadCurve(sleeveBottom, pt(f.bodyWidth, sleeveBottom.y), side),
@@ -181,14 +185,27 @@ export const tunic: GarmentTemplate = {
 			slitLength: num(options, 'slitLength')
 		};
 		const neckTies = options.neckTies === true;
+		const front = tunicPiece('front', f, neckTies);
+		const back = tunicPiece('back', f, neckTies);
 		return {
-			pieces: [tunicPiece('front', f, neckTies), tunicPiece('back', f, neckTies)],
+			pieces: [
+				front,
+				back,
+				...neckFacings(front, back, {
+					end: pt(f.neckWidth + facingWidth, -s),
+					front: { edge: neckEdge(f, f.neckDepth), depth: f.neckDepth + neckSlit, slit: true },
+					back: { edge: neckEdge(f, backNeckDepth), depth: backNeckDepth, slit: false }
+				})
+			],
 			allowances: [
 				{ id: 'seam', label: 'Seam allowance', mm: s },
 				{ id: 'hem', label: 'Hem allowance', mm: num(options, 'hem') },
 				{ id: 'ease', label: 'Ease at bust/hip (total)', mm: ease }
 			],
-			notes: ['Cut front and back each on the fold.', 'Face the neck slit; stitch the side seams down to the slits.'],
+			notes: [
+				'Cut front and back each on the fold.',
+				'Face the neck and its slit with the neck facings; stitch the side seams down to the slits.'
+			],
 			cautions: [neckTieCaution],
 			warnings: tunicWarnings(f, body.upper_arm_girth)
 		};

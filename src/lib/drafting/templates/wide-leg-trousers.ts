@@ -1,5 +1,6 @@
-import { distance, offsetSegment, pt, quadCurve, type Point } from '../geometry';
-import type { DraftPiece } from '../pieces';
+import { trouserEase } from '../ease';
+import { distance, flattenPath, offsetSegment, pt, type CurvedPath, type PathStep, type Point } from '../geometry';
+import type { DraftPiece, PieceLine } from '../pieces';
 import { fitOf, fitOption, inch, lengthOption, need, num, waistbandPiece } from './common';
 import type { Fit, GarmentTemplate } from './types';
 
@@ -7,14 +8,11 @@ import type { Fit, GarmentTemplate } from './types';
  * A working dressmaker's method for high-waisted wide-leg trousers (common practice), worked in inches on
  * quarters of the girth. Every depth is measured down from the waist seam, after the finished waistband
  * depth has been taken off the top. Widths include one seam allowance, as the method does.
+ * The regular fit is the method exactly: front and back alike at hip and thigh, no ease there. The other
+ * fits follow the usual trouser block in giving the back more than the front — 1 cm each side of the
+ * quarter hip and 2 cm each side of the half thigh (Aldrich, Metric Pattern Cutting for Women's Wear,
+ * trouser block; from memory) — and take their ease from the trouser ease table.
  */
-
-/** Ease added to each quarter. "regular" is the method itself; the other fits are common-practice variations. */
-const easePerQuarter: Record<Fit, { waist: number; hip: number }> = {
-	fitted: { waist: inch(0.5), hip: 0 },
-	regular: { waist: inch(1), hip: 0 },
-	relaxed: { waist: inch(1.5), hip: inch(0.5) }
-};
 
 const hipToCrotch = inch(1);
 const crotchToThigh = inch(2.5);
@@ -23,20 +21,25 @@ const centreFrontDrop = inch(1);
 const backExtensionExtra = inch(2);
 const backWaistIn = inch(1);
 const backWaistRaise = inch(1.5);
+const blockHipShift = 10;
+const blockThighShift = 20;
 
 export interface TrouserFigures {
 	quarterHip: number;
 	hipLineDepth: number;
 	crotchDepth: number;
 	thighLineDepth: number;
-	hipWidth: number;
-	frontCrotchExtension: number;
-	backCrotchExtension: number;
+	front: { hipWidth: number; thighWidth: number; crotchExtension: number };
+	back: { hipWidth: number; thighWidth: number; crotchExtension: number };
 	waistWidth: number;
-	thighWidth: number;
 	legLength: number;
 	foldWidth: number;
+	hipEase: number;
+	thighEase: number;
+	seamAllowance: number;
 }
+
+type Side = TrouserFigures['front'];
 
 export function trouserFigures(
 	body: { hip: number; waist: number; thigh: number },
@@ -46,73 +49,96 @@ export function trouserFigures(
 		seamAllowance: number;
 		hem: number;
 		crotchEase: number;
-		waistbandSeam: number;
-		overlap: number;
 		fit: Fit;
 	}
 ): TrouserFigures {
-	const ease = easePerQuarter[o.fit];
+	const ease = trouserEase[o.fit];
+	const worked = o.fit === 'regular';
+	const hipShift = worked ? 0 : blockHipShift;
+	const thighShift = worked ? 0 : blockThighShift;
 	const quarterHip = body.hip / 4;
 	const hipLineDepth = quarterHip;
 	const crotchDepth = hipLineDepth + hipToCrotch + o.crotchEase;
 	const frontCrotchExtension = quarterHip / 4;
+	const quarterWithEase = quarterHip + ease.hip / 4 + o.seamAllowance;
+	const halfThigh = (body.thigh + ease.thigh + o.seamAllowance) / 2;
 	return {
 		quarterHip,
 		hipLineDepth,
 		crotchDepth,
 		thighLineDepth: crotchDepth + crotchToThigh,
-		hipWidth: quarterHip + ease.hip + o.seamAllowance,
-		frontCrotchExtension,
-		backCrotchExtension: frontCrotchExtension + backExtensionExtra,
-		waistWidth: body.waist / 4 + ease.waist + o.seamAllowance,
-		thighWidth: (body.thigh + o.seamAllowance) / 2,
+		front: {
+			hipWidth: quarterWithEase - hipShift,
+			thighWidth: halfThigh - thighShift,
+			crotchExtension: frontCrotchExtension
+		},
+		back: {
+			hipWidth: quarterWithEase + hipShift,
+			thighWidth: halfThigh + thighShift,
+			crotchExtension: frontCrotchExtension + backExtensionExtra
+		},
+		waistWidth: body.waist / 4 + ease.waistPerQuarter + o.seamAllowance,
 		legLength: o.length - o.waistbandDepth + o.hem,
-		foldWidth: quarterHip + ease.hip + foldRoom
+		foldWidth: quarterHip + ease.hip / 4 + hipShift + foldRoom,
+		hipEase: ease.hip,
+		thighEase: ease.thigh,
+		seamAllowance: o.seamAllowance
 	};
 }
 
 /**
- * What front and back share below the hip line: the crotch curve out to the extension, the leg
- * (thigh width kept to the hem) and the side seam curving back up to the side waist.
+ * What front and back share from the hip line down: the crotch curve out to the extension, the leg (thigh
+ * width kept to the hem) and the side seam curving back up to the side waist. `seatControl` steers the
+ * crotch curve so it leaves the hip line in the direction of the centre seam above it.
  */
-function lowerBody(f: TrouserFigures, crotchExtension: number, sideWaist: Point) {
-	const centreHip = pt(f.hipWidth, f.hipLineDepth);
-	const crotchPoint = pt(f.hipWidth + crotchExtension, f.crotchDepth);
+function lowerBody(f: TrouserFigures, side: Side, sideWaist: Point, seatControl: Point) {
+	const crotchPoint = pt(side.hipWidth + side.crotchExtension, f.crotchDepth);
 	const legCentre = crotchPoint.x / 2;
-	const inThigh = pt(legCentre + f.thighWidth / 2, f.thighLineDepth);
-	const outThigh = pt(legCentre - f.thighWidth / 2, f.thighLineDepth);
+	const inThigh = pt(legCentre + side.thighWidth / 2, f.thighLineDepth);
+	const outThigh = pt(legCentre - side.thighWidth / 2, f.thighLineDepth);
 	const sideHip = pt(0, f.hipLineDepth);
-	const seatAndLeg: Point[] = [
-		...quadCurve(centreHip, pt(f.hipWidth, f.crotchDepth), crotchPoint),
-		inThigh,
-		pt(inThigh.x, f.legLength),
-		pt(outThigh.x, f.legLength),
-		outThigh,
-		pt(0, f.crotchDepth),
-		sideHip,
-		...quadCurve(sideHip, pt(0, f.hipLineDepth * 0.35), sideWaist)
+	const steps: PathStep[] = [
+		{ control: seatControl, to: crotchPoint },
+		{ to: inThigh },
+		{ to: pt(inThigh.x, f.legLength) },
+		{ to: pt(outThigh.x, f.legLength) },
+		{ to: outThigh },
+		{ to: pt(0, f.crotchDepth) },
+		{ to: sideHip },
+		{ control: pt(0, f.hipLineDepth * 0.35), to: sideWaist }
 	];
-	return { crotchPoint, legCentre, inThigh, outThigh, sideHip, seatAndLeg };
+	return { crotchPoint, legCentre, inThigh, outThigh, sideHip, steps };
+}
+
+function closedPath(start: Point, steps: PathStep[]): { path: CurvedPath; outline: Point[] } {
+	const path = { start, steps };
+	return { path, outline: flattenPath(path) };
+}
+
+function easeLines(f: TrouserFigures): PieceLine[] {
+	return [
+		{ id: 'hip_ease', label: 'Hip ease over the body (all round)', mm: f.hipEase },
+		{ id: 'thigh_ease', label: 'Thigh ease over the body (each leg)', mm: f.thighEase }
+	];
 }
 
 function frontPiece(f: TrouserFigures): DraftPiece {
-	const sideWaist = pt(f.hipWidth - f.waistWidth, 0);
-	const centreWaist = pt(f.hipWidth, centreFrontDrop);
-	const centreHip = pt(f.hipWidth, f.hipLineDepth);
-	const { crotchPoint, legCentre, inThigh, outThigh, sideHip, seatAndLeg } = lowerBody(
-		f,
-		f.frontCrotchExtension,
-		sideWaist
-	);
-	const outline: Point[] = [sideWaist, centreWaist, centreHip, ...seatAndLeg];
+	const side = f.front;
+	const sideWaist = pt(side.hipWidth - f.waistWidth, 0);
+	const centreWaist = pt(side.hipWidth, centreFrontDrop);
+	const centreHip = pt(side.hipWidth, f.hipLineDepth);
+	const seatControl = pt(side.hipWidth, f.crotchDepth);
+	const { crotchPoint, legCentre, inThigh, outThigh, sideHip, steps } = lowerBody(f, side, sideWaist, seatControl);
+	const { path, outline } = closedPath(sideWaist, [{ to: centreWaist }, { to: centreHip }, ...steps]);
 	const depthAt = (step: number) => -inch(1.1) * step;
 	return {
 		id: 'front',
 		label: 'Front',
 		cut: { quantity: 2, onFold: false, pair: true, grain: 'lengthwise' },
 		outline,
+		path,
 		marks: [
-			guide('hip line', 0, f.hipWidth, f.hipLineDepth),
+			guide('hip line', 0, side.hipWidth, f.hipLineDepth),
 			guide('crotch line', 0, crotchPoint.x, f.crotchDepth),
 			guide('thigh line', outThigh.x, inThigh.x, f.thighLineDepth)
 		],
@@ -136,24 +162,29 @@ function frontPiece(f: TrouserFigures): DraftPiece {
 				mm: f.thighLineDepth,
 				dimension: { from: pt(depthAt(3), 0), to: pt(depthAt(3), f.thighLineDepth) }
 			},
-			{ id: 'hip_width', label: 'Width at hip line', mm: f.hipWidth, dimension: { from: sideHip, to: centreHip } },
+			{
+				id: 'hip_width',
+				label: 'Width at hip line',
+				mm: side.hipWidth,
+				dimension: { from: sideHip, to: centreHip }
+			},
 			{
 				id: 'crotch_extension',
 				label: 'Crotch extension',
-				mm: f.frontCrotchExtension,
-				dimension: { from: pt(f.hipWidth, f.crotchDepth), to: crotchPoint }
+				mm: side.crotchExtension,
+				dimension: { from: pt(side.hipWidth, f.crotchDepth), to: crotchPoint }
 			},
 			{
 				id: 'waist_width',
 				label: 'Waist width',
 				mm: f.waistWidth,
-				dimension: { from: sideWaist, to: pt(f.hipWidth, 0) }
+				dimension: { from: sideWaist, to: pt(side.hipWidth, 0) }
 			},
 			{ id: 'centre_front_drop', label: 'Centre front lowered', mm: centreFrontDrop },
 			{
 				id: 'thigh_width',
 				label: 'Thigh width (half each side of the centre line)',
-				mm: f.thighWidth,
+				mm: side.thighWidth,
 				dimension: { from: outThigh, to: inThigh }
 			},
 			{
@@ -161,43 +192,60 @@ function frontPiece(f: TrouserFigures): DraftPiece {
 				label: 'Leg length with hem',
 				mm: f.legLength,
 				dimension: { from: pt(depthAt(4), 0), to: pt(depthAt(4), f.legLength) }
-			}
+			},
+			...easeLines(f)
 		],
 		grainline: [pt(legCentre, f.thighLineDepth + inch(8)), pt(legCentre, f.legLength - inch(3))]
 	};
 }
 
 function backPiece(f: TrouserFigures, zip: { length: number; width: number }): DraftPiece {
-	const centreWaist = pt(f.hipWidth - backWaistIn, -backWaistRaise);
+	const side = f.back;
+	const centreWaist = pt(side.hipWidth - backWaistIn, -backWaistRaise);
 	const run = Math.sqrt(Math.max(f.waistWidth ** 2 - backWaistRaise ** 2, 0));
 	const sideWaist = pt(centreWaist.x - run, 0);
-	const centreHip = pt(f.hipWidth, f.hipLineDepth);
-	const { crotchPoint, legCentre, inThigh, outThigh, sideHip, seatAndLeg } = lowerBody(
-		f,
-		f.backCrotchExtension,
-		sideWaist
-	);
-	const zipEnd = alongSegment(centreWaist, centreHip, zip.length);
+	const centreHip = pt(side.hipWidth, f.hipLineDepth);
+	// The centre back seam runs on to the crotch line before it curves: no corner at the hip line.
+	const seatControl = alongSegment(centreWaist, centreHip, distance(centreWaist, centreHip) * slantTo(f));
+	const { crotchPoint, legCentre, inThigh, outThigh, sideHip, steps } = lowerBody(f, side, sideWaist, seatControl);
+	// The zip allowance tapers back into the seam at 45° well above the hip line, with no step there.
+	const centreSeam = distance(centreWaist, centreHip);
+	const zipLength = Math.min(zip.length, centreSeam - zip.width);
+	const zipEnd = alongSegment(centreWaist, centreHip, zipLength);
+	const taperEnd = alongSegment(centreWaist, centreHip, zipLength + zip.width);
 	const [zipTop, zipBottom] = offsetSegment(centreWaist, zipEnd, zip.width);
-	const outline: Point[] = [sideWaist, centreWaist, zipTop, zipBottom, zipEnd, centreHip, ...seatAndLeg];
+	const { path, outline } = closedPath(sideWaist, [
+		{ to: centreWaist },
+		{ to: zipTop },
+		{ to: zipBottom },
+		{ to: taperEnd },
+		{ to: centreHip },
+		...steps
+	]);
 	return {
 		id: 'back',
 		label: 'Back',
 		cut: { quantity: 2, onFold: false, pair: true, grain: 'lengthwise' },
 		outline,
+		path,
 		marks: [
-			guide('hip line', 0, f.hipWidth, f.hipLineDepth),
+			guide('hip line', 0, side.hipWidth, f.hipLineDepth),
 			guide('crotch line', 0, crotchPoint.x, f.crotchDepth),
 			{ kind: 'zip', points: [centreWaist, zipEnd], label: 'zip' }
 		],
 		lines: [
-			{ id: 'hip_width', label: 'Width at hip line', mm: f.hipWidth, dimension: { from: sideHip, to: centreHip } },
+			{
+				id: 'hip_width',
+				label: 'Width at hip line',
+				mm: side.hipWidth,
+				dimension: { from: sideHip, to: centreHip }
+			},
 			{ id: 'crotch_depth', label: 'Crotch depth', mm: f.crotchDepth },
 			{
 				id: 'crotch_extension',
 				label: 'Crotch extension',
-				mm: f.backCrotchExtension,
-				dimension: { from: pt(f.hipWidth, f.crotchDepth), to: crotchPoint }
+				mm: side.crotchExtension,
+				dimension: { from: pt(side.hipWidth, f.crotchDepth), to: crotchPoint }
 			},
 			{ id: 'waist_in', label: 'Centre back waist in from centre back', mm: backWaistIn },
 			{ id: 'waist_raise', label: 'Back waist raised', mm: backWaistRaise },
@@ -207,13 +255,23 @@ function backPiece(f: TrouserFigures, zip: { length: number; width: number }): D
 				mm: distance(sideWaist, centreWaist),
 				dimension: { from: sideWaist, to: centreWaist }
 			},
-			{ id: 'thigh_width', label: 'Thigh width', mm: f.thighWidth, dimension: { from: outThigh, to: inThigh } },
+			{
+				id: 'thigh_width',
+				label: 'Thigh width',
+				mm: side.thighWidth,
+				dimension: { from: outThigh, to: inThigh }
+			},
 			{ id: 'leg_length', label: 'Leg length with hem (from the waist line)', mm: f.legLength },
-			{ id: 'zip_allowance_length', label: 'Zip allowance length', mm: zip.length },
+			{ id: 'zip_allowance_length', label: 'Zip allowance length', mm: zipLength },
 			{ id: 'zip_allowance_width', label: 'Zip allowance width', mm: zip.width }
 		],
 		grainline: [pt(legCentre, f.thighLineDepth + inch(8)), pt(legCentre, f.legLength - inch(3))]
 	};
+}
+
+/** How far along the centre back line (as a multiple of waist-to-hip) it reaches the crotch line. */
+function slantTo(f: TrouserFigures): number {
+	return (f.crotchDepth + backWaistRaise) / (f.hipLineDepth + backWaistRaise);
 }
 
 function guide(label: string, x0: number, x1: number, y: number) {
@@ -221,7 +279,7 @@ function guide(label: string, x0: number, x1: number, y: number) {
 }
 
 function alongSegment(a: Point, b: Point, length: number): Point {
-	const t = Math.min(length / distance(a, b), 1);
+	const t = length / distance(a, b);
 	return pt(a.x + (b.x - a.x) * t, a.y + (b.y - a.y) * t);
 }
 
@@ -286,7 +344,10 @@ export const wideLegTrousers: GarmentTemplate = {
 			notes: [
 				'Fold the fabric double and cut front and back as pairs.',
 				'Mark the hip, crotch and thigh lines; the wide leg keeps the thigh width down to the hem.',
-				'Widths include one seam allowance at the side seam, as the method does.'
+				'Widths include one seam allowance at the side seam, as the method does.',
+				o.fit === 'regular'
+					? 'Regular fit is the method as taught: no ease at the hip or thigh over the body (see the front’s hip and thigh ease).'
+					: 'This fit takes the hip and thigh ease shown on the front, and cuts the back wider than the front at hip and thigh, as the trouser block does.'
 			],
 			cautions: [],
 			warnings: []
