@@ -13,7 +13,8 @@ import {
 	root,
 	startDatabase,
 	startServer,
-	stopProcess
+	stopProcess,
+	uploadBodySizeLimit
 } from './lib/local';
 
 const dev = process.argv.includes('--dev');
@@ -51,7 +52,8 @@ const server = startServer(
 		AUTH_TRUST_HOST: 'true',
 		ORIGIN: origin,
 		PORT: String(port),
-		HOST: host
+		HOST: host,
+		BODY_SIZE_LIMIT: uploadBodySizeLimit
 	},
 	dev ? join(root, 'node_modules/.bin/vite') : 'node',
 	dev ? ['dev', '--host', host, '--port', String(port), '--strictPort'] : ['build']

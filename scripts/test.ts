@@ -23,6 +23,7 @@ import {
 	startDatabase,
 	startServer,
 	stopProcess,
+	uploadBodySizeLimit,
 	waitForHealth
 } from './lib/local';
 
@@ -146,7 +147,8 @@ async function main() {
 		DATABASE_URL: browserDatabase,
 		ORIGIN: baseUrl,
 		PORT: String(port),
-		TACKLINE_BASE_URL: baseUrl
+		TACKLINE_BASE_URL: baseUrl,
+		BODY_SIZE_LIMIT: uploadBodySizeLimit
 	};
 	const server = startServer(browserEnv);
 	cleanups.unshift(() => stopProcess(server));

@@ -7,7 +7,7 @@
 import type { ChildProcess } from 'node:child_process';
 import { afterAll, expect } from 'vitest';
 import { copyDatabase, dropDatabase } from '../../scripts/lib/databases';
-import { freePort, startServer, stopProcess, waitForHealth } from '../../scripts/lib/local';
+import { freePort, startServer, stopProcess, uploadBodySizeLimit, waitForHealth } from '../../scripts/lib/local';
 
 const templateUrl = process.env.TACKLINE_TEMPLATE_DATABASE_URL;
 if (!templateUrl)
@@ -22,7 +22,12 @@ if (needsServer) {
 	const port = await freePort();
 	const baseUrl = `http://localhost:${port}`;
 	process.env.TACKLINE_BASE_URL = baseUrl;
-	const started = startServer({ DATABASE_URL: databaseUrl, PORT: String(port), ORIGIN: baseUrl });
+	const started = startServer({
+		DATABASE_URL: databaseUrl,
+		PORT: String(port),
+		ORIGIN: baseUrl,
+		BODY_SIZE_LIMIT: uploadBodySizeLimit
+	});
 	server = started;
 	await waitForHealth(baseUrl, 30_000).catch(async (error: unknown) => {
 		await stopProcess(started);

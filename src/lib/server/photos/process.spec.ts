@@ -87,10 +87,15 @@ describe('processUpload refuses what is not a photo it can safely read', { timeo
 		[
 			'an HTML page named .jpg',
 			() => new Uint8Array(Buffer.from('<!doctype html><title>hi</title><p>hello')),
-			'unsupported-type'
+			'text_not_image'
 		],
-		['a GIF', () => solid(8, 8).gif().toBuffer(), 'unsupported-type'],
-		['an empty file', () => new Uint8Array(0), 'unsupported-type'],
+		[
+			'a Windows program named photo.png',
+			() => Buffer.concat([Buffer.from('MZ'), Buffer.alloc(58), Buffer.from([0x80, 0, 0, 0]), Buffer.alloc(200)]),
+			'not_an_image'
+		],
+		['a GIF', () => solid(8, 8).gif().toBuffer(), 'other_image_format'],
+		['an empty file', () => new Uint8Array(0), 'damaged'],
 		[
 			'an SVG drawing',
 			() =>
@@ -103,9 +108,9 @@ describe('processUpload refuses what is not a photo it can safely read', { timeo
 		[
 			'a file over 15 MB',
 			async () => Buffer.concat([await solid(8, 8).jpeg().toBuffer(), Buffer.alloc(maxUploadBytes)]),
-			'too-large'
+			'too_large'
 		],
-		['a PNG claiming 100 000 × 100 000 pixels', pixelBomb, 'too-many-pixels'],
+		['a PNG claiming 100 000 × 100 000 pixels', pixelBomb, 'too_many_pixels'],
 		[
 			'a JPEG cut off half-way',
 			async () => {
