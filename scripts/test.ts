@@ -105,9 +105,11 @@ async function main() {
 		throwaway: true
 	});
 	cleanups.push(() => database.stop());
-	await migrateAndSeed(database.url, { seed: true });
 	const standins = await startStandins({ smtp: await freePort(), mailApi: await freePort() });
 	cleanups.push(() => standins.stop());
+	// The seed stores demo photos in the S3 stand-in, shared by every test file.
+	Object.assign(process.env, standins.env);
+	await migrateAndSeed(database.url, { seed: true });
 
 	const env: Record<string, string> = {
 		...standins.env,

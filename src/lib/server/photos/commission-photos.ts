@@ -6,7 +6,7 @@ import type { Executor } from '../db';
 import { commissionPhoto } from '../db/schema';
 import { commissionFacts, type CommissionFacts } from './commission-access';
 import { PhotoRuleBroken, notFound } from './errors';
-import { checkOrder, forgetObjects, moved, storeUpload, toView, type Upload } from './stored';
+import { checkOrder, forgetObjects, moved, storeUpload, toView, type StoredPhoto, type Upload } from './stored';
 
 export type Person = Pick<SessionUser, 'id' | 'role'>;
 
@@ -62,6 +62,37 @@ async function rows(db: Executor, commissionId: string) {
 		.orderBy(asc(commissionPhoto.sortOrder), asc(commissionPhoto.createdAt));
 }
 
+async function insert(
+	tx: Executor,
+	input: { commissionId: string; actorId: string | null; stored: StoredPhoto; altText?: string }
+): Promise<PhotoView> {
+	const { commissionId, stored } = input;
+	const { photos, last } = await countAndLast(tx, commissionId);
+	if (photos >= photoLimits.commission) throw limitReached();
+	const [row] = await tx
+		.insert(commissionPhoto)
+		.values({
+			commissionId,
+			storageKey: stored.key,
+			thumbKey: stored.thumbKey,
+			contentType: stored.contentType,
+			bytes: stored.bytes,
+			width: stored.width,
+			height: stored.height,
+			altText: input.altText ?? '',
+			sortOrder: last + 1
+		})
+		.returning(viewColumns);
+	await audit.record(tx, {
+		actorId: input.actorId,
+		action: 'commission.photo_added',
+		subjectType: 'commission',
+		subjectId: commissionId,
+		data: { photoId: row.id }
+	});
+	return toView(row);
+}
+
 /**
  * Adds a photo to the owner's draft or open commission (at most eight): checked, re-encoded and stored
  * before the row is written; a refused upload throws `PhotoRefused`, a broken rule `PhotoRuleBroken`.
@@ -77,30 +108,23 @@ export async function add(
 	return storeUpload(input.file, (stored) =>
 		db.transaction(async (tx) => {
 			await editable(tx, commissionId, actor, true);
-			const { photos, last } = await countAndLast(tx, commissionId);
-			if (photos >= photoLimits.commission) throw limitReached();
-			const [row] = await tx
-				.insert(commissionPhoto)
-				.values({
-					commissionId,
-					storageKey: stored.key,
-					thumbKey: stored.thumbKey,
-					contentType: stored.contentType,
-					bytes: stored.bytes,
-					width: stored.width,
-					height: stored.height,
-					altText: input.altText ?? '',
-					sortOrder: last + 1
-				})
-				.returning(viewColumns);
-			await audit.record(tx, {
-				actorId: actor.id,
-				action: 'commission.photo_added',
-				subjectType: 'commission',
-				subjectId: commissionId,
-				data: { photoId: row.id }
-			});
-			return toView(row);
+			return insert(tx, { commissionId, actorId: actor.id, stored, altText: input.altText });
+		})
+	);
+}
+
+/**
+ * Adds a photo whatever the commission's status or owner, within the same limit. For the demo seed and
+ * scripts only; requests go through `add`.
+ */
+export async function addWithoutChecks(
+	db: Executor,
+	input: { commissionId: string; file: Upload; altText?: string }
+): Promise<PhotoView> {
+	return storeUpload(input.file, (stored) =>
+		db.transaction(async (tx) => {
+			if (!(await commissionFacts(tx, input.commissionId, { lock: true }))) throw notFound();
+			return insert(tx, { commissionId: input.commissionId, actorId: null, stored, altText: input.altText });
 		})
 	);
 }
@@ -193,6 +217,11 @@ export async function list(
 	const facts = await commissionFacts(db, input.commissionId);
 	if (!facts || !mayView(facts, input.viewer)) return null;
 	return (await rows(db, input.commissionId)).map(toView);
+}
+
+/** How many photos a commission has. */
+export async function photoCount(db: Executor, input: { commissionId: string }) {
+	return (await countAndLast(db, input.commissionId)).photos;
 }
 
 /** The owner's view for editing: the photos and whether they may still change; null for anyone else. */
