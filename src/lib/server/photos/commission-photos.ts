@@ -6,7 +6,16 @@ import type { Executor } from '../db';
 import { commissionPhoto } from '../db/schema';
 import { commissionFacts, type CommissionFacts } from './commission-access';
 import { PhotoRuleBroken, notFound } from './errors';
-import { checkOrder, forgetObjects, moved, storeUpload, toView, type StoredPhoto, type Upload } from './stored';
+import {
+	checkOrder,
+	forgetObjects,
+	moved,
+	photoRow,
+	storeUpload,
+	toView,
+	type StoredPhoto,
+	type Upload
+} from './stored';
 
 export type Person = Pick<SessionUser, 'id' | 'role'>;
 
@@ -71,17 +80,7 @@ async function insert(
 	if (photos >= photoLimits.commission) throw limitReached();
 	const [row] = await tx
 		.insert(commissionPhoto)
-		.values({
-			commissionId,
-			storageKey: stored.key,
-			thumbKey: stored.thumbKey,
-			contentType: stored.contentType,
-			bytes: stored.bytes,
-			width: stored.width,
-			height: stored.height,
-			altText: input.altText ?? '',
-			sortOrder: last + 1
-		})
+		.values({ commissionId, ...photoRow(stored, input.altText, last + 1) })
 		.returning(viewColumns);
 	await audit.record(tx, {
 		actorId: input.actorId,

@@ -5,7 +5,7 @@ import type { Executor } from '../db';
 import { portfolioItem, portfolioPhoto } from '../db/schema';
 import type { Person } from './commission-photos';
 import { PhotoRuleBroken, notFound } from './errors';
-import { checkOrder, forgetObjects, moved, storeUpload, toView, type Upload } from './stored';
+import { checkOrder, forgetObjects, moved, photoRow, storeUpload, toView, type Upload } from './stored';
 
 const photoColumns = {
 	id: portfolioPhoto.id,
@@ -194,17 +194,7 @@ export async function addPhoto(
 				.where(eq(portfolioPhoto.itemId, itemId));
 			const [row] = await tx
 				.insert(portfolioPhoto)
-				.values({
-					itemId,
-					storageKey: stored.key,
-					thumbKey: stored.thumbKey,
-					contentType: stored.contentType,
-					bytes: stored.bytes,
-					width: stored.width,
-					height: stored.height,
-					altText: input.altText ?? '',
-					sortOrder: (last?.sortOrder ?? -1) + 1
-				})
+				.values({ itemId, ...photoRow(stored, input.altText, (last?.sortOrder ?? -1) + 1) })
 				.returning(photoColumns);
 			await audit.record(tx, {
 				actorId: actor.id,

@@ -37,6 +37,12 @@ export async function storeUpload<T>(file: Upload, save: (photo: StoredPhoto) =>
 	}
 }
 
+/** The columns every photo row shares, for a stored photo placed at `sortOrder`. */
+export function photoRow(stored: StoredPhoto, altText: string | undefined, sortOrder: number) {
+	const { key, thumbKey, contentType, bytes, width, height } = stored;
+	return { storageKey: key, thumbKey, contentType, bytes, width, height, altText: altText ?? '', sortOrder };
+}
+
 /** Removes stored objects of rows already deleted; a failure is logged, never undoes the delete. */
 export async function forgetObjects(rows: { storageKey: string; thumbKey: string | null }[]) {
 	const results = await Promise.allSettled(
