@@ -13,7 +13,8 @@ import {
 	root,
 	startDatabase,
 	startServer,
-	stopProcess
+	stopProcess,
+	uploadBodySizeLimit
 } from './lib/local';
 
 const dev = process.argv.includes('--dev');
@@ -31,7 +32,6 @@ const database = await startDatabase({
 	password: persistentSecret(dataDir, 'pg-password'),
 	database: 'tackline'
 });
-await migrateAndSeed(database.url, { seed: true });
 const standins = await startStandins(
 	{
 		smtp: Number(process.env.TACKLINE_SMTP_PORT ?? 2525),
@@ -41,6 +41,9 @@ const standins = await startStandins(
 	},
 	{ s3DataDir: join(dataDir, 's3') }
 );
+// The seed stores demo photos in the S3 stand-in, so it runs once the stand-ins are up.
+Object.assign(process.env, standins.env);
+await migrateAndSeed(database.url, { seed: true });
 if (!dev) await buildIfNeeded({ devTools });
 
 const origin = `http://localhost:${port}`;
@@ -52,7 +55,8 @@ const server = startServer(
 		AUTH_TRUST_HOST: 'true',
 		ORIGIN: origin,
 		PORT: String(port),
-		HOST: host
+		HOST: host,
+		BODY_SIZE_LIMIT: uploadBodySizeLimit
 	},
 	dev ? join(root, 'node_modules/.bin/vite') : 'node',
 	dev ? ['dev', '--host', host, '--port', String(port), '--strictPort'] : ['build']

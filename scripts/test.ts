@@ -24,6 +24,7 @@ import {
 	startDatabase,
 	startServer,
 	stopProcess,
+	uploadBodySizeLimit,
 	waitForHealth
 } from './lib/local';
 
@@ -105,9 +106,11 @@ async function main() {
 		throwaway: true
 	});
 	cleanups.push(() => database.stop());
-	await migrateAndSeed(database.url, { seed: true });
 	const standins = await startStandins({ smtp: await freePort(), mailApi: await freePort() });
 	cleanups.push(() => standins.stop());
+	// The seed stores demo photos in the S3 stand-in, shared by every test file.
+	Object.assign(process.env, standins.env);
+	await migrateAndSeed(database.url, { seed: true });
 
 	const env: Record<string, string> = {
 		...standins.env,
@@ -147,7 +150,8 @@ async function main() {
 		DATABASE_URL: browserDatabase,
 		ORIGIN: baseUrl,
 		PORT: String(port),
-		TACKLINE_BASE_URL: baseUrl
+		TACKLINE_BASE_URL: baseUrl,
+		BODY_SIZE_LIMIT: uploadBodySizeLimit
 	};
 	const server = startServer(browserEnv);
 	cleanups.unshift(() => stopProcess(server));

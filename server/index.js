@@ -7,8 +7,9 @@ import process from 'node:process';
 import { protectiveHeaders } from './protective-headers.js';
 import { loadPublicPages, servePublicPage } from './public-pages.js';
 
-// The largest body any request may carry. Each route reads with its own, smaller limit (forms 64 KB, JSON 32 KB).
-process.env.BODY_SIZE_LIMIT ??= '1M';
+// The largest body any request may carry: one 15 MB photo upload with its multipart framing. Each route
+// reads with its own limit (forms 64 KB, JSON 32 KB, photo uploads 16 MB), so the others stay small.
+process.env.BODY_SIZE_LIMIT ??= '16M';
 const { handler } = await import('./handler.js');
 const publicPages = loadPublicPages(new URL('./public-pages', import.meta.url).pathname);
 

@@ -23,8 +23,6 @@ type DemoCommission = Pick<
 	postedDaysAgo?: number;
 	/** Where it ended when it is no longer a draft or open. */
 	ended?: 'cancelled' | 'expired';
-	/** Reference photos the demo image generator makes for it (scripts/demo/images.ts). */
-	photos?: { count: number; motif: string };
 };
 
 /** How long a demo commission stays open, as COMMISSION_OPEN_DAYS defaults. */
@@ -45,8 +43,7 @@ const demoCommissionList: DemoCommission[] = [
 		budget: [12000, 18000],
 		neededInDays: 45,
 		handover: 'pickup',
-		postedDaysAgo: 3,
-		photos: { count: 2, motif: 'sand linen trousers, front and side' }
+		postedDaysAgo: 3
 	},
 	{
 		n: 2,
@@ -92,8 +89,7 @@ const demoCommissionList: DemoCommission[] = [
 		budget: [20000, 32000],
 		neededInDays: 60,
 		handover: 'delivery',
-		postedDaysAgo: 5,
-		photos: { count: 3, motif: 'teal shift dress, bateau neckline' }
+		postedDaysAgo: 5
 	},
 	{
 		n: 5,
@@ -123,8 +119,7 @@ const demoCommissionList: DemoCommission[] = [
 		budget: [9000, 14000],
 		neededInDays: 35,
 		handover: 'pickup',
-		postedDaysAgo: 6,
-		photos: { count: 1, motif: 'rust needlecord midi skirt' }
+		postedDaysAgo: 6
 	},
 	{
 		n: 7,
@@ -189,16 +184,6 @@ const demoCommissionList: DemoCommission[] = [
 	}
 ];
 
-/**
- * The hook for demo reference photos: which commissions get generated images, how many, of what. The
- * photo generator (scripts/demo/images.ts) makes and stores them and writes the `commission_photo` rows.
- */
-export function demoCommissionPhotoPlan() {
-	return demoCommissionList
-		.filter((c) => c.photos)
-		.map((c) => ({ commissionId: demoId('commission', c.n), title: c.title, ...c.photos! }));
-}
-
 /** What publishing writes beside each posted commission: the frozen measurements and the size band. */
 export function demoCommissionMeasurements(profiles: Profiles) {
 	return demoCommissionList
@@ -231,7 +216,7 @@ export function demoCommissionMeasurements(profiles: Profiles) {
 
 export function demoCommissions(now: Date): NewCommission[] {
 	return demoCommissionList.map((c) => {
-		const { n, customer, profile, district, budget, neededInDays, postedDaysAgo, ended, photos, ...rest } = c;
+		const { n, customer, profile, district, budget, neededInDays, postedDaysAgo, ended, ...rest } = c;
 		const place = districts[district];
 		const posted = postedDaysAgo !== undefined;
 		const publishedAt = posted ? daysFrom(now, -postedDaysAgo) : null;

@@ -13,6 +13,7 @@ import {
 	user
 } from '../../src/lib/server/db/schema';
 import { demoCommissionMeasurements, demoCommissions } from './commissions';
+import { seedDemoPhotos, storageConfigured } from './images';
 import { demoMeasurementProfiles } from './measurements';
 import { adminEmail, demoPassword, demoUsers } from './people';
 import { demoPlaces } from './places';
@@ -48,5 +49,13 @@ export async function seedDemo(db: Database): Promise<SeedResult> {
 			.onConflictDoNothing();
 		await tx.insert(quote).values(demoQuotes(now)).onConflictDoNothing();
 	});
+	// Photos go through the photos area into the bucket; without one (a bare `npm run db:seed`) there are none.
+	if (storageConfigured()) {
+		await seedDemoPhotos(
+			db,
+			demoCommissions(now).map((c) => ({ id: c.id!, garmentType: c.garmentType, status: c.status ?? 'draft' })),
+			demoTailorProfiles().map((t) => ({ userId: t.userId, specialties: t.specialties ?? [] }))
+		);
+	}
 	return 'seeded';
 }

@@ -105,6 +105,9 @@ export function runCommand(command: string, args: string[], env: Record<string, 
 	});
 }
 
+/** adapter-node's cap on any request body: one 15 MB photo upload with its multipart framing. */
+export const uploadBodySizeLimit = '16M';
+
 export function startServer(env: Record<string, string>, command = 'node', args = ['build']): ChildProcess {
 	return spawn(command, args, { cwd: root, stdio: 'inherit', env: { ...process.env, ...env } });
 }

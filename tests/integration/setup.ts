@@ -8,7 +8,7 @@
 import type { ChildProcess } from 'node:child_process';
 import { afterAll, expect } from 'vitest';
 import { copyDatabase, dropDatabase } from '../../scripts/lib/databases';
-import { freePort, startServer, stopProcess, waitForHealth } from '../../scripts/lib/local';
+import { freePort, startServer, stopProcess, uploadBodySizeLimit, waitForHealth } from '../../scripts/lib/local';
 import { startSearchStandin } from '../../docker/standins/search';
 import { setSearchStandin } from './search';
 
@@ -28,7 +28,13 @@ if (needsServer) {
 	const search = await startSearchStandin({ port: 0 });
 	setSearchStandin(search);
 	afterAll(() => search.stop());
-	const started = startServer({ DATABASE_URL: databaseUrl, PORT: String(port), ORIGIN: baseUrl, ...search.env });
+	const started = startServer({
+		DATABASE_URL: databaseUrl,
+		PORT: String(port),
+		ORIGIN: baseUrl,
+		BODY_SIZE_LIMIT: uploadBodySizeLimit,
+		...search.env
+	});
 	server = started;
 	await waitForHealth(baseUrl, 30_000).catch(async (error: unknown) => {
 		await stopProcess(started);

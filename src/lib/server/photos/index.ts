@@ -1,11 +1,21 @@
-/** Uploaded photos: checked and re-encoded (`processUpload`), stored privately, served by signed URL. */
+/**
+ * Uploaded photos: checked and re-encoded (`processUpload`), stored privately, served by signed URL or
+ * through `/photos/[id]/[variant]` after `openForViewer` has checked who is asking. Commission photos
+ * and portfolios are their own modules (`commissionPhotos`, `portfolio`).
+ */
 export {
 	PhotoRefused,
 	maxInputPixels,
 	maxUploadBytes,
 	processUpload,
 	refusalMessages,
+	refusalStatus,
 	type PhotoRefusalCode,
 	type ProcessedPhoto
 } from './process';
 export { defaultUrlSeconds, deletePhoto, readPhoto, signedUrl, storePhoto, type PhotoKeys } from './store';
+export { PhotoRuleBroken, type PhotoRuleCode } from './errors';
+export { openForViewer } from './serving';
+export type { Upload } from './stored';
+export * as commissionPhotos from './commission-photos';
+export * as portfolio from './portfolio';

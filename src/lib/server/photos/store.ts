@@ -72,9 +72,11 @@ export async function readPhoto(key: string): Promise<{ body: ReadableStream<Uin
 }
 
 /** Removes a photo and its thumbnail; removing one that is already gone is not an error. */
-export async function deletePhoto(keys: PhotoKeys): Promise<void> {
+export async function deletePhoto(keys: { key: string; thumbKey: string | null }): Promise<void> {
 	const { client, bucket } = storage();
 	await Promise.all(
-		[keys.key, keys.thumbKey].map((key) => client.send(new DeleteObjectCommand({ Bucket: bucket, Key: key })))
+		[keys.key, keys.thumbKey]
+			.filter((key) => key !== null)
+			.map((key) => client.send(new DeleteObjectCommand({ Bucket: bucket, Key: key })))
 	);
 }

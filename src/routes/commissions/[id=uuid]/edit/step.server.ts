@@ -4,6 +4,7 @@ import { nextStep, previousStep, stepHref, type CommissionStepId } from '$lib/co
 import { requireRole } from '$lib/server/auth/guard';
 import * as commissions from '$lib/server/commissions';
 import { keepValues, parseForm, readForm, type FieldErrors } from '$lib/server/forms';
+import { commissionPhotos } from '$lib/server/photos';
 
 type DraftChanges = Parameters<typeof commissions.updateDraft>[1]['changes'];
 
@@ -25,7 +26,8 @@ export async function loadStep(locals: App.Locals, id: string) {
 	const commission = await commissions.getForOwner(locals.db, { id, ownerId: user.id });
 	if (!commission || (commission.status !== 'draft' && commission.status !== 'open'))
 		error(404, { message: 'There is no such commission to edit.', code: 'not_found' });
-	return { commission, done: doneSteps(commission), isOpen: commission.status === 'open' };
+	const photoCount = await commissionPhotos.photoCount(locals.db, { commissionId: id });
+	return { commission, done: doneSteps(commission, photoCount), isOpen: commission.status === 'open' };
 }
 
 /** Where a saved step goes: on, back, to the list ("finish later"), or back to the page of an open commission. */
