@@ -1,4 +1,5 @@
 import { expect, test } from '@playwright/test';
+import { solid } from '../factories/images';
 import { signInWithPassword } from './helpers';
 
 // Signing in hashes a password; give a busy machine room.
@@ -26,9 +27,19 @@ for (const width of [390, 1280]) {
 			await page.getByRole('button', { name: 'Save and continue' }).click();
 			await page.waitForURL(/\/edit\/photos$/, { waitUntil: 'commit', timeout: 30_000 });
 
-			// The photo step is joined in separately; the step navigation reaches the next one.
-			const id = /commissions\/([0-9a-f-]{36})\//.exec(page.url())![1];
-			await page.goto(`/commissions/${id}/edit/measurements`);
+			await after(page.getByText('0 of 8')).toBeVisible();
+			const picker = page.getByLabel(/Drop photos here/);
+			await picker.setInputFiles([
+				{ name: 'swatch.png', mimeType: 'image/png', buffer: await solid(160, 100).png().toBuffer() },
+				{ name: 'pocket.jpg', mimeType: 'image/jpeg', buffer: await solid(100, 160).jpeg().toBuffer() }
+			]);
+			for (const name of ['swatch.png', 'pocket.jpg']) {
+				const bar = page.getByRole('progressbar', { name: `Uploading ${name}` });
+				await expect(bar).toBeVisible();
+				await expect(bar).toHaveAttribute('aria-valuenow', '100', { timeout: 30_000 });
+			}
+			await after(page.getByText('2 of 8')).toBeVisible();
+			await page.getByRole('link', { name: 'Next: measurements →' }).click();
 			await after(page.getByText('Has everything this garment needs.')).toBeVisible();
 			await page.getByRole('radio', { name: 'Me' }).check();
 			await page.getByRole('button', { name: 'Save and continue' }).click();
@@ -61,6 +72,8 @@ for (const width of [390, 1280]) {
 			await expect(page.getByText('Ferrin Hill')).toBeVisible();
 			await expect(page.getByText('Open for quotes', { exact: true })).toBeVisible();
 			await expect(page.getByRole('table')).toContainText('Waist');
+			await expect(page.locator('img[src^="/photos/"]')).toHaveCount(2);
+			await page.screenshot({ path: `test-results/commission-published-${width}.png`, fullPage: true });
 		});
 	});
 }

@@ -3,11 +3,15 @@
  * the owner, another customer, a tailor (onboarded and not), an admin and a suspended account. Each area's
  * rows live in `./authorization/<area>.ts`; add an area by importing its rows and adding one line below.
  */
-import { afterAll, beforeAll } from 'vitest';
+import { afterAll, beforeAll, vi } from 'vitest';
 import { castActors } from './authorization/actors';
 import { describeMatrix, type World } from './authorization/matrix';
+import { commissionRows } from './authorization/commissions';
 import { measurementProfileRows } from './authorization/measurement-profiles';
 import { testDb } from './db';
+
+// Photos are stored through the app's own storage service, which reads its settings from the environment.
+vi.mock('$env/dynamic/private', () => ({ env: process.env }));
 
 const { db, pool } = testDb();
 let world: World;
@@ -18,3 +22,4 @@ beforeAll(async () => {
 afterAll(() => pool.end());
 
 describeMatrix('measurement profiles', measurementProfileRows, () => world);
+describeMatrix('commissions and their photos', commissionRows, () => world);

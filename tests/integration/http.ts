@@ -52,6 +52,14 @@ export function newClient(address = `198.18.${randomInt(0, 255)}.${randomInt(1, 
 			});
 			remember(response);
 			return response;
+		},
+		/** One file as the multipart field `file`. */
+		async upload(path: string, bytes: Uint8Array, name = 'photo.png') {
+			const body = new FormData();
+			body.append('file', new Blob([new Uint8Array(bytes)]), name);
+			const response = await fetch(baseUrl + path, { method: 'POST', headers: headers(), body, redirect: 'manual' });
+			remember(response);
+			return response;
 		}
 	};
 }

@@ -10,7 +10,7 @@ import { customerApi, customerPage, type Row, type World } from './matrix';
 /** Odd values, so each of their spellings (mm, API cm and in, form cm and in) is found only where it leaks. */
 const privateValuesMm: Measurements = { hip_girth: 1013.73, waist_girth: 781.33, waist_to_hip: 213.37 };
 
-function spellings(valuesMm: Measurements) {
+export function spellings(valuesMm: Measurements) {
 	return Object.values(valuesMm).flatMap((mm) => [
 		String(mm),
 		String(toUnitValue(mm, 'cm')),
