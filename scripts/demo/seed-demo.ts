@@ -34,7 +34,7 @@ export async function seedDemo(db: Database): Promise<SeedResult> {
 	await db.transaction(async (tx) => {
 		await addLocalPlaces(tx, demoPlaces());
 		await tx.insert(user).values(demoUsers(passwordHash, now)).onConflictDoNothing();
-		await tx.insert(tailorProfile).values(demoTailorProfiles()).onConflictDoNothing();
+		await tx.insert(tailorProfile).values(demoTailorProfiles(now)).onConflictDoNothing();
 		await tx.insert(measurementProfile).values(Object.values(profiles)).onConflictDoNothing();
 		await tx.insert(commission).values(demoCommissions(now)).onConflictDoNothing();
 		const posted = demoCommissionMeasurements(profiles);
@@ -48,5 +48,7 @@ export async function seedDemo(db: Database): Promise<SeedResult> {
 			.onConflictDoNothing();
 		await tx.insert(quote).values(demoQuotes(now)).onConflictDoNothing();
 	});
+	// Hook: each demo workroom's portfolio photos (`seedPortfolio` from ./images, for every id of
+	// demoTailorIds() in ./tailors) are seeded here once the portfolio area's image generator is in.
 	return 'seeded';
 }
