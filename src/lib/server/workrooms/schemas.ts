@@ -153,7 +153,10 @@ export function ratesForm(specialties: GarmentId[]) {
 			...Object.fromEntries(specialties.map((id) => [`hours_${id}`, optionalText]))
 		})
 		.transform((fields, ctx) => {
-			const typed = (key: string) => String((fields as Record<string, unknown>)[key] ?? '').trim();
+			const typed = (key: string) => {
+				const value = (fields as Record<string, unknown>)[key];
+				return typeof value === 'string' ? value.trim() : '';
+			};
 			const code = typed('currency').toUpperCase();
 			const amount = parseAmount(typed('hourlyRate'), code);
 			if (!isCurrencyCode(code)) ctx.addIssue({ code: 'custom', path: ['currency'], message: 'Choose a currency.' });

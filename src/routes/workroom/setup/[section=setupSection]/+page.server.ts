@@ -17,7 +17,7 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 		workrooms.onboardingStatus(locals.db, { tailorId: tailor.id })
 	]);
 	return {
-		section: params.section as SetupSection,
+		section: params.section,
 		workroom,
 		onboarding,
 		currencies: params.section === 'rates' ? currencyChoices() : [],
@@ -25,14 +25,34 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 	};
 };
 
-/** The place picker's fields as a place of the list (typed names are matched without JavaScript). */
+/**
+ * The place picker's fields as a place of the list (a typed name is matched without JavaScript). The saved
+ * place comes back as its name only; sent back unchanged it stays as it is rather than being looked up again.
+ */
 async function readLocation(
 	db: App.Locals['db'],
-	form: FormData
-): Promise<{ ok: true; choice: workrooms.LocationChoice } | { ok: false; errors: FieldErrors }> {
+	form: FormData,
+	current: OwnWorkroom | null
+): Promise<{ ok: true; choice?: workrooms.LocationChoice } | { ok: false; errors: FieldErrors }> {
 	const fields = parseForm(placeFields, form);
 	if (!fields.ok)
-		return { ok: false, errors: { place: Object.values(fields.errors).flat().filter(Boolean) as string[] } };
+		return {
+			ok: false,
+			errors: {
+				place: Object.values(fields.errors)
+					.flat()
+					.filter((m) => m !== undefined)
+			}
+		};
+	const saved = current?.location;
+	if (
+		saved &&
+		!fields.data.place_id &&
+		fields.data.place_query === (saved.district ?? saved.town) &&
+		(!fields.data.place_country || fields.data.place_country === saved.country)
+	) {
+		return { ok: true };
+	}
 	const resolved = await resolveFormPlace(db, fields.data);
 	if (!resolved.ok) return { ok: false, errors: { place: [resolved.message] } };
 	const { id, lat, lng } = resolved.place;
@@ -50,11 +70,11 @@ async function parseSection(
 	switch (section) {
 		case 'workroom': {
 			const basics = parseForm(workrooms.basicsForm, form);
-			const location = await readLocation(db, form);
+			const location = await readLocation(db, form, current);
 			if (!basics.ok || !location.ok) {
 				return { ok: false, errors: { ...(basics.ok ? {} : basics.errors), ...(location.ok ? {} : location.errors) } };
 			}
-			return { ok: true, input: { ...basics.data, location: location.choice } };
+			return { ok: true, input: location.choice ? { ...basics.data, location: location.choice } : basics.data };
 		}
 		case 'about': {
 			const about = parseForm(workrooms.aboutForm, form);
@@ -75,7 +95,7 @@ export const actions: Actions = {
 	default: async (event) => {
 		const tailor = requireRole('tailor');
 		const { locals, params } = event;
-		const section = params.section as SetupSection;
+		const section = params.section;
 		const form = await readForm(event.request);
 		if (!form.ok) return fail(form.status, { values: form.values, errors: form.errors });
 		const values = keepValues(form.data, [...new Set(form.data.keys())]);
