@@ -1,5 +1,6 @@
 import type { NewTailorProfile } from '../../src/lib/server/db/schema';
-import { city, currency, districts, type DistrictKey } from './city';
+import { city, coarsen, currency, districts, type DistrictKey } from './city';
+import { demoCountry } from './places';
 import { personId } from './people';
 
 type Workroom = {
@@ -212,9 +213,8 @@ export function demoTailorProfiles(now: Date): NewTailorProfile[] {
 		userId: personId(email),
 		city,
 		district: districts[district].name,
-		countryCode: 'FR',
-		lat: districts[district].lat,
-		lng: districts[district].lng,
+		countryCode: demoCountry,
+		...coarsen(districts[district]),
 		leadTimes: Object.fromEntries(rest.specialties.map((id, i) => [id, leadDays[i]])),
 		rateCurrency: currency,
 		labourHours: Object.fromEntries(rest.specialties.map((id, i) => [id, hours[i]])),
