@@ -1,8 +1,8 @@
 import { expect, test, type Page } from '@playwright/test';
-import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { createDb } from '../../src/lib/server/db/client';
-import { portfolioItem, portfolioPhoto, user } from '../../src/lib/server/db/schema';
+import { user } from '../../src/lib/server/db/schema';
+import { createPortfolioPhoto } from '../factories';
 import { signUp, uniqueEmail } from './helpers';
 
 test.use({ extraHTTPHeaders: { 'x-forwarded-for': '198.19.0.71' } });
@@ -15,29 +15,14 @@ async function saveAndContinue(page: Page, next: RegExp) {
 }
 
 /**
- * A portfolio photo row for the tailor. The portfolio page and its upload API are built beside this
- * test; until they are merged the row is written straight to the database the server uses, so the
- * image itself is not fetched here.
+ * The portfolio page and its upload API are built beside this test; until they are merged the photo row
+ * is written straight to the database the server uses, so the image itself is not fetched here.
  */
 async function addPortfolioPhoto(email: string) {
 	const { db, pool } = createDb(process.env.DATABASE_URL!, { max: 1 });
 	try {
 		const [owner] = await db.select({ id: user.id }).from(user).where(eq(user.email, email));
-		const [item] = await db
-			.insert(portfolioItem)
-			.values({ tailorId: owner.id, caption: 'Herringbone wide-leg trousers', garmentType: 'wide-leg-trousers' })
-			.returning({ id: portfolioItem.id });
-		const key = `photos/${randomUUID().replaceAll('-', '')}`;
-		await db.insert(portfolioPhoto).values({
-			itemId: item.id,
-			storageKey: `${key}/full.webp`,
-			thumbKey: `${key}/thumb.webp`,
-			contentType: 'image/webp',
-			bytes: 1000,
-			width: 800,
-			height: 600,
-			altText: 'Brown herringbone trousers on a hanger'
-		});
+		await createPortfolioPhoto(db, { tailorId: owner.id, altText: 'Brown herringbone trousers on a hanger' });
 	} finally {
 		await pool.end();
 	}

@@ -2,13 +2,15 @@
  * Test data made directly in the test file's own database (see tests/integration/setup.ts): people of
  * any role, workrooms and commissions, each returning what a test needs to act on it.
  */
-import { randomInt } from 'node:crypto';
+import { randomInt, randomUUID } from 'node:crypto';
 import { hash } from '@node-rs/argon2';
 import type { Executor } from '../../src/lib/server/db/client';
 import {
 	commission,
 	commissionMeasurements,
 	commissionSizeBand,
+	portfolioItem,
+	portfolioPhoto,
 	tailorProfile,
 	user,
 	type CommissionStatus,
@@ -137,4 +139,24 @@ export async function createCommission(
 		]);
 	}
 	return { id: row.id, customerId, status, title };
+}
+
+/** A portfolio item with one photo row for a workroom, as the portfolio area stores it (no stored image). */
+export async function createPortfolioPhoto(db: Executor, { tailorId, altText }: { tailorId: string; altText: string }) {
+	const [item] = await db
+		.insert(portfolioItem)
+		.values({ tailorId, caption: 'Herringbone wide-leg trousers', garmentType: 'wide-leg-trousers' })
+		.returning({ id: portfolioItem.id });
+	const key = `photos/${randomUUID().replaceAll('-', '')}`;
+	await db.insert(portfolioPhoto).values({
+		itemId: item.id,
+		storageKey: `${key}/full.webp`,
+		thumbKey: `${key}/thumb.webp`,
+		contentType: 'image/webp',
+		bytes: 1000,
+		width: 800,
+		height: 600,
+		altText
+	});
+	return item.id;
 }

@@ -1,9 +1,8 @@
 import { eq } from 'drizzle-orm';
-import sharp from 'sharp';
 import { afterAll, describe, expect, it } from 'vitest';
-import { portfolioItem, portfolioPhoto, tailorProfile, user } from '../../src/lib/server/db/schema';
+import { tailorProfile, user } from '../../src/lib/server/db/schema';
 import * as workrooms from '../../src/lib/server/workrooms';
-import { createUser, type Person } from '../factories';
+import { createPortfolioPhoto, createUser, type Person } from '../factories';
 import { testDb } from './db';
 import { baseUrl, newClient, signIn, type Client } from './http';
 
@@ -55,29 +54,8 @@ async function signedIn(role: Person['role'], options: { suspended?: boolean } =
 }
 
 /** A portfolio photo row, as the portfolio area stores one (the image itself is not fetched here). */
-async function addPortfolioPhoto(tailorId: string) {
-	const [item] = await db
-		.insert(portfolioItem)
-		.values({ tailorId, caption: 'Wool crepe skirt, walking vent', garmentType: 'straight-skirt' })
-		.returning({ id: portfolioItem.id });
-	const { width, height } = await sharp({
-		create: { width: 640, height: 480, channels: 3, background: { r: 120, g: 80, b: 60 } }
-	})
-		.webp()
-		.toBuffer({ resolveWithObject: true })
-		.then((out) => out.info);
-	const key = `photos/${crypto.randomUUID().replaceAll('-', '')}`;
-	await db.insert(portfolioPhoto).values({
-		itemId: item.id,
-		storageKey: `${key}/full.webp`,
-		thumbKey: `${key}/thumb.webp`,
-		contentType: 'image/webp',
-		bytes: 1000,
-		width,
-		height,
-		altText: 'A charcoal straight skirt on a stand'
-	});
-	return item.id;
+function addPortfolioPhoto(tailorId: string) {
+	return createPortfolioPhoto(db, { tailorId, altText: 'A charcoal straight skirt on a stand' });
 }
 
 async function onboardedAt(tailorId: string) {
