@@ -1,11 +1,12 @@
 import { z } from 'zod';
 import { garmentIds } from '$lib/drafting';
+import { text } from '$lib/server/forms';
 import * as workrooms from '$lib/server/workrooms';
 import type { PageServerLoad } from './$types';
 
 // A filter that does not parse is dropped rather than refused: the directory still shows.
 const filters = z.object({
-	town: z.string().trim().min(1).max(120).optional().catch(undefined),
+	town: text({ min: 1, max: 120 }).optional().catch(undefined),
 	garment: z.enum(garmentIds).optional().catch(undefined),
 	after: z
 		.string()

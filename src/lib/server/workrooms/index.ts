@@ -222,6 +222,8 @@ function reviewsOf(row: { ratingCount: number; ratingAverageHundredths: number }
 
 /** The public view of an onboarded workroom by slug or tailor id: its town, never its coordinates. */
 export async function getPublic(db: Executor, { slugOrId }: { slugOrId: string }): Promise<PublicWorkroom | null> {
+	// Slugs are lower-case words and hyphens; anything else names no workroom (and never reaches SQL).
+	if (!uuidPattern.test(slugOrId) && !/^[a-z0-9-]{1,80}$/.test(slugOrId)) return null;
 	const key = uuidPattern.test(slugOrId) ? eq(tailorProfile.userId, slugOrId) : eq(tailorProfile.slug, slugOrId);
 	const [row] = await db
 		.select({
