@@ -35,7 +35,7 @@ export async function seedDemo(db: Database): Promise<SeedResult> {
 	await db.transaction(async (tx) => {
 		await addLocalPlaces(tx, demoPlaces());
 		await tx.insert(user).values(demoUsers(passwordHash, now)).onConflictDoNothing();
-		await tx.insert(tailorProfile).values(demoTailorProfiles()).onConflictDoNothing();
+		await tx.insert(tailorProfile).values(demoTailorProfiles(now)).onConflictDoNothing();
 		await tx.insert(measurementProfile).values(Object.values(profiles)).onConflictDoNothing();
 		await tx.insert(commission).values(demoCommissions(now)).onConflictDoNothing();
 		const posted = demoCommissionMeasurements(profiles);
@@ -54,7 +54,7 @@ export async function seedDemo(db: Database): Promise<SeedResult> {
 		await seedDemoPhotos(
 			db,
 			demoCommissions(now).map((c) => ({ id: c.id!, garmentType: c.garmentType, status: c.status ?? 'draft' })),
-			demoTailorProfiles().map((t) => ({ userId: t.userId, specialties: t.specialties ?? [] }))
+			demoTailorProfiles(now).map((t) => ({ userId: t.userId, specialties: t.specialties ?? [] }))
 		);
 	}
 	return 'seeded';

@@ -1,5 +1,6 @@
 import type { NewTailorProfile } from '../../src/lib/server/db/schema';
-import { city, districts, type DistrictKey } from './city';
+import { city, coarsen, currency, districts, type DistrictKey } from './city';
+import { demoCountry } from './places';
 import { personId } from './people';
 
 type Workroom = {
@@ -7,14 +8,18 @@ type Workroom = {
 	shopName: string;
 	slug: string;
 	district: DistrictKey;
-	lat: number;
-	lng: number;
 	specialties: string[];
 	bio: string;
 	serviceRadiusKm: number;
 	leadTimeDays: number;
 	capacity: number;
 	acceptingWork?: boolean;
+	/** Euro cents per hour, and the mark-up on fabric the workroom buys. */
+	hourlyRateMinor: number;
+	fabricMarkupPercent: number;
+	/** Per specialty: typical lead time in days and labour hours, in the order of `specialties`. */
+	leadDays: number[];
+	hours: number[];
 };
 
 const workrooms: Workroom[] = [
@@ -23,130 +28,150 @@ const workrooms: Workroom[] = [
 		shopName: 'Obi Cut & Stitch',
 		slug: 'obi-cut-and-stitch',
 		district: 'oldQuay',
-		lat: 46.8519,
-		lng: 3.2081,
 		specialties: ['wide-leg-trousers', 'straight-skirt', 'shift-dress'],
-		bio: 'A two-person workroom above the chandlery on Tiller Street. Marguerite trained on trousers and now cuts for everyone: wide legs that hang straight, skirts that sit level, and lined shift dresses with a clean finish inside. Fittings at the workroom, tea included.',
+		bio: 'A two-person workroom by the old harbour. Marguerite trained on trousers and now cuts for everyone: wide legs that hang straight, skirts that sit level, and lined shift dresses with a clean finish inside. Fittings at the workroom, tea included.',
 		serviceRadiusKm: 12,
 		leadTimeDays: 14,
-		capacity: 4
+		capacity: 4,
+		hourlyRateMinor: 3600,
+		fabricMarkupPercent: 15,
+		leadDays: [14, 10, 18],
+		hours: [8, 5, 7.5]
 	},
 	{
 		email: 'tobiah.marsh@tackline.test',
 		shopName: 'Marsh Lane Tailoring',
 		slug: 'marsh-lane-tailoring',
 		district: 'loomside',
-		lat: 46.8592,
-		lng: 3.2214,
 		specialties: ['wide-leg-trousers', 'tunic'],
 		bio: 'Tobiah keeps a shelf of washed linens and cottons for customers who would rather not shop for fabric. Trousers and tunics made to last, with seams finished so they can be let out later.',
 		serviceRadiusKm: 8,
 		leadTimeDays: 21,
-		capacity: 3
+		capacity: 3,
+		hourlyRateMinor: 3200,
+		fabricMarkupPercent: 10,
+		leadDays: [21, 14],
+		hours: [9, 3.5]
 	},
 	{
 		email: 'sunniva.crale@tackline.test',
 		shopName: 'Crale Dressmaking',
 		slug: 'crale-dressmaking',
 		district: 'saltmarket',
-		lat: 46.8471,
-		lng: 3.2027,
 		specialties: ['shift-dress', 'a-line-skirt'],
-		bio: 'Occasion dresses and everyday skirts from a ground-floor room on Brinewater Row. Every dress is tried first in calico, so the first fitting shows what the real cloth will do.',
+		bio: 'Occasion dresses and everyday skirts from a ground-floor room near the market. Every dress is tried first in calico, so the first fitting shows what the real cloth will do.',
 		serviceRadiusKm: 10,
 		leadTimeDays: 18,
-		capacity: 3
+		capacity: 3,
+		hourlyRateMinor: 3800,
+		fabricMarkupPercent: 20,
+		leadDays: [18, 12],
+		hours: [8, 4]
 	},
 	{
 		email: 'reuben.frost@tackline.test',
 		shopName: 'Frost Bespoke Room',
 		slug: 'frost-bespoke-room',
 		district: 'brightwater',
-		lat: 46.8626,
-		lng: 3.1949,
 		specialties: ['wide-leg-trousers', 'straight-skirt'],
 		bio: 'Slow, careful work in wool and linen. Two fittings as standard and pressing done by hand. Reuben takes on only a few orders at a time and tells you honestly when he is full.',
 		serviceRadiusKm: 15,
 		leadTimeDays: 28,
-		capacity: 2
+		capacity: 2,
+		hourlyRateMinor: 4500,
+		fabricMarkupPercent: 25,
+		leadDays: [28, 21],
+		hours: [10, 6]
 	},
 	{
 		email: 'hettie.pellow@tackline.test',
 		shopName: 'Pellow & Daughter',
 		slug: 'pellow-and-daughter',
 		district: 'ferrinHill',
-		lat: 46.8392,
-		lng: 3.2251,
 		specialties: ['a-line-skirt', 'cropped-top', 'tunic'],
-		bio: 'A mother-and-daughter workroom at the top of Lantern Steps. Quick turnaround on skirts and tops, pockets in everything, and a soft spot for corduroy.',
+		bio: 'A mother-and-daughter workroom up on the hill. Quick turnaround on skirts and tops, pockets in everything, and a soft spot for corduroy.',
 		serviceRadiusKm: 10,
 		leadTimeDays: 10,
-		capacity: 5
+		capacity: 5,
+		hourlyRateMinor: 2800,
+		fabricMarkupPercent: 10,
+		leadDays: [10, 8, 10],
+		hours: [4, 4.5, 3]
 	},
 	{
 		email: 'caius.brennagh@tackline.test',
 		shopName: 'The Selvedge Room',
 		slug: 'the-selvedge-room',
 		district: 'theSallows',
-		lat: 46.8707,
-		lng: 3.2305,
 		specialties: ['tunic', 'shift-dress'],
 		bio: 'Natural fibres and customer-supplied cloth, cut to waste as little as possible. Tell Caius how much fabric you have and he will tell you what it can become.',
 		serviceRadiusKm: 12,
 		leadTimeDays: 21,
-		capacity: 3
+		capacity: 3,
+		hourlyRateMinor: 3000,
+		fabricMarkupPercent: 0,
+		leadDays: [21, 25],
+		hours: [3.5, 7]
 	},
 	{
 		email: 'odalys.quill@tackline.test',
 		shopName: 'Quill Atelier',
 		slug: 'quill-atelier',
 		district: 'cobbleRow',
-		lat: 46.8556,
-		lng: 3.198,
 		specialties: ['cropped-top', 'straight-skirt'],
 		bio: 'Small, precise pieces: cropped tops with clean facings and straight skirts with a proper walking vent. Evening appointments for people who work during the day.',
 		serviceRadiusKm: 8,
 		leadTimeDays: 14,
-		capacity: 3
+		capacity: 3,
+		hourlyRateMinor: 3900,
+		fabricMarkupPercent: 15,
+		leadDays: [14, 12],
+		hours: [4.5, 5.5]
 	},
 	{
 		email: 'benedek.harrow@tackline.test',
 		shopName: 'Harrow Makes & Mends',
 		slug: 'harrow-makes-and-mends',
 		district: 'northmere',
-		lat: 46.8801,
-		lng: 3.2098,
 		specialties: ['wide-leg-trousers', 'a-line-skirt'],
 		bio: 'Twenty years of alterations taught Benedek where shop-bought trousers go wrong. Now he makes them from scratch, with generous seam allowances for letting out later.',
 		serviceRadiusKm: 20,
 		leadTimeDays: 12,
-		capacity: 4
+		capacity: 4,
+		hourlyRateMinor: 3100,
+		fabricMarkupPercent: 10,
+		leadDays: [12, 10],
+		hours: [7.5, 4]
 	},
 	{
 		email: 'yusra.tamblin@tackline.test',
 		shopName: 'Tamblin Stitchworks',
 		slug: 'tamblin-stitchworks',
 		district: 'kilnfield',
-		lat: 46.8331,
-		lng: 3.1906,
 		specialties: ['tunic', 'cropped-top', 'wide-leg-trousers'],
 		bio: 'Easy-wearing tunics and wide trousers, cut with room to move. Yusra is happy to work from a favourite garment you already own and want copied.',
 		serviceRadiusKm: 10,
 		leadTimeDays: 14,
-		capacity: 3
+		capacity: 3,
+		hourlyRateMinor: 2900,
+		fabricMarkupPercent: 12,
+		leadDays: [14, 12, 16],
+		hours: [3, 4, 8]
 	},
 	{
 		email: 'petronella.vance@tackline.test',
 		shopName: 'Vance Pleat House',
 		slug: 'vance-pleat-house',
 		district: 'wrenwick',
-		lat: 46.8456,
-		lng: 3.2427,
 		specialties: ['a-line-skirt', 'straight-skirt'],
 		bio: 'Skirts and only skirts: knife pleats, box pleats, godets and plain A-lines. Finishing a run of choir skirts at the moment, so not taking new work this month.',
 		serviceRadiusKm: 12,
 		leadTimeDays: 21,
 		capacity: 2,
+		hourlyRateMinor: 3400,
+		fabricMarkupPercent: 15,
+		leadDays: [21, 18],
+		hours: [5, 5.5],
 		acceptingWork: false
 	},
 	{
@@ -154,34 +179,50 @@ const workrooms: Workroom[] = [
 		shopName: 'Moorcroft Workroom',
 		slug: 'moorcroft-workroom',
 		district: 'loomside',
-		lat: 46.8579,
-		lng: 3.219,
 		specialties: ['shift-dress', 'cropped-top'],
 		bio: 'Ilse drafts every pattern from your own measurements and keeps it on file, so your second dress comes together faster than the first.',
 		serviceRadiusKm: 8,
 		leadTimeDays: 21,
-		capacity: 2
+		capacity: 2,
+		hourlyRateMinor: 3700,
+		fabricMarkupPercent: 20,
+		leadDays: [21, 14],
+		hours: [7, 4.5]
 	},
 	{
 		email: 'gideon.achterberg@tackline.test',
 		shopName: 'Bobbin Street Tailors',
 		slug: 'bobbin-street-tailors',
 		district: 'saltmarket',
-		lat: 46.8459,
-		lng: 3.2043,
 		specialties: ['straight-skirt', 'wide-leg-trousers', 'tunic'],
 		bio: 'The largest workroom in Saltmarket: three cutters and two machinists, good with deadlines. Ask about the fabric library before you buy cloth elsewhere.',
 		serviceRadiusKm: 15,
 		leadTimeDays: 14,
-		capacity: 6
+		capacity: 6,
+		hourlyRateMinor: 3300,
+		fabricMarkupPercent: 18,
+		leadDays: [14, 14, 10],
+		hours: [5, 8, 3]
 	}
 ];
 
-export function demoTailorProfiles(): NewTailorProfile[] {
-	return workrooms.map(({ email, district, ...rest }) => ({
+/** Every demo workroom has finished onboarding: rates, lead times and a portfolio (see `seedDemo`). */
+export function demoTailorProfiles(now: Date): NewTailorProfile[] {
+	return workrooms.map(({ email, district, leadDays, hours, ...rest }) => ({
 		...rest,
 		userId: personId(email),
 		city,
-		district: districts[district].name
+		district: districts[district].name,
+		countryCode: demoCountry,
+		...coarsen(districts[district]),
+		leadTimes: Object.fromEntries(rest.specialties.map((id, i) => [id, leadDays[i]])),
+		rateCurrency: currency,
+		labourHours: Object.fromEntries(rest.specialties.map((id, i) => [id, hours[i]])),
+		onboardedAt: now
 	}));
+}
+
+/** The demo tailors' user ids, for seeding their portfolios. */
+export function demoTailorIds(): string[] {
+	return workrooms.map((w) => personId(w.email));
 }

@@ -2,7 +2,7 @@
  * Test data made directly in the test file's own database (see tests/integration/setup.ts): people of
  * any role, workrooms and commissions, each returning what a test needs to act on it.
  */
-import { randomInt } from 'node:crypto';
+import { randomInt, randomUUID } from 'node:crypto';
 import { hash } from '@node-rs/argon2';
 import type { Executor } from '../../src/lib/server/db/client';
 import {
@@ -10,6 +10,8 @@ import {
 	commissionMeasurements,
 	commissionSizeBand,
 	measurementProfile,
+	portfolioItem,
+	portfolioPhoto,
 	tailorProfile,
 	user,
 	type CommissionStatus,
@@ -158,4 +160,24 @@ export async function createMeasurementProfile(
 		.values({ valuesMm: { waist_girth: 740, hip_girth: 1000, waist_to_hip: 205 }, takenBy: 'self', ...options, label })
 		.returning({ id: measurementProfile.id });
 	return { id: row.id, label };
+}
+
+/** A portfolio item with one photo row for a workroom, as the portfolio area stores it (no stored image). */
+export async function createPortfolioPhoto(db: Executor, { tailorId, altText }: { tailorId: string; altText: string }) {
+	const [item] = await db
+		.insert(portfolioItem)
+		.values({ tailorId, caption: 'Herringbone wide-leg trousers', garmentType: 'wide-leg-trousers' })
+		.returning({ id: portfolioItem.id });
+	const key = `photos/${randomUUID().replaceAll('-', '')}`;
+	await db.insert(portfolioPhoto).values({
+		itemId: item.id,
+		storageKey: `${key}/full.webp`,
+		thumbKey: `${key}/thumb.webp`,
+		contentType: 'image/webp',
+		bytes: 1000,
+		width: 800,
+		height: 600,
+		altText
+	});
+	return item.id;
 }

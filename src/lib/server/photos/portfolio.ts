@@ -313,3 +313,20 @@ export async function viewableKeys(db: Executor, input: { photoId: string }) {
 		.where(eq(portfolioPhoto.id, input.photoId));
 	return photo ?? null;
 }
+
+/** The first photo of each workroom's portfolio, for directory cards. */
+export async function coverPhotoIds(db: Executor, tailorIds: string[]): Promise<Map<string, string>> {
+	if (tailorIds.length === 0) return new Map();
+	const rows = await db
+		.selectDistinctOn([portfolioItem.tailorId], { tailorId: portfolioItem.tailorId, photoId: portfolioPhoto.id })
+		.from(portfolioPhoto)
+		.innerJoin(portfolioItem, eq(portfolioItem.id, portfolioPhoto.itemId))
+		.where(inArray(portfolioItem.tailorId, tailorIds))
+		.orderBy(
+			portfolioItem.tailorId,
+			asc(portfolioItem.sortOrder),
+			asc(portfolioPhoto.sortOrder),
+			asc(portfolioPhoto.createdAt)
+		);
+	return new Map(rows.map((row) => [row.tailorId, row.photoId]));
+}

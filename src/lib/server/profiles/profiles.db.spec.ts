@@ -1,9 +1,9 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { createUser } from '../../../../tests/factories';
-import { testDb } from '../../../../tests/integration/db';
+import { createDb } from '../db/client';
 import * as profiles from './index';
 
-const { db, pool } = testDb();
+const { db, pool } = createDb(process.env.DATABASE_URL!, { max: 2 });
 afterAll(() => pool.end());
 
 const fields = (overrides: Partial<profiles.ProfileFields> = {}): profiles.ProfileFields => ({

@@ -4,6 +4,7 @@ import { garmentIds, garments } from '$lib/drafting';
 import { requireRole } from '$lib/server/auth/guard';
 import { text } from '$lib/server/forms';
 import { portfolio } from '$lib/server/photos';
+import * as workrooms from '$lib/server/workrooms';
 import {
 	addEach,
 	altTextForm,
@@ -25,7 +26,10 @@ const offset = z.enum(['-1', '1']).transform(Number);
 export const load: PageServerLoad = async ({ locals }) => {
 	const actor = requireRole('tailor');
 	const items = await portfolio.listItems(locals.db, { tailorId: actor.id });
+	// Runs again after every action here: the first photo completes onboarding, removing the last undoes it.
+	const onboarding = await workrooms.onboardingStatus(locals.db, { tailorId: actor.id });
 	return {
+		onboarding,
 		items,
 		photoCount: items.reduce((sum, item) => sum + item.photos.length, 0),
 		limit: photoLimits.portfolio,

@@ -1,6 +1,7 @@
 import { requireRole } from '$lib/server/auth/guard';
 import { parseJsonBody } from '$lib/server/http/respond';
 import { portfolio } from '$lib/server/photos';
+import * as workrooms from '$lib/server/workrooms';
 import { answer, portfolioItemBody } from '$lib/server/photos/api';
 import type { RequestHandler } from './$types';
 
@@ -15,5 +16,7 @@ export const PATCH: RequestHandler = async ({ params, locals, request }) => {
 /** Removes the item with its photos → 204. */
 export const DELETE: RequestHandler = async ({ params, locals }) => {
 	const actor = requireRole('tailor');
-	return answer(() => portfolio.removeItem(locals.db, { actor, itemId: params.itemId }), 204);
+	const response = await answer(() => portfolio.removeItem(locals.db, { actor, itemId: params.itemId }), 204);
+	await workrooms.onboardingStatus(locals.db, { tailorId: actor.id });
+	return response;
 };

@@ -1,6 +1,7 @@
 import { requireRole } from '$lib/server/auth/guard';
 import { parseJsonBody } from '$lib/server/http/respond';
 import { portfolio } from '$lib/server/photos';
+import * as workrooms from '$lib/server/workrooms';
 import { answer, orderBody, readUpload } from '$lib/server/photos/api';
 import type { RequestHandler } from './$types';
 
@@ -9,10 +10,12 @@ export const POST: RequestHandler = async ({ params, locals, request }) => {
 	const actor = requireRole('tailor');
 	const upload = await readUpload(request);
 	if (!upload.ok) return upload.response;
-	return answer(
+	const response = await answer(
 		() => portfolio.addPhoto(locals.db, { actor, itemId: params.itemId, file: upload.file, altText: upload.altText }),
 		201
 	);
+	await workrooms.onboardingStatus(locals.db, { tailorId: actor.id });
+	return response;
 };
 
 /** `{ order: [photoId, …] }` naming every photo of the item once → 200 the item. */

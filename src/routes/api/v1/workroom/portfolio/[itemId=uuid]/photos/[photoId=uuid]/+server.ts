@@ -1,6 +1,7 @@
 import { requireRole } from '$lib/server/auth/guard';
 import { parseJsonBody } from '$lib/server/http/respond';
 import { portfolio } from '$lib/server/photos';
+import * as workrooms from '$lib/server/workrooms';
 import { altTextBody, answer } from '$lib/server/photos/api';
 import type { RequestHandler } from './$types';
 
@@ -16,5 +17,7 @@ export const PATCH: RequestHandler = async ({ params, locals, request }) => {
 export const DELETE: RequestHandler = async ({ params, locals }) => {
 	const actor = requireRole('tailor');
 	const { itemId, photoId } = params;
-	return answer(() => portfolio.removePhoto(locals.db, { actor, itemId, photoId }), 204);
+	const response = await answer(() => portfolio.removePhoto(locals.db, { actor, itemId, photoId }), 204);
+	await workrooms.onboardingStatus(locals.db, { tailorId: actor.id });
+	return response;
 };
