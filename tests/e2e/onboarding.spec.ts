@@ -53,12 +53,16 @@ for (const width of [390, 1280]) {
 
 		await page.getByRole('checkbox', { name: 'Straight skirt' }).check();
 		await page.getByRole('checkbox', { name: 'Wide-leg high-waisted trousers' }).check();
-		await page.getByLabel('Typical lead time (days) for Straight skirt').fill('10');
+		await page.getByRole('spinbutton', { name: 'Typical lead time (days) for Straight skirt' }).fill('10');
 		await saveAndContinue(page, /\/workroom\/setup\/garments$/);
 		await expect(page.getByText('Give a typical lead time in days.')).toBeVisible();
 		await expect(page.getByRole('checkbox', { name: 'Straight skirt' })).toBeChecked();
-		await expect(page.getByLabel('Typical lead time (days) for Straight skirt')).toHaveValue('10');
-		await page.getByLabel('Typical lead time (days) for Wide-leg high-waisted trousers').fill('16');
+		await expect(page.getByRole('spinbutton', { name: 'Typical lead time (days) for Straight skirt' })).toHaveValue(
+			'10'
+		);
+		await page
+			.getByRole('spinbutton', { name: 'Typical lead time (days) for Wide-leg high-waisted trousers' })
+			.fill('16');
 		await saveAndContinue(page, /\/workroom\/setup\/rates$/);
 
 		await page.getByLabel('Hourly rate for your labour').fill('32.50');
