@@ -8,6 +8,7 @@ import { castActors } from './authorization/actors';
 import { describeMatrix, type World } from './authorization/matrix';
 import { commissionRows } from './authorization/commissions';
 import { measurementProfileRows } from './authorization/measurement-profiles';
+import { workroomRows } from './authorization/workrooms';
 import { testDb } from './db';
 
 // Photos are stored through the app's own storage service, which reads its settings from the environment.
@@ -23,3 +24,4 @@ afterAll(() => pool.end());
 
 describeMatrix('measurement profiles', measurementProfileRows, () => world);
 describeMatrix('commissions and their photos', commissionRows, () => world);
+describeMatrix('workrooms', workroomRows, () => world);
