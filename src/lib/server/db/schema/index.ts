@@ -10,3 +10,4 @@ export * from './ledger';
 export * from './reviews';
 export * from './audit';
 export * from './places';
+export * from './search';

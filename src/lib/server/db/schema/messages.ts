@@ -38,9 +38,16 @@ export const message = pgTable(
 		authorId: uuid('author_id').references(() => user.id, { onDelete: 'set null' }),
 		body: text('body').notNull(),
 		readAt: instant('read_at'),
+		/** When the recipient was e-mailed about it while it sat unread (batched). */
+		notifiedAt: instant('notified_at'),
 		createdAt: createdAt()
 	},
-	(t) => [index('message_thread_created_idx').on(t.threadId, t.createdAt)]
+	(t) => [
+		index('message_thread_created_idx').on(t.threadId, t.createdAt, t.id),
+		index('message_unread_unnotified_idx')
+			.on(t.createdAt)
+			.where(sql`${t.readAt} is null and ${t.notifiedAt} is null`)
+	]
 );
 export type Message = typeof message.$inferSelect;
 export type NewMessage = typeof message.$inferInsert;
@@ -56,6 +63,11 @@ export const messageAttachment = pgTable(
 		fileName: text('file_name').notNull(),
 		contentType: text('content_type').notNull(),
 		bytes: integer('bytes').notNull(),
+		width: integer('width'),
+		height: integer('height'),
+		/** The 480 px re-encoded copy (photos go through the same pipeline as commission photos). */
+		thumbKey: text('thumb_key').unique(),
+		altText: text('alt_text').notNull().default(''),
 		createdAt: createdAt()
 	},
 	(t) => [

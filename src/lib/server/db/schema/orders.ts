@@ -41,6 +41,8 @@ export const order = pgTable(
 		priceMinor: integer('price_minor').notNull(),
 		platformFeeMinor: integer('platform_fee_minor').notNull(),
 		tailorPayoutMinor: integer('tailor_payout_minor').notNull(),
+		/** The platform fee rate in force at acceptance, in basis points (10 % is 1000). */
+		platformFeeBasisPoints: integer('platform_fee_basis_points').notNull().default(1000),
 		currency: char('currency', { length: 3 }).notNull(),
 		/** The delivery date agreed in the quote. */
 		dueDate: date('due_date', { mode: 'string' }).notNull(),

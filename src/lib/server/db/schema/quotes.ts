@@ -38,6 +38,8 @@ export const quote = pgTable(
 		status: quoteStatus('status').notNull().default('sent'),
 		/** When it left `sent`: accepted, declined, withdrawn or lapsed. */
 		decidedAt: instant('decided_at'),
+		/** The customer's optional reason, or why Tackline declined it (another quote was accepted). */
+		declineReason: text('decline_reason').notNull().default(''),
 		createdAt: createdAt(),
 		updatedAt: updatedAt()
 	},
@@ -49,6 +51,9 @@ export const quote = pgTable(
 			.where(sql`${t.status} in ('sent', 'accepted')`),
 		index('quote_commission_status_idx').on(t.commissionId, t.status),
 		index('quote_tailor_status_idx').on(t.tailorId, t.status, t.createdAt),
+		index('quote_sent_valid_until_idx')
+			.on(t.validUntil)
+			.where(sql`${t.status} = 'sent'`),
 		check('quote_currency_iso', sql`${t.currency} ~ '^[A-Z]{3}$'`),
 		check('quote_price_positive', sql`${t.priceMinor} > 0`),
 		check('quote_fittings_nonnegative', sql`${t.fittingsIncluded} >= 0`)
