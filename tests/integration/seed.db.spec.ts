@@ -34,6 +34,23 @@ describe('demo seed', () => {
 		expect(await demoCounts()).toEqual(before);
 	});
 
+	it('fills the gaps an older seed left in a workroom and keeps what was edited since', async () => {
+		const [demoTailor] = await db.select({ id: user.id }).from(user).where(eq(user.email, 'tailor@tackline.test'));
+		await db
+			.update(tailorProfile)
+			.set({ onboardedAt: null, rateCurrency: null, leadTimes: {}, labourHours: {}, hourlyRateMinor: 9900 })
+			.where(eq(tailorProfile.userId, demoTailor.id));
+
+		expect(await seedDemo(db)).toBe('already-seeded');
+
+		const [after] = await db.select().from(tailorProfile).where(eq(tailorProfile.userId, demoTailor.id));
+		expect(after.onboardedAt).not.toBeNull();
+		expect(after.rateCurrency).toMatch(/^[A-Z]{3}$/);
+		expect(Object.keys(after.leadTimes).length).toBeGreaterThan(0);
+		expect(Object.keys(after.labourHours).length).toBeGreaterThan(0);
+		expect(after.hourlyRateMinor).toBe(9900);
+	});
+
 	it('gives every demo measurement profile values the measurement checks accept', async () => {
 		const profiles = await db
 			.select({ label: measurementProfile.label, valuesMm: measurementProfile.valuesMm })
