@@ -4,8 +4,11 @@ import { linkIn, subjects, waitForMail } from './inbox';
 
 export const baseUrl = process.env.TACKLINE_BASE_URL ?? 'http://localhost:3000';
 
-/** Each client has its own documentation-range address, so per-address limits do not leak between tests. */
-export function newClient(address = `198.18.${randomInt(0, 255)}.${randomInt(1, 255)}`) {
+/**
+ * Each client has its own documentation-range address, so per-address limits do not leak between tests.
+ * `base` points it at another server (a second app process on the same database).
+ */
+export function newClient(address = `198.18.${randomInt(0, 255)}.${randomInt(1, 255)}`, base = baseUrl) {
 	const jar = new Map<string, string>();
 
 	function remember(response: Response) {
@@ -26,14 +29,15 @@ export function newClient(address = `198.18.${randomInt(0, 255)}.${randomInt(1, 
 
 	return {
 		address,
+		base,
 		jar,
 		async get(path: string) {
-			const response = await fetch(baseUrl + path, { headers: headers(), redirect: 'manual' });
+			const response = await fetch(base + path, { headers: headers(), redirect: 'manual' });
 			remember(response);
 			return response;
 		},
 		async post(path: string, fields: Record<string, string> = {}) {
-			const response = await fetch(baseUrl + path, {
+			const response = await fetch(base + path, {
 				method: 'POST',
 				headers: headers({ 'content-type': 'application/x-www-form-urlencoded', accept: 'text/html' }),
 				body: new URLSearchParams(fields),
@@ -44,7 +48,7 @@ export function newClient(address = `198.18.${randomInt(0, 255)}.${randomInt(1, 
 		},
 		/** A JSON API call; `body` is sent as JSON when given. */
 		async json(method: string, path: string, body?: unknown) {
-			const response = await fetch(baseUrl + path, {
+			const response = await fetch(base + path, {
 				method,
 				headers: headers(body === undefined ? {} : { 'content-type': 'application/json' }),
 				body: body === undefined ? undefined : JSON.stringify(body),
@@ -57,7 +61,7 @@ export function newClient(address = `198.18.${randomInt(0, 255)}.${randomInt(1, 
 		async upload(path: string, bytes: Uint8Array, name = 'photo.png') {
 			const body = new FormData();
 			body.append('file', new Blob([new Uint8Array(bytes)]), name);
-			const response = await fetch(baseUrl + path, { method: 'POST', headers: headers(), body, redirect: 'manual' });
+			const response = await fetch(base + path, { method: 'POST', headers: headers(), body, redirect: 'manual' });
 			remember(response);
 			return response;
 		}

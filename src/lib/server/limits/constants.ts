@@ -6,6 +6,8 @@ export const SIGN_IN_LINK_LIFETIME_SECONDS = SIGN_IN_LINK_LIFETIME_MINUTES * 60;
 
 export type LimitRule = { points: number; duration: number };
 
+export type Gate = { allowed: true } | { allowed: false; retryAfterSeconds: number };
+
 const fifteenMinutes = 15 * 60;
 const oneHour = 60 * 60;
 
@@ -24,3 +26,5 @@ export const PASSWORD_CHANGE_PER_ADDRESS: LimitRule = { points: 20, duration: fi
 
 /** The public JSON API: generous, it only stops floods. */
 export const PUBLIC_API_PER_ADDRESS: LimitRule = { points: 600, duration: 60 };
+/** Points of the public API limit a process takes from the shared counter at once (see `leasedLimit`). */
+export const PUBLIC_API_LEASE = 10;

@@ -1,11 +1,10 @@
 import { RateLimiterRes } from 'rate-limiter-flexible';
 import { rateLimiter } from '../services/rate-limiter';
 import * as rules from './constants';
-import type { LimitRule } from './constants';
+import type { Gate, LimitRule } from './constants';
+import { leasedLimit } from './lease';
 
 export * from './constants';
-
-export type Gate = { allowed: true } | { allowed: false; retryAfterSeconds: number };
 
 const allowed: Gate = { allowed: true };
 
@@ -62,8 +61,13 @@ export function passwordChange({ userId, address }: { userId: string; address: s
 	]);
 }
 
+const publicApiGate = leasedLimit(
+	(key, points) => rateLimiter('api-address', rules.PUBLIC_API_PER_ADDRESS).consume(key, points),
+	{ limit: rules.PUBLIC_API_PER_ADDRESS.points, size: rules.PUBLIC_API_LEASE }
+);
+
 export function publicApi({ address }: { address: string }) {
-	return consume([{ name: 'api-address', rule: rules.PUBLIC_API_PER_ADDRESS, key: address }]);
+	return publicApiGate(address);
 }
 
 /** "3 minutes" / "1 minute", for messages on forms. */
