@@ -1,4 +1,4 @@
-import { and, between, eq, inArray, sql } from 'drizzle-orm';
+import { and, between, eq, gte, inArray, sql } from 'drizzle-orm';
 import type { Executor } from '../db';
 import { order, type OrderStatus } from '../db/schema';
 
@@ -25,11 +25,18 @@ export async function activeOrdersAround(
 		.select({ count: sql<number>`count(*)`.mapWith(Number) })
 		.from(order)
 		.where(
-			and(
-				eq(order.tailorId, tailorId),
-				inArray(order.status, activeOrderStatuses),
-				between(order.dueDate, from, to)
-			)
+			and(eq(order.tailorId, tailorId), inArray(order.status, activeOrderStatuses), between(order.dueDate, from, to))
 		);
 	return { count: row?.count ?? 0, from, to };
+}
+
+/** The due dates of the tailor's active orders from `from` on, soonest first: the workroom's booked weeks. */
+export async function activeOrderDueDates(db: Executor, { tailorId, from }: { tailorId: string; from: string }) {
+	const rows = await db
+		.select({ dueDate: order.dueDate })
+		.from(order)
+		.where(and(eq(order.tailorId, tailorId), inArray(order.status, activeOrderStatuses), gte(order.dueDate, from)))
+		.orderBy(order.dueDate)
+		.limit(500);
+	return rows.map((row) => row.dueDate);
 }

@@ -6,6 +6,7 @@ import { fabricEstimateForBand, typicalLeadDays } from '../commissions';
 import { commissionForQuoting } from '../commissions/for-quoting';
 import { sizeBandOf } from '../commissions/quotes-read';
 import type { Executor } from '../db';
+import { activeOrderDueDates } from '../orders/load';
 import * as workrooms from '../workrooms';
 import { latestQuoteOf } from './queries';
 
@@ -96,14 +97,19 @@ export function prefill(facts: HelperFacts): HelperPrefill {
  * the workroom may quote, its latest quote there, and the helper's starting figures. Null when the
  * commission is not one the tailor may see (a draft, someone else's closed one, or no such id).
  */
-export async function quoteContext(db: Executor, { commissionId, tailorId }: { commissionId: string; tailorId: string }) {
+export async function quoteContext(
+	db: Executor,
+	{ commissionId, tailorId }: { commissionId: string; tailorId: string }
+) {
 	const commission = await commissionForQuoting(db, { id: commissionId });
 	if (!commission || commission.status === 'draft') return null;
-	const [latest, workroom, band, mayQuote] = await Promise.all([
+	const today = new Date().toISOString().slice(0, 10);
+	const [latest, workroom, band, mayQuote, bookedDueDates] = await Promise.all([
 		latestQuoteOf(db, { commissionId, tailorId }),
 		workrooms.getOwn(db, { tailorId }),
 		sizeBandOf(db, commissionId),
-		workrooms.canQuote(db, { tailorId })
+		workrooms.canQuote(db, { tailorId }),
+		activeOrderDueDates(db, { tailorId, from: today })
 	]);
 	if (commission.status !== 'open' && !latest) return null;
 	const helper = prefill({
@@ -114,5 +120,5 @@ export async function quoteContext(db: Executor, { commissionId, tailorId }: { c
 		rates: workroom?.rates ?? null,
 		leadTimes: workroom?.leadTimes ?? {}
 	});
-	return { commission, sizeBand: band, workroom, mayQuote, latest, helper };
+	return { commission, sizeBand: band, workroom, mayQuote, latest, helper, bookedDueDates };
 }

@@ -13,4 +13,11 @@ export {
 	type QuoteViewer
 } from './queries';
 export { prefill, quoteContext, startingFabricPricePerMetre, type HelperFacts, type HelperPrefill } from './helper';
-export { quoteWarnings, warningsFor, type QuoteWarning, type WarningFacts } from './warnings';
+export {
+	capacityWindowDays,
+	countAround,
+	quoteWarnings,
+	warningsFor,
+	type QuoteWarning,
+	type WarningFacts
+} from './warnings';

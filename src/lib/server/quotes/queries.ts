@@ -74,7 +74,10 @@ export async function listForCommission(
 }
 
 /** The tailor's live (sent or accepted) quote on a commission, if any. */
-export async function liveQuoteOf(db: Executor, { commissionId, tailorId }: { commissionId: string; tailorId: string }) {
+export async function liveQuoteOf(
+	db: Executor,
+	{ commissionId, tailorId }: { commissionId: string; tailorId: string }
+) {
 	const [row] = await db
 		.select()
 		.from(quote)

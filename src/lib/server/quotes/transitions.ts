@@ -36,7 +36,8 @@ function validate(terms: Terms, c: CommissionForQuoting, { today, now }: { today
 	const issues: QuoteIssue[] = [];
 	if (terms.currency !== c.currency)
 		issues.push({ path: 'currency', message: `This commission is priced in ${c.currency}; quote in ${c.currency}.` });
-	if (terms.deliveryDate <= today) issues.push({ path: 'deliveryDate', message: 'Choose a delivery date after today.' });
+	if (terms.deliveryDate <= today)
+		issues.push({ path: 'deliveryDate', message: 'Choose a delivery date after today.' });
 	if (terms.validUntil <= now) issues.push({ path: 'validUntil', message: 'Choose a date in the future.' });
 	else if (c.expiresAt && terms.validUntil > c.expiresAt)
 		issues.push({
@@ -235,7 +236,10 @@ export async function edit(
 }
 
 /** Takes back a quote still waiting for an answer. Withdrawing it again changes nothing. */
-export async function withdraw(db: Executor, { id, actor, now = new Date() }: { id: string; actor: Actor; now?: Date }) {
+export async function withdraw(
+	db: Executor,
+	{ id, actor, now = new Date() }: { id: string; actor: Actor; now?: Date }
+) {
 	return db.transaction(async (tx) => {
 		const row = await lockOwn(tx, id, actor);
 		if (row.status === 'withdrawn') return row;
