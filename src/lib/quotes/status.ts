@@ -11,5 +11,5 @@ export const quoteStatusLabels: Record<string, { label: string; tone: Tone; expl
 };
 
 export function quoteStatusOf(status: string) {
-	return quoteStatusLabels[status] ?? { label: status, tone: 'neutral' as Tone, explain: '' };
+	return quoteStatusLabels[status] ?? { label: status, tone: 'neutral', explain: '' };
 }
