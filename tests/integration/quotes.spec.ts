@@ -98,7 +98,8 @@ describe('sending a quote', () => {
 		const mail = await waitForMail(s.customer.email, {
 			subject: `A new quote for “${s.title}” from ${s.tailor.shopName}`
 		});
-		expect(mail.text).toContain('€185.00');
+		expect(mail.text).toContain('Price: €185, fabric included');
+		expect(mail.text).toContain('Fittings included: 2');
 		expect(mail.text).toContain(`/commissions/${s.commission.id}`);
 
 		const one = await api(s.owner, 'GET', `/api/v1/quotes/${sent.body.id}`);

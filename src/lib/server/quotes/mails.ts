@@ -11,11 +11,10 @@ function greet(name: string | null | undefined) {
 }
 
 function terms(q: Quote) {
-	const fittings = q.fittingsIncluded === 1 ? '1 fitting' : `${q.fittingsIncluded} fittings`;
 	return [
 		`Price: ${formatMoney(q.priceMinor, q.currency)}${q.fabricIncluded ? ', fabric included' : ', fabric not included'}`,
 		`Delivery by: ${formatDate(q.deliveryDate)}`,
-		`Fittings: ${fittings}`,
+		`Fittings included: ${q.fittingsIncluded}`,
 		`Valid until: ${formatDate(q.validUntil.toISOString().slice(0, 10))}`
 	]
 		.map((line) => `• ${line}`)
