@@ -17,15 +17,6 @@ export type WorkingInput = {
 	markupPercent: number;
 };
 
-/** The helper's figures as typed in the form (money in major units of the commission's currency). */
-export type HelperFigures = {
-	fabricMetres: string;
-	fabricPrice: string;
-	labourHours: string;
-	hourlyRate: string;
-	markupPercent: string;
-};
-
 export type WorkingLine = QuoteLine & { detail: string };
 
 export type Working = {
