@@ -8,7 +8,6 @@ import {
 	commissionMeasurements,
 	commissionSizeBand,
 	measurementProfile,
-	quote,
 	tailorProfile,
 	user
 } from '../../src/lib/server/db/schema';
@@ -17,7 +16,7 @@ import { seedDemoPhotos, storageConfigured } from './images';
 import { demoMeasurementProfiles } from './measurements';
 import { adminEmail, demoPassword, demoUsers } from './people';
 import { demoPlaces } from './places';
-import { demoQuotes } from './quotes';
+import { seedDemoQuotes } from './quotes';
 import { demoTailorProfiles } from './tailors';
 
 export type SeedResult = 'seeded' | 'already-seeded';
@@ -78,7 +77,7 @@ export async function seedDemo(db: Database): Promise<SeedResult> {
 			.insert(commissionSizeBand)
 			.values(posted.flatMap((p) => p.band))
 			.onConflictDoNothing();
-		await tx.insert(quote).values(demoQuotes(now)).onConflictDoNothing();
+		await seedDemoQuotes(tx, now);
 	});
 	// Photos go through the photos area into the bucket; without one (a bare `npm run db:seed`) there are none.
 	if (storageConfigured()) {

@@ -53,6 +53,15 @@ describe('area gate', () => {
 		expect(isHttpError(result.thrown, 403)).toBe(true);
 	});
 
+	it("lets a tailor post a quote on a customer's commission, and nothing else there", async () => {
+		const quotePage = '/commissions/0b6f3c56-8d3e-4f51-9a4e-6c1d2b7a9e10/quote';
+		expect((await attempt(quotePage, 'tailor', { method: 'POST' })).response?.status).toBe(200);
+		const byCustomer = await attempt(quotePage, 'customer', { method: 'POST', routeGuards: true });
+		expect(isHttpError(byCustomer.thrown, 403)).toBe(true);
+		const elsewhere = await attempt('/commissions/0b6f3c56-8d3e-4f51-9a4e-6c1d2b7a9e10', 'tailor', { method: 'POST' });
+		expect(isHttpError(elsewhere.thrown, 403)).toBe(true);
+	});
+
 	it('never lets another role post into an area', async () => {
 		const result = await attempt('/desk/users', 'tailor', { method: 'POST', routeGuards: true });
 		expect(result.reachedRoute).toBe(false);

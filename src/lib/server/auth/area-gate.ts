@@ -1,6 +1,9 @@
 import { error, redirect, type Handle } from '@sveltejs/kit';
 import type { UserRole } from '../db/schema';
 
+/** Pages inside another role's area that belong to this role: a tailor's quote on a customer's commission. */
+const crossings: [pattern: RegExp, role: UserRole][] = [[/^\/commissions\/[0-9a-f-]{36}\/quote$/, 'tailor']];
+
 const areas: [prefix: string, role: UserRole][] = [
 	['/commissions', 'customer'],
 	['/measurements', 'customer'],
@@ -31,7 +34,8 @@ export function normalisedPath(pathname: string) {
  */
 export const gateAreas: Handle = async ({ event, resolve }) => {
 	const path = normalisedPath(event.url.pathname);
-	const area = areas.find(([prefix]) => path === prefix || path.startsWith(prefix + '/'));
+	const crossing = crossings.find(([pattern]) => pattern.test(path));
+	const area = crossing ?? areas.find(([prefix]) => path === prefix || path.startsWith(prefix + '/'));
 	if (!area) return resolve(event);
 	const user = event.locals.user;
 	if (!user) {

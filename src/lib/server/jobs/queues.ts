@@ -43,6 +43,12 @@ export function queueDefinitions(): QueueDefinition[] {
 			// picked up by the next (each commission expires in its own transaction, at most once).
 			options: { policy: 'singleton', retryLimit: 3, retryDelay: 60, expireInSeconds: 300 },
 			cron: { expression: '*/5 * * * *' }
+		},
+		{
+			name: queueNames.quoteLapse,
+			// As for expiry: one run at a time; each quote lapses in its own transaction, at most once.
+			options: { policy: 'singleton', retryLimit: 3, retryDelay: 60, expireInSeconds: 300 },
+			cron: { expression: '*/5 * * * *' }
 		}
 	];
 }

@@ -1,14 +1,20 @@
 import { error, fail, redirect } from '@sveltejs/kit';
 import { requireRole, requireUser } from '$lib/server/auth/guard';
 import * as commissions from '$lib/server/commissions';
+import * as quotes from '$lib/server/quotes';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ locals, params, url }) => {
 	const user = requireUser();
 	const view = await commissions.getForViewer(locals.db, { id: params.id, viewer: user, unit: user.units });
 	if (!view) error(404, { message: 'There is no such commission.', code: 'not_found' });
+	const myQuote =
+		view.viewer === 'tailor'
+			? await quotes.latestQuoteOf(locals.db, { commissionId: view.id, tailorId: user.id })
+			: null;
 	return {
 		view,
+		myQuote: myQuote && quotes.quoteJson(myQuote),
 		confirmCancel: url.searchParams.has('cancel') && view.viewer === 'owner',
 		published: url.searchParams.has('published'),
 		saved: url.searchParams.has('saved')

@@ -1,0 +1,23 @@
+export { QuoteError, errorStatus, type QuoteErrorCode, type QuoteIssue } from './errors';
+export * from './schemas';
+export { send, edit, withdraw, lapse, lapseDue, type Actor } from './transitions';
+export {
+	getForParty,
+	latestQuoteOf,
+	listForCommission,
+	listOwn,
+	liveQuoteOf,
+	ownPageSize,
+	quoteJson,
+	type QuoteJson,
+	type QuoteViewer
+} from './queries';
+export { prefill, quoteContext, startingFabricPricePerMetre, type HelperFacts, type HelperPrefill } from './helper';
+export {
+	capacityWindowDays,
+	countAround,
+	quoteWarnings,
+	warningsFor,
+	type QuoteWarning,
+	type WarningFacts
+} from './warnings';

@@ -1,0 +1,152 @@
+import { z } from 'zod';
+import { isCurrencyCode } from '$lib/drafting';
+import { parseAmount } from '$lib/format/amount-input';
+import { text } from '../forms';
+
+/** The most a quote may ask, in minor units: far above any garment, well inside a 32-bit integer. */
+export const maxPriceMinor = 100_000_000;
+export const maxFittings = 10;
+export const maxMessageLength = 4000;
+
+const priceMinor = z
+	.number({ error: 'Give the price as a whole number of minor units.' })
+	.int('Give the price in whole minor units (cents, pence).')
+	.positive('The price must be more than zero.')
+	.max(maxPriceMinor, 'That price is beyond what Tackline takes for one garment.');
+
+const currency = z
+	.string({ error: 'Give the currency as an ISO 4217 code such as EUR.' })
+	.trim()
+	.toUpperCase()
+	.refine(isCurrencyCode, 'Give the currency as an ISO 4217 code such as EUR.');
+
+export const isoDate = z
+	.string({ error: 'Give the date as YYYY-MM-DD.' })
+	.regex(/^\d{4}-\d{2}-\d{2}$/, 'Give the date as YYYY-MM-DD.')
+	.refine(
+		(d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)) && new Date(`${d}T00:00:00Z`).toISOString().startsWith(d),
+		'That date does not exist.'
+	);
+
+/** The end of a calendar day (UTC): a quote "valid until 12 March" holds all that day. */
+export function endOfDay(date: string) {
+	return new Date(`${date}T23:59:59.999Z`);
+}
+
+/** A moment with its offset (`2027-03-12T18:00:00Z`), or a plain date meaning the end of that day (UTC). */
+const validUntil = z.union(
+	[isoDate.transform(endOfDay), z.iso.datetime({ offset: true }).transform((at) => new Date(at))],
+	{ error: 'Give the date as YYYY-MM-DD or a moment such as 2027-03-12T18:00:00Z.' }
+);
+
+const fittings = z
+	.number({ error: 'Give the number of fittings as a whole number.' })
+	.int('Give the number of fittings as a whole number.')
+	.min(0, 'Fittings cannot be negative.')
+	.max(maxFittings, `At most ${maxFittings} fittings.`);
+
+const message = text({ max: maxMessageLength, multiline: true });
+
+/** The body of `POST /api/v1/commissions/{id}/quotes`. */
+export const quoteCreate = z.strictObject({
+	priceMinor,
+	currency,
+	deliveryDate: isoDate,
+	fittings,
+	fabricIncluded: z.boolean({ error: 'Say whether the fabric is included (true or false).' }),
+	message: message.default(''),
+	validUntil
+});
+export type QuoteCreate = z.output<typeof quoteCreate>;
+
+/** The body of `PATCH /api/v1/quotes/{id}`: any of the same fields, at least one. */
+export const quotePatch = quoteCreate
+	.extend({ message })
+	.partial()
+	.refine((body) => Object.keys(body).length > 0, 'Send at least one field to change.');
+export type QuotePatch = z.output<typeof quotePatch>;
+
+/** What a quote's answer looks like (for the OpenAPI document). */
+export const quoteJsonSchema = z.object({
+	id: z.uuid(),
+	commissionId: z.uuid(),
+	tailorId: z.uuid(),
+	priceMinor: z.number().int(),
+	currency: z.string(),
+	deliveryDate: z.string(),
+	fittings: z.number().int(),
+	fabricIncluded: z.boolean(),
+	message: z.string(),
+	validUntil: z.string(),
+	status: z.enum(['sent', 'accepted', 'declined', 'withdrawn', 'lapsed']),
+	declineReason: z.string(),
+	decidedAt: z.string().nullable(),
+	createdAt: z.string(),
+	updatedAt: z.string(),
+	warnings: z.array(z.object({ code: z.string(), message: z.string() }))
+});
+
+const checkbox = z
+	.union([z.literal('on'), z.literal('true'), z.literal('')])
+	.optional()
+	.transform((value) => value === 'on' || value === 'true');
+
+const wholeNumber = (label: string, max: number) =>
+	z
+		.string()
+		.trim()
+		.regex(/^\d+$/, `Give ${label} as a whole number.`)
+		.transform(Number)
+		.pipe(z.number().max(max, `At most ${max} ${label}.`));
+
+/**
+ * The quote form: the price is typed in major units of the commission's currency ("85" or "85.50") and
+ * becomes minor units here; `validUntil` is a date (valid through that whole day).
+ */
+export function quoteForm(currencyCode: string) {
+	return z
+		.object({
+			price: z.string().trim().min(1, 'Give your price.'),
+			deliveryDate: isoDate,
+			fittings: wholeNumber('fittings', maxFittings),
+			fabricIncluded: checkbox,
+			message: text({ max: maxMessageLength, multiline: true }),
+			validUntil: isoDate
+		})
+		.transform((form, ctx) => {
+			const amount = parseAmount(form.price, currencyCode);
+			if (!amount.ok) {
+				ctx.addIssue({ code: 'custom', path: ['price'], message: amount.message });
+				return z.NEVER;
+			}
+			const checked = priceMinor.safeParse(amount.minor);
+			if (!checked.success) {
+				ctx.addIssue({ code: 'custom', path: ['price'], message: checked.error.issues[0].message });
+				return z.NEVER;
+			}
+			return {
+				priceMinor: checked.data,
+				currency: currencyCode,
+				deliveryDate: form.deliveryDate,
+				fittings: form.fittings,
+				fabricIncluded: form.fabricIncluded,
+				message: form.message,
+				validUntil: endOfDay(form.validUntil)
+			} satisfies QuoteCreate;
+		});
+}
+
+/** The fields the quote form posts, for refilling it after a failure. */
+export const quoteFormFields = [
+	'price',
+	'deliveryDate',
+	'fittings',
+	'fabricIncluded',
+	'message',
+	'validUntil',
+	'fabricMetres',
+	'fabricPrice',
+	'labourHours',
+	'hourlyRate',
+	'markupPercent'
+];
