@@ -1,0 +1,4 @@
+export * from './errors';
+export * from './decide';
+export * from './compare';
+export { fitMethod, formatKm } from './fit';
