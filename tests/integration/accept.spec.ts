@@ -5,7 +5,14 @@
  */
 import { and, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
-import { auditEvent, commission, order, quote, searchOutbox } from '../../src/lib/server/db/schema';
+import {
+	auditEvent,
+	commission,
+	commissionMeasurements,
+	order,
+	quote,
+	searchOutbox
+} from '../../src/lib/server/db/schema';
 import { createCommission, createUser, createWorkroom, type Person, type Workroom } from '../factories';
 import { insertQuote } from '../factories/quote-rows';
 import { testDb } from './db';
@@ -40,6 +47,11 @@ async function quotedCommission(n: number, priceOf = (i: number) => 45_000 + i *
 		status: 'open',
 		dateNeeded: new Date(Date.now() + 60 * 86_400_000).toISOString().slice(0, 10)
 	});
+	// Everything the straight skirt's draft needs, so the awarded tailor's page can draw it.
+	await db
+		.update(commissionMeasurements)
+		.set({ valuesMm: { waist_girth: 740, hip_girth: 1000, waist_to_hip: 205 } })
+		.where(eq(commissionMeasurements.commissionId, made.id));
 	const tailors: Workroom[] = [];
 	for (let i = 0; i < n; i++) tailors.push(await createWorkroom(db));
 	const quotes = [];
@@ -137,7 +149,10 @@ describe('accepting a quote', () => {
 	it('gives the awarded tailor the measurements, and no other tailor', async () => {
 		const winner = await call(await signedIn(world.tailors[0]), 'GET', `/api/v1/commissions/${world.commissionId}`);
 		expect(winner.status).toBe(200);
-		expect(winner.body.measurements).toEqual({ unit: 'cm', values: { waist_girth: 74, hip_girth: 100 } });
+		expect(winner.body.measurements).toEqual({
+			unit: 'cm',
+			values: { waist_girth: 74, hip_girth: 100, waist_to_hip: 20.5 }
+		});
 
 		const loser = await call(await signedIn(world.tailors[1]), 'GET', `/api/v1/commissions/${world.commissionId}`);
 		expect(loser.status).toBe(200);

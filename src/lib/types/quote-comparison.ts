@@ -58,3 +58,13 @@ export type QuoteComparison = {
 
 export const comparisonSorts = ['fit', 'price', 'delivery', 'distance'] as const;
 export type ComparisonSort = (typeof comparisonSorts)[number];
+
+/** What accepting a quote would cost and pay out, shown before the customer confirms. */
+export type AcceptPreview = {
+	quoteId: string;
+	priceMinor: number;
+	platformFeeMinor: number;
+	tailorPayoutMinor: number;
+	currency: string;
+	rateText: string;
+};

@@ -96,9 +96,9 @@ function requireCustomer(actor: DecidingActor) {
  * Locks, in this order, the commission (so decisions on one commission queue behind each other) and the quote.
  * Someone else's quote, or one on someone else's commission, does not exist for the actor.
  */
-async function lockBoth(tx: Executor, quoteId: string, actor: DecidingActor) {
+async function lockBoth(tx: Executor, quoteId: string, actor: DecidingActor, commissionId?: string) {
 	const [found] = await tx.select({ commissionId: quote.commissionId }).from(quote).where(eq(quote.id, quoteId));
-	if (!found) throw noSuchQuote();
+	if (!found || (commissionId && found.commissionId !== commissionId)) throw noSuchQuote();
 	const row = await commissions.lockForDecision(tx, { id: found.commissionId, ownerId: actor.id });
 	if (!row) throw noSuchQuote();
 	const [locked] = await tx.select().from(quote).where(eq(quote.id, quoteId)).for('update');
@@ -160,12 +160,17 @@ async function mailTailor(tx: Executor, tailorId: string, write: (to: string) =>
  */
 export async function accept(
 	db: Executor,
-	{ quoteId, actor, now = new Date() }: { quoteId: string; actor: DecidingActor; now?: Date }
+	{
+		quoteId,
+		actor,
+		commissionId,
+		now = new Date()
+	}: { quoteId: string; actor: DecidingActor; commissionId?: string; now?: Date }
 ): Promise<AcceptResponse> {
 	requireCustomer(actor);
 	try {
 		return await db.transaction(async (tx) => {
-			const { commission: row, quote: q } = await lockBoth(tx, quoteId, actor);
+			const { commission: row, quote: q } = await lockBoth(tx, quoteId, actor, commissionId);
 			if (row.status !== 'open') throw notOpen(row, q);
 			const refusal = unavailable(q, now);
 			if (refusal) throw refusal;
@@ -244,9 +249,10 @@ export async function decline(
 	{
 		quoteId,
 		actor,
+		commissionId,
 		reason = '',
 		now = new Date()
-	}: { quoteId: string; actor: DecidingActor; reason?: string; now?: Date }
+	}: { quoteId: string; actor: DecidingActor; commissionId?: string; reason?: string; now?: Date }
 ): Promise<Quote> {
 	requireCustomer(actor);
 	const text = reason.trim();
@@ -255,7 +261,7 @@ export async function decline(
 			{ path: 'reason', message: `Keep the reason to ${declineReasonMax} characters.` }
 		]);
 	return db.transaction(async (tx) => {
-		const { commission: row, quote: q } = await lockBoth(tx, quoteId, actor);
+		const { commission: row, quote: q } = await lockBoth(tx, quoteId, actor, commissionId);
 		if (q.status === 'declined') return q;
 		if (q.status !== 'sent')
 			throw new QuoteError(
