@@ -174,7 +174,9 @@ describe('accepting a quote', () => {
 		expect(html).toContain('Full measurements');
 		expect(html).toContain('Cutting draft');
 		expect(html).toContain('Fabric to buy');
-		expect(html).toMatch(/<svg/);
+		// Pieces with their lines to mark, and the fabric length to buy.
+		expect(html).toMatch(/data-line="[\w-]+\.[\w-]+"/);
+		expect(html).toContain('data-testid="fabric-length"');
 	});
 
 	it('shows the owner who won and that payment comes next', async () => {
