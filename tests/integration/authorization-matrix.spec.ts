@@ -4,6 +4,7 @@
  * rows live in `./authorization/<area>.ts`; add an area by importing its rows and adding one line below.
  */
 import { afterAll, beforeAll, vi } from 'vitest';
+import { acceptRows } from './authorization/accept';
 import { castActors } from './authorization/actors';
 import { describeMatrix, type World } from './authorization/matrix';
 import { commissionRows } from './authorization/commissions';
@@ -27,3 +28,4 @@ describeMatrix('measurement profiles', measurementProfileRows, () => world);
 describeMatrix('commissions and their photos', commissionRows, () => world);
 describeMatrix('workrooms', workroomRows, () => world);
 describeMatrix('quotes', quoteRows, () => world);
+describeMatrix('deciding on quotes, and what acceptance opens up', acceptRows, () => world);

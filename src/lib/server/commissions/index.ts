@@ -1,5 +1,7 @@
 export { cancel, createDraft, editOpen, expire, publish, updateDraft, type Actor } from './transitions';
 export { expireDue } from './expiry';
+export { award, lockForDecision } from './award';
+export { publishedTimes } from './published';
 export {
 	customerTimeZone,
 	firstNameAndInitial,

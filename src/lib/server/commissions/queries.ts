@@ -132,8 +132,9 @@ async function measurementsOf(db: Executor, commissionId: string) {
 }
 
 /**
- * A commission as `viewer` may see it, or null when they may not know it exists. The owner gets the frozen
- * measurements (only their query touches `commission_measurements`); everyone else gets the size band, a
+ * A commission as `viewer` may see it, or null when they may not know it exists. The owner and the tailor
+ * whose quote was accepted get the frozen measurements (only their queries touch `commission_measurements`);
+ * everyone else gets the size band, a
  * fabric estimate for it, the customer's first name and initial, and the town. Drafts are the owner's alone.
  */
 export async function getForViewer(db: Executor, { id, viewer, unit }: { id: string; viewer: Viewer; unit?: Unit }) {
@@ -190,12 +191,24 @@ export async function getForViewer(db: Executor, { id, viewer, unit }: { id: str
 			measurements: await measurementsOf(db, id)
 		};
 	}
+	const fabricEstimate = fabricEstimateForBand(row.garmentType, band, readerUnit);
+	if (quoteStatus === 'accepted') {
+		// The awarded tailor cuts from the full measurements, as the customer agreed by accepting their quote.
+		return {
+			...shared,
+			viewer: 'awarded' as const,
+			customer: { name: firstNameAndInitial(customer?.name) },
+			location,
+			fabricEstimate,
+			measurements: await measurementsOf(db, id)
+		};
+	}
 	return {
 		...shared,
 		viewer: viewer.role === 'admin' ? ('admin' as const) : ('tailor' as const),
 		customer: { name: firstNameAndInitial(customer?.name) },
 		location,
-		fabricEstimate: fabricEstimateForBand(row.garmentType, band, readerUnit)
+		fabricEstimate
 	};
 }
 

@@ -1,4 +1,3 @@
-export { QuoteError, errorStatus, type QuoteErrorCode, type QuoteIssue } from './errors';
 export * from './schemas';
 export { send, edit, withdraw, lapse, lapseDue, type Actor } from './transitions';
 export {
@@ -21,3 +20,7 @@ export {
 	type QuoteWarning,
 	type WarningFacts
 } from './warnings';
+export * from './errors';
+export * from './decide';
+export * from './compare';
+export { fitMethod, formatKm } from './fit';

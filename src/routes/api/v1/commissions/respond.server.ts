@@ -6,9 +6,12 @@ import type { SessionUser } from '$lib/types/user';
 
 type View = commissions.CommissionView;
 
-/** The JSON shape of a commission: the owner's `measurements` as `{ unit, values }`; nobody else has the key. */
+/**
+ * The JSON shape of a commission: `measurements` as `{ unit, values }` for the owner and the awarded tailor;
+ * nobody else has the key.
+ */
 export function commissionJson(view: View) {
-	if (view.viewer === 'owner') {
+	if (view.viewer === 'owner' || view.viewer === 'awarded') {
 		const { viewer: _viewer, measurements, ...rest } = view;
 		return { ...rest, measurements: measurements && { unit: measurements.unit, values: measurements.values } };
 	}

@@ -1,0 +1,289 @@
+import { and, eq, ne } from 'drizzle-orm';
+import { z } from 'zod';
+import { formatDate } from '$lib/format';
+import * as accounts from '../accounts';
+import * as audit from '../audit';
+import * as commissions from '../commissions';
+import type { Executor } from '../db';
+import { quote, type Commission, type Quote } from '../db/schema';
+import * as mail from '../mail';
+import * as orders from '../orders';
+import { noteCommissionChanged } from '../search-outbox';
+import { acceptedMail, anotherAcceptedMail, declinedMail } from './decision-mails';
+import { QuoteError } from './errors';
+
+/** Who decides: the signed-in person, with the request's address for the audit log. */
+export type DecidingActor = { id: string; role: 'customer' | 'tailor' | 'admin'; ip?: string | null };
+
+export const declineReasonMax = 500;
+/** What the other quotes say when the customer accepts one: they were declined by the acceptance, not by hand. */
+export const anotherQuoteAccepted = 'another quote was accepted';
+
+/** `POST /api/v1/quotes/{id}/decline`: an optional reason the tailor is shown. */
+export const declineRequestSchema = z
+	.object({
+		reason: z.string().trim().max(declineReasonMax, `Keep the reason to ${declineReasonMax} characters.`).optional()
+	})
+	.strict();
+export type DeclineRequest = z.infer<typeof declineRequestSchema>;
+
+/** `POST /api/v1/quotes/{id}/accept` takes no fields; a body, if sent, must be an empty object. */
+export const acceptRequestSchema = z.object({}).strict();
+
+/** A quote after a decision, as the API answers it. */
+export const decidedQuoteSchema = z.object({
+	id: z.string().uuid(),
+	commissionId: z.string().uuid(),
+	tailorId: z.string().uuid(),
+	status: z.enum(['sent', 'accepted', 'declined', 'withdrawn', 'lapsed']),
+	priceMinor: z.number().int(),
+	currency: z.string().length(3),
+	deliveryDate: z.string(),
+	fittings: z.number().int(),
+	fabricIncluded: z.boolean(),
+	message: z.string(),
+	validUntil: z.string(),
+	declineReason: z.string().nullable(),
+	decidedAt: z.string().nullable(),
+	createdAt: z.string()
+});
+export type DecidedQuote = z.infer<typeof decidedQuoteSchema>;
+
+/** `POST /api/v1/quotes/{id}/accept` → 201: the order the acceptance made. */
+export const acceptResponseSchema = z.object({
+	orderId: z.string().uuid(),
+	status: z.literal('awaiting_payment'),
+	commissionId: z.string().uuid(),
+	quoteId: z.string().uuid(),
+	tailorId: z.string().uuid(),
+	priceMinor: z.number().int(),
+	platformFeeMinor: z.number().int(),
+	tailorPayoutMinor: z.number().int(),
+	platformFeeBasisPoints: z.number().int(),
+	currency: z.string().length(3),
+	dueDate: z.string(),
+	declinedQuoteIds: z.array(z.string().uuid())
+});
+export type AcceptResponse = z.infer<typeof acceptResponseSchema>;
+
+export function decidedQuoteJson(row: Quote): DecidedQuote {
+	return {
+		id: row.id,
+		commissionId: row.commissionId,
+		tailorId: row.tailorId,
+		status: row.status,
+		priceMinor: row.priceMinor,
+		currency: row.currency,
+		deliveryDate: row.deliveryDate,
+		fittings: row.fittingsIncluded,
+		fabricIncluded: row.fabricIncluded,
+		message: row.message,
+		validUntil: row.validUntil.toISOString(),
+		declineReason: row.status === 'declined' ? row.declineReason : null,
+		decidedAt: row.decidedAt?.toISOString() ?? null,
+		createdAt: row.createdAt.toISOString()
+	};
+}
+
+const noSuchQuote = () => new QuoteError('not_found', 'There is no such quote.');
+
+function requireCustomer(actor: DecidingActor) {
+	if (actor.role !== 'customer')
+		throw new QuoteError('forbidden', 'Only the customer who posted the commission decides on its quotes.');
+}
+
+/**
+ * Locks, in this order, the commission (so decisions on one commission queue behind each other) and the quote.
+ * Someone else's quote, or one on someone else's commission, does not exist for the actor.
+ */
+async function lockBoth(tx: Executor, quoteId: string, actor: DecidingActor, commissionId?: string) {
+	const [found] = await tx.select({ commissionId: quote.commissionId }).from(quote).where(eq(quote.id, quoteId));
+	if (!found || (commissionId && found.commissionId !== commissionId)) throw noSuchQuote();
+	const row = await commissions.lockForDecision(tx, { id: found.commissionId, ownerId: actor.id });
+	if (!row) throw noSuchQuote();
+	const [locked] = await tx.select().from(quote).where(eq(quote.id, quoteId)).for('update');
+	return { commission: row, quote: locked };
+}
+
+function notOpen(row: Commission, q: Quote): QuoteError {
+	if (q.status === 'accepted')
+		return new QuoteError('conflict', 'You have already accepted this quote; its order is waiting for your payment.');
+	const why: Partial<Record<Commission['status'], string>> = {
+		awarded: 'another quote has already been accepted',
+		closed: 'it is closed',
+		cancelled: 'it was cancelled',
+		expired: 'it has expired',
+		draft: 'it is not published'
+	};
+	return new QuoteError(
+		'conflict',
+		`This commission is no longer open for quotes: ${why[row.status] ?? row.status}. Nothing was accepted.`
+	);
+}
+
+function unavailable(q: Quote, now: Date): QuoteError | null {
+	if (q.status !== 'sent') {
+		const words = { declined: 'was declined', withdrawn: 'was withdrawn by the tailor', lapsed: 'has lapsed' };
+		return new QuoteError(
+			'conflict',
+			`This quote ${words[q.status as keyof typeof words] ?? `is ${q.status}`}, so it can no longer be accepted.`
+		);
+	}
+	if (q.validUntil <= now)
+		return new QuoteError(
+			'conflict',
+			`This quote was valid until ${formatDate(q.validUntil.toISOString().slice(0, 10))}; ask the tailor for a fresh one.`
+		);
+	return null;
+}
+
+/** A unique key broken by a racing acceptance (the order's commission or quote, a live quote). */
+function isUniqueViolation(error: unknown): boolean {
+	for (let e: unknown = error; e && typeof e === 'object'; e = (e as { cause?: unknown }).cause) {
+		if ((e as { code?: unknown }).code === '23505') return true;
+	}
+	return false;
+}
+
+async function mailTailor(tx: Executor, tailorId: string, write: (to: string) => mail.Mail) {
+	const tailor = await accounts.getProfile(tx, { id: tailorId });
+	if (tailor) await mail.queue(tx, write(tailor.email));
+}
+
+/**
+ * The customer accepts a quote, all in one transaction: an order awaiting payment (price, platform fee and
+ * payout that add up), the quote `accepted`, every other live quote `declined` ("another quote was accepted")
+ * with its tailor told, the commission `awarded` and noted for search, and audit events for each. Refused
+ * with a `conflict` when the commission is no longer open, the quote is not live or it has lapsed; a
+ * simultaneous acceptance waits for the commission's lock and then gets that conflict. The unique keys of
+ * `order` are the last line: their violation is a conflict as well.
+ */
+export async function accept(
+	db: Executor,
+	{
+		quoteId,
+		actor,
+		commissionId,
+		now = new Date()
+	}: { quoteId: string; actor: DecidingActor; commissionId?: string; now?: Date }
+): Promise<AcceptResponse> {
+	requireCustomer(actor);
+	try {
+		return await db.transaction(async (tx) => {
+			const { commission: row, quote: q } = await lockBoth(tx, quoteId, actor, commissionId);
+			if (row.status !== 'open') throw notOpen(row, q);
+			const refusal = unavailable(q, now);
+			if (refusal) throw refusal;
+
+			const order = await orders.createOrder(tx, {
+				commissionId: row.id,
+				quoteId: q.id,
+				customerId: row.customerId,
+				tailorId: q.tailorId,
+				priceMinor: q.priceMinor,
+				currency: q.currency,
+				dueDate: q.deliveryDate,
+				actor
+			});
+			await tx.update(quote).set({ status: 'accepted', decidedAt: now, updatedAt: now }).where(eq(quote.id, q.id));
+			const others = await tx
+				.update(quote)
+				.set({ status: 'declined', declineReason: anotherQuoteAccepted, decidedAt: now, updatedAt: now })
+				.where(and(eq(quote.commissionId, row.id), eq(quote.status, 'sent'), ne(quote.id, q.id)))
+				.returning({ id: quote.id, tailorId: quote.tailorId });
+			if (!(await commissions.award(tx, { row, actor, quoteId: q.id, orderId: order.id }))) throw notOpen(row, q);
+			await noteCommissionChanged(tx, row.id);
+
+			const about = { commissionId: row.id, title: row.title };
+			await audit.record(tx, {
+				actorId: actor.id,
+				ip: actor.ip,
+				action: 'quote.accepted',
+				subjectType: 'quote',
+				subjectId: q.id,
+				data: { commissionId: row.id, orderId: order.id }
+			});
+			await mailTailor(tx, q.tailorId, (to) => acceptedMail(to, { ...about, ...order }));
+			for (const other of others) {
+				await audit.record(tx, {
+					actorId: actor.id,
+					ip: actor.ip,
+					action: 'quote.declined',
+					subjectType: 'quote',
+					subjectId: other.id,
+					data: { commissionId: row.id, reason: anotherQuoteAccepted, acceptedQuoteId: q.id }
+				});
+				await mailTailor(tx, other.tailorId, (to) => anotherAcceptedMail(to, about));
+			}
+			return {
+				orderId: order.id,
+				status: 'awaiting_payment' as const,
+				commissionId: row.id,
+				quoteId: q.id,
+				tailorId: q.tailorId,
+				priceMinor: order.priceMinor,
+				platformFeeMinor: order.platformFeeMinor,
+				tailorPayoutMinor: order.tailorPayoutMinor,
+				platformFeeBasisPoints: order.platformFeeBasisPoints,
+				currency: order.currency,
+				dueDate: order.dueDate,
+				declinedQuoteIds: others.map((other) => other.id)
+			};
+		});
+	} catch (error) {
+		if (isUniqueViolation(error))
+			throw new QuoteError(
+				'conflict',
+				'This commission is no longer open for quotes: another quote has already been accepted.'
+			);
+		throw error;
+	}
+}
+
+/**
+ * The customer declines a live quote, with an optional reason the tailor is mailed. Declining it again
+ * changes nothing; a quote that is no longer live cannot be declined.
+ */
+export async function decline(
+	db: Executor,
+	{
+		quoteId,
+		actor,
+		commissionId,
+		reason = '',
+		now = new Date()
+	}: { quoteId: string; actor: DecidingActor; commissionId?: string; reason?: string; now?: Date }
+): Promise<Quote> {
+	requireCustomer(actor);
+	const text = reason.trim();
+	if (text.length > declineReasonMax)
+		throw new QuoteError('invalid', 'The reason is too long.', [
+			{ path: 'reason', message: `Keep the reason to ${declineReasonMax} characters.` }
+		]);
+	return db.transaction(async (tx) => {
+		const { commission: row, quote: q } = await lockBoth(tx, quoteId, actor, commissionId);
+		if (q.status === 'declined') return q;
+		if (q.status !== 'sent')
+			throw new QuoteError(
+				'wrong_status',
+				`This quote is ${q.status}; only a quote waiting for your answer can be declined.`
+			);
+		const [updated] = await tx
+			.update(quote)
+			.set({ status: 'declined', declineReason: text, decidedAt: now, updatedAt: now })
+			.where(eq(quote.id, q.id))
+			.returning();
+		await audit.record(tx, {
+			actorId: actor.id,
+			ip: actor.ip,
+			action: 'quote.declined',
+			subjectType: 'quote',
+			subjectId: q.id,
+			data: { commissionId: row.id, withReason: text.length > 0 }
+		});
+		await mailTailor(tx, q.tailorId, (to) =>
+			declinedMail(to, { commissionId: row.id, title: row.title, reason: text })
+		);
+		return updated;
+	});
+}
