@@ -6,7 +6,7 @@
 import type { StripeObject } from './stripe-store';
 
 const escape = (value: unknown) =>
-	String(value ?? '').replace(
+	(typeof value === 'string' ? value : value === null || value === undefined ? '' : JSON.stringify(value)).replace(
 		/[&<>"']/g,
 		(c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] as string
 	);

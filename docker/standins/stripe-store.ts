@@ -281,6 +281,41 @@ export class StripeStore {
 		this.events = [];
 	}
 
+	/** Everything the store holds, as JSON, for `npm start` to keep across restarts. */
+	snapshot(): unknown {
+		return {
+			version: 1,
+			counter: this.counter,
+			objects: [...this.objects.values()].map((o) => [this.seq.get(o.id), o]),
+			btOwner: [...this.btOwner],
+			lineItems: [...this.lineItems],
+			links: [...this.links],
+			events: this.events.map((e) => e.id)
+		};
+	}
+	restore(snapshot: unknown) {
+		const state = snapshot as {
+			version: number;
+			counter: number;
+			objects: [number, StripeObject][];
+			btOwner: [string, string][];
+			lineItems: [string, StripeObject[]][];
+			links: [string, LinkToken][];
+			events: string[];
+		};
+		if (state.version !== 1) throw new Error(`Unknown Stripe stand-in state version ${state.version}`);
+		this.reset();
+		this.counter = state.counter;
+		for (const [seq, o] of state.objects) {
+			this.objects.set(o.id, o);
+			this.seq.set(o.id, seq);
+		}
+		this.btOwner = new Map(state.btOwner);
+		this.lineItems = new Map(state.lineItems);
+		this.links = new Map(state.links);
+		this.events = state.events.map((id) => this.objects.get(id) as StripeEvent);
+	}
+
 	private put<T extends StripeObject>(o: T): T {
 		if (!this.seq.has(o.id)) this.seq.set(o.id, ++this.counter);
 		this.objects.set(o.id, o);
@@ -328,12 +363,12 @@ export class StripeStore {
 		if (target.object === 'checkout.session' && head === 'line_items')
 			target.line_items = this.listOf(
 				this.lineItems.get(target.id as string) ?? [],
-				`/v1/checkout/sessions/${target.id}/line_items`
+				`/v1/checkout/sessions/${String(target.id)}/line_items`
 			);
 		else if (target.object === 'charge' && head === 'refunds')
 			target.refunds = this.listOf(
 				this.all('refund', (r) => r.charge === target.id),
-				`/v1/charges/${target.id}/refunds`
+				`/v1/charges/${String(target.id)}/refunds`
 			);
 		else {
 			const value = target[head];
@@ -566,7 +601,7 @@ export class StripeStore {
 			metadata: metadataParam(params, 'metadata'),
 			name: str(params, 'name') ?? null,
 			phone: str(params, 'phone') ?? null,
-			preferred_locales: (asArray(params.preferred_locales) as string[]) ?? [],
+			preferred_locales: asArray(params.preferred_locales),
 			shipping: obj(params, 'shipping') ?? null,
 			tax_exempt: 'none',
 			test_clock: null
@@ -870,7 +905,7 @@ export class StripeStore {
 			const name = `line_items[${i}]`;
 			if (typeof raw !== 'object' || Array.isArray(raw)) throw invalid('Invalid line item', name);
 			checkParams(raw, ['price_data', 'quantity', 'price', 'adjustable_quantity', 'tax_rates']);
-			if (raw.price) throw missing('price', String(raw.price), `${name}[price]`);
+			if (raw.price) throw missing('price', JSON.stringify(raw.price), `${name}[price]`);
 			const priceData = obj(raw, 'price_data');
 			if (!priceData)
 				throw invalid(`Missing required param: ${name}[price_data].`, `${name}[price_data]`, 'parameter_missing');
@@ -1007,7 +1042,7 @@ export class StripeStore {
 		const s = this.checkoutSession(id);
 		if (s.status !== 'open')
 			throw invalid(
-				`Only Checkout Sessions with a status in ["open"] can be expired. This Checkout Session has a status of "${s.status}".`,
+				`Only Checkout Sessions with a status in ["open"] can be expired. This Checkout Session has a status of "${String(s.status)}".`,
 				undefined,
 				'checkout_session_not_open'
 			);
@@ -1033,6 +1068,12 @@ export class StripeStore {
 		checkParams(params, ['limit', 'starting_after', 'ending_before']);
 		return this.listOf(items, `/v1/checkout/sessions/${id}/line_items`);
 	}
+	/** The e-mail a session already knows: `customer_email`, or its customer's. */
+	sessionEmail(s: StripeObject): string | null {
+		if (typeof s.customer_email === 'string') return s.customer_email;
+		const customer = typeof s.customer === 'string' ? this.objects.get(s.customer) : undefined;
+		return typeof customer?.email === 'string' ? customer.email : null;
+	}
 	lineItemsOf(id: string) {
 		return (this.lineItems.get(id) ?? []).map((i) => this.view(i));
 	}
@@ -1043,7 +1084,7 @@ export class StripeStore {
 	 */
 	payCheckoutSession(id: string, card: string, email: string | null): { ok: true } | { ok: false; message: string } {
 		const s = this.checkoutSession(id);
-		if (s.status !== 'open') return { ok: false, message: `This checkout is ${s.status}.` };
+		if (s.status !== 'open') return { ok: false, message: `This checkout is ${String(s.status)}.` };
 		const outcome = cardOutcome(card);
 		if (!outcome.ok && !outcome.charge) return { ok: false, message: outcome.message };
 		const extra = s._pid as {
@@ -1052,10 +1093,7 @@ export class StripeStore {
 			description: string | null;
 			receipt_email: string | null;
 		};
-		const customerEmail =
-			(s.customer_email as string | null) ??
-			(s.customer ? ((this.objects.get(s.customer as string)?.email as string | null) ?? null) : null) ??
-			email;
+		const customerEmail = this.sessionEmail(s) ?? email;
 		let pi = s.payment_intent ? this.get('payment intent', 'payment_intent', s.payment_intent as string) : null;
 		if (!pi) {
 			pi = this.put({
@@ -1107,7 +1145,7 @@ export class StripeStore {
 			application: null,
 			application_fee: null,
 			application_fee_amount: null,
-			balance_transaction: null,
+			balance_transaction: null as string | null,
 			billing_details: { address: null, email: customerEmail, name: null, phone: null },
 			calculated_statement_descriptor: 'TACKLINE',
 			captured: outcome.ok,
@@ -1116,7 +1154,7 @@ export class StripeStore {
 			customer: pi.customer,
 			description: pi.description,
 			disputed: false,
-			failure_balance_transaction: null,
+			failure_balance_transaction: null as string | null,
 			failure_code: outcome.ok ? null : outcome.code,
 			failure_message: outcome.ok ? null : outcome.message,
 			fraud_details: {},
@@ -1294,7 +1332,7 @@ export class StripeStore {
 				throw invalid(`The source_transaction ${sourceId} has not succeeded.`, 'source_transaction');
 			if (source.currency !== currency)
 				throw invalid(
-					`The currency of source_transaction's balance transaction (${source.currency}) must be the same as the transfer currency (${currency})`,
+					`The currency of source_transaction's balance transaction (${String(source.currency)}) must be the same as the transfer currency (${currency})`,
 					'currency'
 				);
 			const left = this.transferableFrom(source);
@@ -1318,7 +1356,7 @@ export class StripeStore {
 			object: 'transfer',
 			amount,
 			amount_reversed: 0,
-			balance_transaction: null,
+			balance_transaction: null as string | null,
 			created: now(),
 			currency,
 			description: str(params, 'description') ?? null,
@@ -1333,7 +1371,7 @@ export class StripeStore {
 		});
 		const bt = this.balanceTx(PLATFORM, -amount, currency, 'transfer', transfer.id, availableOn);
 		transfer.balance_transaction = bt.id;
-		this.balanceTx(destination, amount, currency, 'payment', transfer.destination_payment as string, availableOn);
+		this.balanceTx(destination, amount, currency, 'payment', String(transfer.destination_payment), availableOn);
 		this.emit('transfer.created', transfer);
 		return transfer;
 	}
@@ -1385,7 +1423,7 @@ export class StripeStore {
 			id: newId('trr'),
 			object: 'transfer_reversal',
 			amount,
-			balance_transaction: null,
+			balance_transaction: null as string | null,
 			created: now(),
 			currency,
 			destination_payment_refund: newId('pyr'),
@@ -1406,7 +1444,7 @@ export class StripeStore {
 			-amount,
 			currency,
 			'payment_refund',
-			reversal.destination_payment_refund as string,
+			String(reversal.destination_payment_refund),
 			availableOn
 		);
 		const previous = { amount_reversed: t.amount_reversed, reversed: t.reversed };
@@ -1488,7 +1526,7 @@ export class StripeStore {
 			id: newId('re'),
 			object: 'refund',
 			amount,
-			balance_transaction: null,
+			balance_transaction: null as string | null,
 			charge: charge.id,
 			created: now(),
 			currency: charge.currency,

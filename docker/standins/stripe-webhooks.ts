@@ -92,7 +92,7 @@ export class WebhookDispatcher {
 		// Stripe signs every attempt afresh, so a retried delivery carries a current timestamp.
 		const payload = JSON.stringify(event, null, 2);
 		const attempt: DeliveryAttempt = { at: new Date().toISOString(), status: null };
-		fetch(endpoint.url, {
+		void fetch(endpoint.url, {
 			method: 'POST',
 			headers: {
 				'content-type': 'application/json; charset=utf-8',

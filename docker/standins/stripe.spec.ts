@@ -1,6 +1,9 @@
 // The Stripe stand-in driven through the real `stripe` SDK, as the app drives it, with webhooks received
 // and verified by `stripe.webhooks.constructEvent` on a local receiver.
+import { mkdtempSync, rmSync } from 'node:fs';
 import { createServer, type Server } from 'node:http';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import type { AddressInfo } from 'node:net';
 import Stripe from 'stripe';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
@@ -409,7 +412,7 @@ describe('transfers, reversals and refunds move the balance', () => {
 		platform = balanceOf(await stripe.balance.retrieve(), 'gbp');
 		expect(platform.available + platform.pending - start.available - start.pending).toBe(-15000);
 		const refundedEvent = await control.waitForEvent(
-			(e) => e.type === 'charge.refunded' && (e.data.object as Stripe.Charge).amount_refunded === 24000
+			(e) => e.type === 'charge.refunded' && (e.data.object as unknown as Stripe.Charge).amount_refunded === 24000
 		);
 		expect(refundedEvent.data.previous_attributes).toEqual({ amount_refunded: 3000, refunded: false });
 		expect((await stripe.transfers.list({ transfer_group: 'ord_money' })).data.map((t) => t.id)).toEqual([transfer.id]);
@@ -517,7 +520,7 @@ describe('webhooks', () => {
 		await paidSession(3000, 'gbp', 'ord_retry');
 		expect(await control.idle()).toBe(true);
 		const [completed] = (await control.events('checkout.session.completed')).filter(
-			(e) => (e.data.object as Stripe.Checkout.Session).metadata?.orderId === 'ord_retry'
+			(e) => (e.data.object as unknown as Stripe.Checkout.Session).metadata?.orderId === 'ord_retry'
 		);
 		const deliveries = completed.deliveries;
 		expect(received.filter((r) => r.status === 500)).toHaveLength(2);
@@ -604,5 +607,34 @@ describe('faults', () => {
 		const started = Date.now();
 		await stripe.balance.retrieve();
 		expect(Date.now() - started).toBeGreaterThanOrEqual(190);
+	});
+});
+
+describe('state that outlives a restart', () => {
+	it('keeps objects, balances and idempotent answers in the state file', async () => {
+		const dir = mkdtempSync(join(tmpdir(), 'tackline-stripe-'));
+		const stateFile = join(dir, 'stripe.json');
+		const open = (secretKey?: string) => startStripeStandin({ port: 0, stateFile, secretKey });
+		try {
+			const first = await open();
+			const client = (s: StripeStandin) =>
+				new Stripe(s.secretKey, { host: '127.0.0.1', port: s.port, protocol: 'http', maxNetworkRetries: 0 });
+			const customer = await client(first).customers.create({ email: 'kept@example.test' }, { idempotencyKey: 'k1' });
+			await first.stop();
+			const second = await open(first.secretKey);
+			try {
+				expect((await client(second).customers.retrieve(customer.id)) as Stripe.Customer).toMatchObject({
+					email: 'kept@example.test'
+				});
+				const again = await client(second).customers.create({ email: 'kept@example.test' }, { idempotencyKey: 'k1' });
+				expect(again.id).toBe(customer.id);
+				const later = await client(second).customers.create({ email: 'new@example.test' });
+				expect((await client(second).customers.list()).data.map((c) => c.id)).toEqual([later.id, customer.id]);
+			} finally {
+				await second.stop();
+			}
+		} finally {
+			rmSync(dir, { recursive: true, force: true });
+		}
 	});
 });

@@ -18,6 +18,7 @@
  *   POST   /__standin/reset             forget every object, event, key and fault
  */
 import { randomBytes } from 'node:crypto';
+import { existsSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
 import { createServer, type IncomingMessage, type ServerResponse } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { decodeForm, FormDecodeError, type FormObject } from './stripe-form';
@@ -64,6 +65,12 @@ export type StripeStandinOptions = {
 	webhookRetryBaseMs?: number;
 	webhookMaxAttempts?: number;
 	availabilityDelaySeconds?: number;
+	/** The signing secret for endpoints added by `setWebhookUrl` (a fresh `whsec_…` by default). */
+	webhookSecret?: string;
+	/** Loads this file at start if it exists, and keeps it up to date: state that outlives a restart. */
+	stateFile?: string;
+	/** Loads this file at start without writing to it: a copy of another stand-in's state (tests). */
+	initialStateFile?: string;
 };
 
 type Stored = { fingerprint: string; status: number; body: string };
@@ -108,6 +115,7 @@ export async function startStripeStandin(options: StripeStandinOptions = {}) {
 	let idempotency = new Map<string, Stored>();
 	const inProgress = new Set<string>();
 	const publicUrl = () => `http://${host}:${port}`;
+	const defaultWebhookSecret = options.webhookSecret ?? newWebhookSecret();
 
 	const dispatcher = new WebhookDispatcher({
 		endpoints: options.webhooks ?? [],
@@ -122,6 +130,26 @@ export async function startStripeStandin(options: StripeStandinOptions = {}) {
 		// After the answer that caused it is on its way, as Stripe sends webhooks asynchronously.
 		onEvent: (event) => void setImmediate(() => dispatcher.dispatch(event))
 	});
+
+	const loadFrom = [options.stateFile, options.initialStateFile].find((f) => f && existsSync(f));
+	if (loadFrom) {
+		const state = JSON.parse(readFileSync(loadFrom, 'utf8')) as { store: unknown; idempotency: [string, Stored][] };
+		store.restore(state.store);
+		idempotency = new Map(state.idempotency);
+	}
+	const snapshot = () => JSON.stringify({ store: store.snapshot(), idempotency: [...idempotency] });
+	let saveTimer: NodeJS.Timeout | null = null;
+	function saveNow() {
+		if (saveTimer) clearTimeout(saveTimer);
+		saveTimer = null;
+		if (!options.stateFile) return;
+		writeFileSync(`${options.stateFile}.tmp`, snapshot(), { mode: 0o600 });
+		renameSync(`${options.stateFile}.tmp`, options.stateFile);
+	}
+	/** After anything that may change state; written a moment later so bursts are written once. */
+	function scheduleSave() {
+		if (options.stateFile && !saveTimer) saveTimer = setTimeout(saveNow, 250);
+	}
 
 	const onlyPlatform = (context: { account: string | null }) => {
 		if (context.account)
@@ -237,12 +265,12 @@ export async function startStripeStandin(options: StripeStandinOptions = {}) {
 		if (idemKey) headers['idempotency-key'] = idemKey;
 		const send = (status: number, body: string, extra: Record<string, string> = {}) =>
 			res.writeHead(status, { ...headers, ...extra }).end(body);
-		const noRetry = (status: number) =>
+		const noRetry = (status: number): Record<string, string> =>
 			status >= 400 && status < 500 && status !== 409 && status !== 429 ? { 'stripe-should-retry': 'false' } : {};
 		const sendError = (error: StripeApiError) =>
 			send(error.status, JSON.stringify(error.body(), null, 2), noRetry(error.status));
 
-		let raw = '';
+		let raw: string;
 		try {
 			authorise(req);
 			raw = method === 'POST' ? await readRaw(req) : '';
@@ -371,9 +399,7 @@ export async function startStripeStandin(options: StripeStandinOptions = {}) {
 		} catch {
 			return html(404, messagePage('Checkout not found', 'There is no checkout at this address.', 'alert'));
 		}
-		const customerEmail =
-			(session.customer_email as string | null) ??
-			(session.customer ? ((store.byId(session.customer as string)?.email as string | null) ?? null) : null);
+		const customerEmail = store.sessionEmail(session);
 		if (req.method === 'POST') {
 			const form = new URLSearchParams(await readRaw(req, 64 * 1024));
 			const card = form.get('card') ?? '';
@@ -524,6 +550,7 @@ export async function startStripeStandin(options: StripeStandinOptions = {}) {
 	const server = createServer((req, res) => {
 		const url = new URL(req.url ?? '/', `http://${host}`);
 		const path = url.pathname;
+		if (req.method !== 'GET' && req.method !== 'HEAD') res.on('finish', scheduleSave);
 		const fail = (error: unknown) => {
 			if (res.headersSent) return res.destroy();
 			const status = error instanceof HttpJsonError || error instanceof StripeApiError ? error.status : 500;
@@ -556,7 +583,7 @@ export async function startStripeStandin(options: StripeStandinOptions = {}) {
 	}
 	await start();
 
-	const firstSecret = () => dispatcher.endpoints[0]?.secret ?? '';
+	const firstSecret = () => dispatcher.endpoints[0]?.secret ?? defaultWebhookSecret;
 	return {
 		get port() {
 			return port;
@@ -581,8 +608,17 @@ export async function startStripeStandin(options: StripeStandinOptions = {}) {
 		setWebhooks(endpoints: WebhookEndpoint[]) {
 			dispatcher.endpoints = endpoints;
 		},
+		/** Sends every event to this URL, signed with the stand-in's webhook secret (`env.STRIPE_WEBHOOK_SECRET`). */
+		setWebhookUrl(url: string) {
+			dispatcher.endpoints = [{ url, secret: defaultWebhookSecret }];
+		},
+		/** Writes the whole state to a file, for another stand-in to start from (`initialStateFile`). */
+		saveState(file: string) {
+			writeFileSync(file, snapshot(), { mode: 0o600 });
+		},
 		stop: () =>
 			new Promise<void>((resolve) => {
+				saveNow();
 				dispatcher.reset();
 				server.close(() => resolve());
 				server.closeAllConnections();
@@ -595,4 +631,6 @@ export async function startStripeStandin(options: StripeStandinOptions = {}) {
 export type StripeStandin = Awaited<ReturnType<typeof startStripeStandin>>;
 
 /** A signing secret in Stripe's format, for a webhook endpoint. */
-export const newWebhookSecret = () => `whsec_${randomBytes(24).toString('base64url')}`;
+export function newWebhookSecret(): string {
+	return `whsec_${randomBytes(24).toString('base64url')}`;
+}
