@@ -395,7 +395,11 @@ export class StripeStore {
 		if (limit < 1 || limit > 100)
 			throw invalid('Limit must be between 1 and 100.', 'limit', 'parameter_invalid_integer');
 		let items = this.all(object, filter);
-		const created = obj(params, 'created');
+		if (typeof params.created === 'string') {
+			const exact = int(params, 'created');
+			items = items.filter((o) => o.created === exact);
+		}
+		const created = typeof params.created === 'string' ? undefined : obj(params, 'created');
 		if (created) {
 			for (const [op, v] of Object.entries(created)) {
 				const n = Number(v);
@@ -964,6 +968,15 @@ export class StripeStore {
 			} satisfies StripeObject;
 		});
 		const total = items.reduce((sum, i) => sum + i.amount_total, 0);
+		// Stripe's three-decimal currencies charge whole tens of the minor unit.
+		if (currency && ['bhd', 'jod', 'kwd', 'omr', 'tnd'].includes(currency) && total % 10 !== 0)
+			throw invalid(
+				`Amounts in ${(currency as string).toUpperCase()} must end in 0 (whole tens of the minor unit).`,
+				'line_items',
+				'invalid_amount'
+			);
+		if (total < 1)
+			throw invalid('The Checkout Session total must be greater than zero.', 'line_items', 'amount_too_small');
 		const pid = obj(params, 'payment_intent_data') ?? {};
 		checkParams(pid, [
 			'transfer_group',

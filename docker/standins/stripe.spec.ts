@@ -337,6 +337,30 @@ describe('Checkout and the hosted payment page', () => {
 		]);
 	});
 
+	it('refuses a three-decimal amount that does not end in 0, and an empty total', async () => {
+		const session = (unit_amount: number, currency: string) =>
+			stripe.checkout.sessions
+				.create({
+					mode: 'payment',
+					line_items: [{ quantity: 1, price_data: { currency, unit_amount, product_data: { name: 'Coat' } } }],
+					success_url: 'http://localhost:3000/ok'
+				})
+				.catch((e: unknown) => e);
+		expect(await session(12345, 'kwd')).toMatchObject({ statusCode: 400, param: 'line_items' });
+		expect(await session(12340, 'kwd')).toMatchObject({
+			object: 'checkout.session',
+			amount_total: 12340,
+			currency: 'kwd'
+		});
+		expect(await session(0, 'usd')).toMatchObject({ statusCode: 400, code: 'amount_too_small' });
+		expect(await session(1000, 'usd')).toMatchObject({ status: 'open' });
+		expect(
+			await stripe.checkout.sessions
+				.create({ mode: 'payment', success_url: 'http://localhost:3000/ok' })
+				.catch((e: unknown) => e)
+		).toMatchObject({ statusCode: 400, code: 'parameter_missing', param: 'line_items' });
+	});
+
 	it('expires an open session and refuses to expire it again', async () => {
 		const session = await stripe.checkout.sessions.create({
 			mode: 'payment',

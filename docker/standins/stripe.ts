@@ -508,6 +508,8 @@ export async function startStripeStandin(options: StripeStandinOptions = {}) {
 		if (path === '/deliveries') return [200, { deliveries: dispatcher.deliveries }];
 		if (path === '/idle') {
 			const timeout = Number(url.searchParams.get('timeoutMs') ?? 10_000);
+			// Events are handed to the dispatcher just after the answer that caused them.
+			await new Promise((resolve) => setImmediate(resolve));
 			const settled = await Promise.race([
 				dispatcher.idle().then(() => true),
 				new Promise<boolean>((resolve) => setTimeout(() => resolve(false), timeout))
