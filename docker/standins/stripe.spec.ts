@@ -511,6 +511,42 @@ describe('idempotency', () => {
 	});
 });
 
+describe('concurrency and reading back', () => {
+	it('makes one transfer from twenty parallel requests with the same key', async () => {
+		const account = await onboardedAccount('parallel@workroom.test');
+		const { charge } = await paidSession(7000, 'gbp', 'ord_parallel');
+		const params = {
+			amount: 6000,
+			currency: 'gbp',
+			destination: account.id,
+			source_transaction: charge.id,
+			transfer_group: 'ord_parallel'
+		};
+		const results = await Promise.all(
+			Array.from({ length: 20 }, () => stripe.transfers.create(params, { idempotencyKey: 'release:ord_parallel' }))
+		);
+		expect(new Set(results.map((t) => t.id)).size).toBe(1);
+		expect((await stripe.transfers.list({ transfer_group: 'ord_parallel' })).data).toHaveLength(1);
+		expect(balanceOf(await stripe.balance.retrieve({}, { stripeAccount: account.id }), 'gbp').available).toBe(6000);
+	});
+
+	it('pages lists, expands inside them and lists events by type', async () => {
+		await paidSession(1100, 'eur', 'ord_list_a');
+		await paidSession(1200, 'eur', 'ord_list_b');
+		const page = await stripe.paymentIntents.list({ limit: 1, expand: ['data.latest_charge'] });
+		expect(page).toMatchObject({ object: 'list', has_more: true, url: '/v1/payment_intents' });
+		expect((page.data[0].latest_charge as Stripe.Charge).object).toBe('charge');
+		expect(page.data[0].amount).toBe(1200);
+		const next = await stripe.paymentIntents.list({ limit: 1, starting_after: page.data[0].id });
+		expect(next.data[0].amount).toBe(1100);
+		const events = await stripe.events.list({ type: 'checkout.session.completed', limit: 2 });
+		expect(events.data.map((e) => (e.data.object as Stripe.Checkout.Session).metadata?.orderId)).toEqual([
+			'ord_list_b',
+			'ord_list_a'
+		]);
+	});
+});
+
 describe('webhooks', () => {
 	it('signs each event so constructEvent verifies it, and the wrong secret does not', async () => {
 		received.length = 0;
