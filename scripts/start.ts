@@ -24,6 +24,7 @@ const devTools = dev || process.env.TACKLINE_DEV_TOOLS === '1';
 const host = process.env.HOST ?? '127.0.0.1';
 const dataDir = join(root, '.data');
 const port = Number(process.env.PORT ?? (dev ? 5173 : 3000));
+const origin = `http://localhost:${port}`;
 
 const database = await startDatabase({
 	dataDir: join(dataDir, 'pg', 'data'),
@@ -37,16 +38,23 @@ const standins = await startStandins(
 		smtp: Number(process.env.TACKLINE_SMTP_PORT ?? 2525),
 		mailApi: Number(process.env.TACKLINE_MAIL_API_PORT ?? 2526),
 		s3: Number(process.env.TACKLINE_S3_PORT ?? 2527),
-		search: Number(process.env.TACKLINE_SEARCH_PORT ?? 7701)
+		search: Number(process.env.TACKLINE_SEARCH_PORT ?? 7701),
+		stripe: Number(process.env.TACKLINE_STRIPE_PORT ?? 2528)
 	},
-	{ s3DataDir: join(dataDir, 's3') }
+	{
+		s3DataDir: join(dataDir, 's3'),
+		// Payments made in the demo outlive a restart, as the database that refers to them does.
+		stripeStateFile: join(dataDir, 'stripe.json'),
+		stripeWebhookUrl: `${origin}/api/v1/webhooks/stripe`,
+		stripeWebhookSecret: `whsec_${persistentSecret(dataDir, 'stripe-webhook-secret')}`,
+		stripeSecretKey: `sk_test_${persistentSecret(dataDir, 'stripe-secret-key')}`
+	}
 );
 // The seed stores demo photos in the S3 stand-in, so it runs once the stand-ins are up.
 Object.assign(process.env, standins.env);
 await migrateAndSeed(database.url, { seed: true });
 if (!dev) await buildIfNeeded({ devTools });
 
-const origin = `http://localhost:${port}`;
 const server = startServer(
 	{
 		...standins.env,

@@ -111,10 +111,14 @@ async function main() {
 	// The seed stores demo photos in the S3 stand-in, shared by every test file.
 	Object.assign(process.env, standins.env);
 	await migrateAndSeed(database.url, { seed: true });
+	// Each integration file's Stripe stand-in starts from what the seed left in the shared one.
+	const stripeSeedState = join(work, 'stripe-seed.json');
+	standins.stripe.saveState(stripeSeedState);
 
 	const env: Record<string, string> = {
 		...standins.env,
 		TACKLINE_TEMPLATE_DATABASE_URL: database.url,
+		TACKLINE_STRIPE_SEED_STATE: stripeSeedState,
 		AUTH_SECRET: randomBytes(32).toString('base64url'),
 		AUTH_TRUST_HOST: 'true',
 		// Tests present each client as its own address, so per-address sign-in limits stay apart.
@@ -153,6 +157,7 @@ async function main() {
 		TACKLINE_BASE_URL: baseUrl,
 		BODY_SIZE_LIMIT: uploadBodySizeLimit
 	};
+	standins.stripe.setWebhookUrl(`${baseUrl}/api/v1/webhooks/stripe`);
 	const server = startServer(browserEnv);
 	cleanups.unshift(() => stopProcess(server));
 	await waitForHealth(baseUrl);

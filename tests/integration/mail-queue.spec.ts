@@ -34,7 +34,7 @@ describe('mail through the job queue', () => {
 		const text = await health.text();
 		expect(JSON.parse(text)).toEqual({
 			status: 'degraded',
-			checks: { database: 'ok', mail: 'degraded', queue: 'ok', storage: 'ok', search: 'ok' }
+			checks: { database: 'ok', mail: 'degraded', queue: 'ok', storage: 'ok', search: 'ok', payments: 'ok' }
 		});
 		expect(text).not.toMatch(/ECONN|127\.0\.0\.1|refused/i);
 
