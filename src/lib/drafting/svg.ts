@@ -121,9 +121,10 @@ function foldMarker(box: Box, size: number): string {
 }
 
 export function cutText(cut: DraftPiece['cut']): string {
-	if (cut.onFold) return `Cut ${cut.quantity} on fold`;
-	if (cut.pair) return `Cut ${cut.quantity} (${cut.quantity / 2 === 1 ? 'a pair' : `${cut.quantity / 2} pairs`})`;
-	return `Cut ${cut.quantity}`;
+	const from = cut.cloth === 'lining' ? ' in lining' : '';
+	if (cut.onFold) return `Cut ${cut.quantity} on fold${from}`;
+	if (cut.pair) return `Cut ${cut.quantity} (${cut.quantity / 2 === 1 ? 'a pair' : `${cut.quantity / 2} pairs`})${from}`;
+	return `Cut ${cut.quantity}${from}`;
 }
 
 /** Piece name and cut instruction where no dimension, guide or grainline runs through them. */
