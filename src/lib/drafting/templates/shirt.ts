@@ -469,7 +469,8 @@ function collarPieces(net: ShirtNet): DraftPiece[] {
 				{ id: 'collar_size', label: 'Collar size (centre front to centre front)', mm: 2 * centreFront },
 				{ id: 'stand_height', label: 'Stand height', mm: standHeight }
 			],
-			grainline: [pt(f.standLength * 0.3, standHeight / 2), pt(f.standLength * 0.7, standHeight / 2)]
+			// Grain parallel to the centre back, which lies on the fold (the usual shirt collar cut).
+			grainline: [pt(f.standLength * 0.5, standHeight * 0.2), pt(f.standLength * 0.5, standHeight * 0.8)]
 		},
 		{
 			id: 'collar',
@@ -481,7 +482,7 @@ function collarPieces(net: ShirtNet): DraftPiece[] {
 				{ id: 'stand_seam', label: 'Seam to the stand, centre back to centre front', mm: collarSeam },
 				{ id: 'collar_depth', label: 'Collar depth at the centre back', mm: collarDepth }
 			],
-			grainline: [pt(collarSeam * 0.3, collarDepth / 2), pt(collarSeam * 0.7, collarDepth / 2)]
+			grainline: [pt(collarSeam * 0.5, collarDepth * 0.2), pt(collarSeam * 0.5, collarDepth * 0.8)]
 		}
 	];
 }

@@ -1,3 +1,4 @@
+import type { Point } from '../geometry';
 import type { Measurements } from '../measurements';
 import { resolveOptions } from '../options';
 import type { TemplateDraft } from '../pieces';
@@ -58,3 +59,52 @@ export const standardBodyCm = {
 	waist_to_floor: 104,
 	arm_length: 58
 } as const;
+
+/** Distance from a point to the nearest edge of a closed outline. */
+export function distanceToOutline(p: Point, outline: readonly Point[]): number {
+	let best = Infinity;
+	outline.forEach((a, i) => {
+		const b = outline[(i + 1) % outline.length];
+		const length2 = (b.x - a.x) ** 2 + (b.y - a.y) ** 2;
+		const t = length2 ? Math.min(1, Math.max(0, ((p.x - a.x) * (b.x - a.x) + (p.y - a.y) * (b.y - a.y)) / length2)) : 0;
+		best = Math.min(best, Math.hypot(p.x - (a.x + t * (b.x - a.x)), p.y - (a.y + t * (b.y - a.y))));
+	});
+	return best;
+}
+
+/** Where a closed outline crosses the horizontal line at `y`: its least and greatest x there. */
+export function spanAt(outline: readonly Point[], y: number): { min: number; max: number } {
+	const xs: number[] = [];
+	outline.forEach((a, i) => {
+		const b = outline[(i + 1) % outline.length];
+		if (a.y <= y !== b.y <= y) xs.push(a.x + ((y - a.y) * (b.x - a.x)) / (b.y - a.y));
+	});
+	return { min: Math.min(...xs), max: Math.max(...xs) };
+}
+
+/** Points along an edge at least `clear` mm from both of its ends (corners are mitred, not offset). */
+export function sampleAlong(points: readonly Point[], clear: number, step = 5): Point[] {
+	const samples: Point[] = [];
+	let travelled = 0;
+	const total = points.slice(1).reduce((sum, p, i) => sum + Math.hypot(p.x - points[i].x, p.y - points[i].y), 0);
+	for (let i = 1; i < points.length; i++) {
+		const a = points[i - 1];
+		const b = points[i];
+		const length = Math.hypot(b.x - a.x, b.y - a.y);
+		for (let d = 0; d < length; d += step) {
+			const at = travelled + d;
+			if (at > clear && at < total - clear)
+				samples.push({ x: a.x + ((b.x - a.x) * d) / length, y: a.y + ((b.y - a.y) * d) / length });
+		}
+		travelled += length;
+	}
+	return samples;
+}
+
+/** Template options resolved for a body given in cm, as the draft would use them (lengths in mm). */
+export function resolvedFor(template: GarmentTemplate, bodyCm: Measurements, options: Record<string, OptionValue> = {}) {
+	const body = Object.fromEntries(Object.entries(bodyCm).map(([code, value]) => [code, toMm(value, 'cm')]));
+	const resolved = resolveOptions(template, options, body, 'cm');
+	if (resolved.errors.length) throw new Error(resolved.errors.map((e) => e.message).join('; '));
+	return { body, options: resolved.options };
+}
