@@ -228,7 +228,8 @@ export function pieceLayout(piece: DraftPiece, unit: Unit): PieceDrawingLayout {
 	let layout = layoutAt(piece, unit, Math.max(Math.max(box.width, box.height) / 36, 6));
 	for (let i = 0; i < 8 && layout.labels.length; i++) {
 		const px = layout.labels[0].fontSize * phoneScale(layout.view);
-		if (px >= minLabelPx) break;
+		// 1 % in hand: the drawing writes sizes and its view box to a tenth of a unit.
+		if (px >= minLabelPx * 1.01) break;
 		layout = layoutAt(piece, unit, layout.size * (minLabelPx / px) * 1.02);
 	}
 	return layout;

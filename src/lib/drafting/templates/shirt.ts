@@ -47,6 +47,8 @@ const buttonSpacing = 90;
 const buttonholeLength = 14;
 /** A hand passes through about 22 cm when slid in (from memory); a closed cuffless sleeve end needs that. */
 const handPassage = 220;
+/** The least biceps ease a set-in sleeve should have (Threads, "Set-in sleeve solutions", 2021). */
+const minimumBicepsEase = inch(2);
 
 export interface ShirtNet {
 	front: NetEdge[];
@@ -487,11 +489,11 @@ function collarPieces(net: ShirtNet): DraftPiece[] {
 	];
 }
 
-function shirtWarnings(net: ShirtNet, body: BodyMm, fit: keyof typeof bicepsEase): Finding[] {
+function shirtWarnings(net: ShirtNet, body: BodyMm): Finding[] {
 	const f = net.figures;
 	const warnings: Finding[] = [];
 	const arm = body.upper_arm_girth;
-	if (arm !== undefined && f.biceps < arm + bicepsEase[fit] - 1) {
+	if (arm !== undefined && f.biceps < arm + minimumBicepsEase - 0.5) {
 		warnings.push({
 			code: 'unusual_relation',
 			fields: ['upper_arm_girth', 'bust_girth'],
@@ -572,7 +574,7 @@ export const shirt: GarmentTemplate = {
 				'Buttonholes on the right front and the stand for a woman’s shirt, on the left front for a man’s.'
 			],
 			cautions: [],
-			warnings: shirtWarnings(net, body, fitOf(options))
+			warnings: shirtWarnings(net, body)
 		};
 	}
 };

@@ -82,21 +82,31 @@ export function spanAt(outline: readonly Point[], y: number): { min: number; max
 	return { min: Math.min(...xs), max: Math.max(...xs) };
 }
 
-/** Points along an edge at least `clear` mm from both of its ends (corners are mitred, not offset). */
+/**
+ * Points along an edge at least `clear` mm from both of its ends and from any sharp turn in it (more than
+ * 10°): at corners the allowances are mitred, so the cutting line lies further out there, not at the allowance.
+ */
 export function sampleAlong(points: readonly Point[], clear: number, step = 5): Point[] {
+	const along: number[] = [0];
+	for (let i = 1; i < points.length; i++)
+		along.push(along[i - 1] + Math.hypot(points[i].x - points[i - 1].x, points[i].y - points[i - 1].y));
+	const total = along[along.length - 1];
+	const corners = [0, total];
+	for (let i = 1; i < points.length - 1; i++) {
+		const a = Math.atan2(points[i].y - points[i - 1].y, points[i].x - points[i - 1].x);
+		const b = Math.atan2(points[i + 1].y - points[i].y, points[i + 1].x - points[i].x);
+		const turn = Math.abs(((b - a + 3 * Math.PI) % (2 * Math.PI)) - Math.PI);
+		if (turn > Math.PI / 18) corners.push(along[i]);
+	}
 	const samples: Point[] = [];
-	let travelled = 0;
-	const total = points.slice(1).reduce((sum, p, i) => sum + Math.hypot(p.x - points[i].x, p.y - points[i].y), 0);
 	for (let i = 1; i < points.length; i++) {
 		const a = points[i - 1];
 		const b = points[i];
-		const length = Math.hypot(b.x - a.x, b.y - a.y);
+		const length = along[i] - along[i - 1];
 		for (let d = 0; d < length; d += step) {
-			const at = travelled + d;
-			if (at > clear && at < total - clear)
-				samples.push({ x: a.x + ((b.x - a.x) * d) / length, y: a.y + ((b.y - a.y) * d) / length });
+			if (corners.some((c) => Math.abs(along[i - 1] + d - c) < clear)) continue;
+			samples.push({ x: a.x + ((b.x - a.x) * d) / length, y: a.y + ((b.y - a.y) * d) / length });
 		}
-		travelled += length;
 	}
 	return samples;
 }

@@ -199,14 +199,19 @@ export function waistcoatNet(body: BodyMm, options: ResolvedOptions): WaistcoatN
 	];
 
 	// Lower welt pocket parallel to the hem, clear of the facing; breast pocket above the chest line.
+	const along = (from: Point, length: number, rise: number): [Point, Point] => {
+		const angle = Math.atan(rise);
+		return [from, pt(from.x + length * Math.cos(angle), from.y - length * Math.sin(angle))];
+	};
 	const slope = (pointY - hemY) / (hemWidth - point.x);
-	const lowerStart = pt(waistcoatFacingWidth + 15, waistY + 45);
-	const lowerMouth = Math.min(num(options, 'pocketMouth'), hemWidth - lowerStart.x - 30);
-	const lowerPocket: [Point, Point] = [lowerStart, pt(lowerStart.x + lowerMouth, lowerStart.y - slope * lowerMouth)];
-	const breastStart = pt(Math.max(quarterChest * 0.35, waistcoatFacingWidth + 20), scyeY - 20);
-	const breast = Math.min(breastMouth, quarterChest - 40 - breastStart.x);
+	const lowerStart = pt(waistcoatFacingWidth + 10, waistY + 45);
+	const lowerMouth = Math.min(num(options, 'pocketMouth'), (hemWidth - lowerStart.x - 20) * Math.cos(Math.atan(slope)));
+	const lowerPocket = along(lowerStart, lowerMouth, slope);
+	// The breast pocket sits below the dropped underarm line (about the chest line), clear of the armhole, rising 1 in 9.
+	const breastEnd = quarterChest - 35;
+	const breast = Math.min(breastMouth, breastEnd - waistcoatFacingWidth - 15);
 	const breastPocket: [Point, Point] | null =
-		options.breastPocket === true ? [breastStart, pt(breastStart.x + breast, breastStart.y - 10)] : null;
+		options.breastPocket === true ? along(pt(breastEnd - breast, scyeY + 35), breast, 1 / 9) : null;
 
 	const count = Number(options.buttons);
 	const first = openingDepth + 15;
