@@ -85,6 +85,8 @@ export class DraftCalculator {
 	optionTexts = $state<Texts>({});
 	fit = $state('regular');
 	switches = $state<Record<string, boolean>>({});
+	/** Choice options other than the fit (a waistcoat's button count), as chosen. */
+	choices = $state<Record<string, string>>({});
 	widthIndex = $state(1);
 	folded = $state(true);
 	directional = $state(false);
@@ -122,7 +124,7 @@ export class DraftCalculator {
 			garment: this.garment,
 			unit: this.unit,
 			bodyMm,
-			optionsMm: { ...this.metricDefaults, ...this.options.mm, fit: this.fit, ...this.switches },
+			optionsMm: { ...this.metricDefaults, ...this.options.mm, fit: this.fit, ...this.choices, ...this.switches },
 			fabric: {
 				widthMm: toMm(this.widthPresets[this.widthIndex], this.unit),
 				folded: this.folded,
@@ -174,6 +176,7 @@ export class DraftCalculator {
 		this.garment = next;
 		this.optionTexts = {};
 		this.switches = {};
+		this.choices = {};
 	}
 
 	/** The worked example in the unit and on the cloth already chosen. */

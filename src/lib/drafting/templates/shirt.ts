@@ -375,7 +375,6 @@ function bodyPiece(which: 'front' | 'back', net: ShirtNet): DraftPiece {
 			{ id: 'dart_intake', label: 'Bust dart intake', mm: f.dartIntake },
 			{ id: 'button_extension', label: 'Button extension beyond centre front', mm: buttonExtension },
 			{ id: 'facing_width', label: 'Grown-on facing width', mm: frontFacingWidth },
-			{ id: 'buttons', label: 'Buttons down the front (and one on the stand)', mm: f.buttons.length },
 			{
 				id: 'button_spacing',
 				label: 'Button spacing',
@@ -571,7 +570,7 @@ export const shirt: GarmentTemplate = {
 				'Cut the back on the fold and the fronts as a pair; the front facing is cut in one with each front and folds back at the front edge.',
 				'Interface the collar stand, the collar and the grown-on facings.',
 				'Sew the bust darts and shoulders, set the sleeves (ease the head between the notches), then sew the side and underarm seams in one.',
-				'Buttonholes on the right front and the stand for a woman’s shirt, on the left front for a man’s.'
+				`${f.buttons.length} buttons down the front and one on the stand; buttonholes on the right front for a woman’s shirt, on the left for a man’s.`
 			],
 			cautions: [],
 			warnings: shirtWarnings(net, body)

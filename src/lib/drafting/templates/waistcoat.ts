@@ -345,7 +345,7 @@ function waistcoatPieces(net: WaistcoatNet, backInLining: boolean): DraftPiece[]
 				{ id: 'opening_depth', label: 'V opening, neck-point line to the top button', mm: f.openingDepth },
 				{ id: 'front_edges', label: 'Front edges, neck point to the front point (seam line)', mm: frontEdges },
 				{ id: 'armhole_seam', label: 'Front armhole seam', mm: lengthOf(net.front, 'armhole') },
-				{ id: 'buttons', label: 'Buttons', mm: f.buttons.length },
+				{ id: 'button_spacing', label: 'Button spacing', mm: f.buttons[1] - f.buttons[0] },
 				{
 					id: 'piece_length',
 					label: 'Piece length with seams',
@@ -519,7 +519,7 @@ export const waistcoat: GarmentTemplate = {
 					' in lining.',
 				'Interface the fronts and the welts. Make the welt pockets where marked before joining the facing.',
 				'Sew each front facing to its front lining, then bag the waistcoat out: front edges, hem, neck and armholes, and turn through the side seams.',
-				'Buttonholes on the left front for a man’s waistcoat, on the right for a woman’s.'
+				`${f.buttons.length} buttons; buttonholes on the left front for a man’s waistcoat, on the right for a woman’s.`
 			],
 			cautions: [],
 			warnings: waistcoatWarnings(net)
