@@ -123,7 +123,8 @@ function foldMarker(box: Box, size: number): string {
 export function cutText(cut: DraftPiece['cut']): string {
 	const from = cut.cloth === 'lining' ? ' in lining' : '';
 	if (cut.onFold) return `Cut ${cut.quantity} on fold${from}`;
-	if (cut.pair) return `Cut ${cut.quantity} (${cut.quantity / 2 === 1 ? 'a pair' : `${cut.quantity / 2} pairs`})${from}`;
+	if (cut.pair)
+		return `Cut ${cut.quantity} (${cut.quantity / 2 === 1 ? 'a pair' : `${cut.quantity / 2} pairs`})${from}`;
 	return `Cut ${cut.quantity}${from}`;
 }
 

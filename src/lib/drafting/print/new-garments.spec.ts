@@ -39,7 +39,9 @@ const cases: Array<{ garment: DraftRequest['garment']; texts: string[] }> = [
 describe('full-size pattern PDF for the shirt and the waistcoat', { timeout: 30_000 }, () => {
 	it.each(cases)('$garment: one 36 in roll page naming every piece and its cut', async ({ garment, texts }) => {
 		const measurements = Object.fromEntries(
-			Object.entries(body).filter(([code]) => garment === 'shirt' || !/bust_point|upper_arm|arm_length|under_bust/.test(code))
+			Object.entries(body).filter(
+				([code]) => garment === 'shirt' || !/bust_point|upper_arm|arm_length|under_bust/.test(code)
+			)
 		);
 		const result = await patternPdfForRequest({ garment, unit: 'cm', measurements }, 'roll36');
 		if (!result.ok) throw new Error(result.draft.errors.map((e) => e.message).join('; '));

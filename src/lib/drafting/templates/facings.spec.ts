@@ -15,12 +15,17 @@ describe('facings', () => {
 			const draft = draftIn(template, 'cm', standardBodyCm);
 			const facings = draft.pieces.filter((p) => /facing/i.test(p.label));
 			// A grown-on facing is part of its piece, marked by the fold it turns back on.
-			const grownOn = draft.pieces.filter((p) => p.marks.some((m) => m.kind === 'fold' && /facing/i.test(m.label ?? '')));
+			const grownOn = draft.pieces.filter((p) =>
+				p.marks.some((m) => m.kind === 'fold' && /facing/i.test(m.label ?? ''))
+			);
 			if (!facings.length) {
 				expect(grownOn.length, template.id).toBeGreaterThan(0);
 				continue;
 			}
-			expect(facings.reduce((sum, p) => sum + p.cut.quantity, 0), template.id).toBeGreaterThanOrEqual(2);
+			expect(
+				facings.reduce((sum, p) => sum + p.cut.quantity, 0),
+				template.id
+			).toBeGreaterThanOrEqual(2);
 			const { estimate } = estimateFabric(draft.pieces, defaultFabricSpec('cm'), 'cm');
 			for (const facing of facings) {
 				expect(

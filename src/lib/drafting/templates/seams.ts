@@ -27,9 +27,7 @@ export function cubicCurve(from: Point, c1: Point, c2: Point, to: Point, segment
 		const b = 3 * u * u * t;
 		const c = 3 * u * t * t;
 		const d = t * t * t;
-		points.push(
-			pt(a * from.x + b * c1.x + c * c2.x + d * to.x, a * from.y + b * c1.y + c * c2.y + d * to.y)
-		);
+		points.push(pt(a * from.x + b * c1.x + c * c2.x + d * to.x, a * from.y + b * c1.y + c * c2.y + d * to.y));
 	}
 	return points;
 }

@@ -3,18 +3,21 @@ import fc from 'fast-check';
 import { boundingBox, polygonArea } from '../geometry';
 import { pathLength, type NetEdge } from './seams';
 import { shirt, shirtNet } from './shirt';
-import {
-	distanceToOutline,
-	draftIn,
-	resolvedFor,
-	sampleAlong,
-	spanAt,
-	standardBodyCm
-} from './test-support';
+import { distanceToOutline, draftIn, resolvedFor, sampleAlong, spanAt, standardBodyCm } from './test-support';
 
 const inch = 25.4;
-const { stature, thigh_girth, knee_girth, ankle_girth, wrist_girth, across_back, body_rise, inside_leg, waist_to_floor, ...rest } =
-	standardBodyCm;
+const {
+	stature,
+	thigh_girth,
+	knee_girth,
+	ankle_girth,
+	wrist_girth,
+	across_back,
+	body_rise,
+	inside_leg,
+	waist_to_floor,
+	...rest
+} = standardBodyCm;
 const body = rest;
 
 const edge = (edges: NetEdge[], id: string) => edges.find((e) => e.id === id)!.points;
@@ -83,7 +86,13 @@ describe('shirt — seam allowances on every seamed edge (5/8 in default: Wikipe
 	it('puts each edge of each piece its allowance inside the cutting line (folds and the neatened facing edge on it)', () => {
 		const { net, seam, hem } = netOf();
 		const draft = draftIn(shirt, 'cm', body);
-		const pieceOf = { front: 'front', back: 'back', sleeve: 'sleeve', stand: 'collar_stand', collar: 'collar' } as const;
+		const pieceOf = {
+			front: 'front',
+			back: 'back',
+			sleeve: 'sleeve',
+			stand: 'collar_stand',
+			collar: 'collar'
+		} as const;
 		for (const [key, pieceId] of Object.entries(pieceOf)) {
 			const outline = draft.pieces.find((p) => p.id === pieceId)!.outline;
 			for (const e of net[key as keyof typeof pieceOf]) {

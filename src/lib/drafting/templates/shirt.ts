@@ -3,7 +3,7 @@ import { bicepsEase, shirtEase } from '../ease';
 import { lerp, pt, quadCurve, type Point } from '../geometry';
 import type { DraftPiece, PieceLine, PieceMark } from '../pieces';
 import { fitOf, fitOption, homeSeamAllowance, inch, lengthOption, need, num } from './common';
-import { cubicCurve, cutOutline, lengthOf, netOutline, pathLength, type NetEdge } from './seams';
+import { cubicCurve, cutOutline, lengthOf, pathLength, type NetEdge } from './seams';
 import type { BodyMm, GarmentTemplate, ResolvedOptions } from './types';
 
 /*

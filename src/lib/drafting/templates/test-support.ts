@@ -112,7 +112,11 @@ export function sampleAlong(points: readonly Point[], clear: number, step = 5): 
 }
 
 /** Template options resolved for a body given in cm, as the draft would use them (lengths in mm). */
-export function resolvedFor(template: GarmentTemplate, bodyCm: Measurements, options: Record<string, OptionValue> = {}) {
+export function resolvedFor(
+	template: GarmentTemplate,
+	bodyCm: Measurements,
+	options: Record<string, OptionValue> = {}
+) {
 	const body = Object.fromEntries(Object.entries(bodyCm).map(([code, value]) => [code, toMm(value, 'cm')]));
 	const resolved = resolveOptions(template, options, body, 'cm');
 	if (resolved.errors.length) throw new Error(resolved.errors.map((e) => e.message).join('; '));

@@ -3,14 +3,7 @@ import fc from 'fast-check';
 import { defaultFabricSpec, estimateFabric } from '../fabric';
 import { boundingBox, distance, polygonArea } from '../geometry';
 import { netOutline, pathLength, type NetEdge } from './seams';
-import {
-	distanceToOutline,
-	draftIn,
-	resolvedFor,
-	sampleAlong,
-	spanAt,
-	standardBodyCm
-} from './test-support';
+import { distanceToOutline, draftIn, resolvedFor, sampleAlong, spanAt, standardBodyCm } from './test-support';
 import { waistcoat, waistcoatNet, weltDepth } from './waistcoat';
 
 const inch = 25.4;
@@ -107,7 +100,8 @@ describe('waistcoat — bagged out: every edge carries the seam allowance', () =
 describe('waistcoat — facing and lining sewn together', () => {
 	it('cuts the facing to the front edges it is sewn to, neck point to front point', () => {
 		const { net } = netOf();
-		for (const id of ['front_point', 'front_edge', 'lapel_edge']) expect(len(net.facing, id)).toBeCloseTo(len(net.front, id), 9);
+		for (const id of ['front_point', 'front_edge', 'lapel_edge'])
+			expect(len(net.facing, id)).toBeCloseTo(len(net.front, id), 9);
 	});
 	it('cuts the front lining to the facing’s inner edge', () => {
 		const { net } = netOf();

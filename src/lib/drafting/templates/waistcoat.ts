@@ -1,9 +1,9 @@
 import type { Finding } from '../checks';
 import { waistcoatEase } from '../ease';
-import { distance, lerp, pt, quadCurve, type Point } from '../geometry';
+import { distance, pt, quadCurve, type Point } from '../geometry';
 import type { DraftPiece, PieceLine, PieceMark } from '../pieces';
 import { fitOf, fitOption, inch, lengthOption, need, num } from './common';
-import { cubicCurve, cutOutline, lengthOf, pathLength, type NetEdge } from './seams';
+import { cubicCurve, cutOutline, lengthOf, type NetEdge } from './seams';
 import type { BodyMm, GarmentTemplate, ResolvedOptions } from './types';
 
 /*
@@ -355,23 +355,15 @@ function waistcoatPieces(net: WaistcoatNet, backInLining: boolean): DraftPiece[]
 			],
 			frontMarks
 		),
-		piece(
-			'front_facing',
-			'Front facing',
-			net.facing,
-			pair(),
-			[
-				{ id: 'facing_width', label: 'Facing width', mm: waistcoatFacingWidth },
-				{
-					id: 'front_edges',
-					label: 'Front edges, neck point to the front point (seam line)',
-					mm:
-						lengthOf(net.facing, 'front_point') +
-						lengthOf(net.facing, 'front_edge') +
-						lengthOf(net.facing, 'lapel_edge')
-				}
-			]
-		),
+		piece('front_facing', 'Front facing', net.facing, pair(), [
+			{ id: 'facing_width', label: 'Facing width', mm: waistcoatFacingWidth },
+			{
+				id: 'front_edges',
+				label: 'Front edges, neck point to the front point (seam line)',
+				mm:
+					lengthOf(net.facing, 'front_point') + lengthOf(net.facing, 'front_edge') + lengthOf(net.facing, 'lapel_edge')
+			}
+		]),
 		piece('front_lining', 'Front lining', net.frontLining, pair(true), [
 			{ id: 'facing_seam', label: 'Seam to the facing', mm: lengthOf(net.frontLining, 'facing_seam') }
 		]),
@@ -454,7 +446,8 @@ function waistcoatWarnings(net: WaistcoatNet): Finding[] {
 		warnings.push({
 			code: 'unusual_relation',
 			fields: ['bust_girth', 'options.pocketMouth'],
-			message: 'The fronts are narrow for a lower welt pocket: the pocket mouth has been shortened to fit. Check it takes a hand.'
+			message:
+				'The fronts are narrow for a lower welt pocket: the pocket mouth has been shortened to fit. Check it takes a hand.'
 		});
 	}
 	return warnings;
