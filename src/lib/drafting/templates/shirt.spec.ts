@@ -221,3 +221,11 @@ describe('shirt — sleeve end and warnings', () => {
 		expect(draftIn(shirt, 'cm', body).warnings).toEqual([]);
 	});
 });
+
+describe('shirt — cautions', () => {
+	it('cautions about buttons on a small child’s shirt (height below 140 cm marks a child, as the measurement checks have it)', () => {
+		const child = { ...body, stature: 110, bust_girth: 58, under_bust_girth: 56, waist_girth: 54, hip_girth: 60 };
+		expect(draftIn(shirt, 'cm', child).cautions.map((c) => c.code)).toEqual(['child_buttons']);
+		expect(draftIn(shirt, 'cm', body).cautions).toEqual([]);
+	});
+});

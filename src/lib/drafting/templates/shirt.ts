@@ -1,7 +1,7 @@
-import type { Finding } from '../checks';
+import { isChildBody, type Finding } from '../checks';
 import { bicepsEase, shirtEase } from '../ease';
 import { lerp, pt, quadCurve, type Point } from '../geometry';
-import type { DraftPiece, PieceLine, PieceMark } from '../pieces';
+import type { Caution, DraftPiece, PieceLine, PieceMark } from '../pieces';
 import { fitOf, fitOption, homeSeamAllowance, inch, lengthOption, need, num } from './common';
 import { cubicCurve, cutOutline, lengthOf, pathLength, type NetEdge } from './seams';
 import type { BodyMm, GarmentTemplate, ResolvedOptions } from './types';
@@ -49,6 +49,13 @@ const buttonholeLength = 14;
 const handPassage = 220;
 /** The least biceps ease a set-in sleeve should have (Threads, "Set-in sleeve solutions", 2021). */
 const minimumBicepsEase = inch(2);
+
+/** Buttons on a small child's garment (common practice; local rules on small parts may apply). */
+export const childButtonCaution: Caution = {
+	code: 'child_buttons',
+	message:
+		'Buttons on a small child’s garment: sew them on through a reinforcing stay with a thread shank and check they hold under a firm pull; a button that comes off is a choking hazard for children under three. Follow your local rules on small parts.'
+};
 
 export interface ShirtNet {
 	front: NetEdge[];
@@ -572,7 +579,7 @@ export const shirt: GarmentTemplate = {
 				'Sew the bust darts and shoulders, set the sleeves (ease the head between the notches), then sew the side and underarm seams in one.',
 				`${f.buttons.length} buttons down the front and one on the stand; buttonholes on the right front for a woman’s shirt, on the left for a man’s.`
 			],
-			cautions: [],
+			cautions: isChildBody(body) ? [childButtonCaution] : [],
 			warnings: shirtWarnings(net, body)
 		};
 	}

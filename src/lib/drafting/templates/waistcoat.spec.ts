@@ -45,6 +45,14 @@ describe('waistcoat — ease from the cut pieces', () => {
 			const underarm = net.back.find((e) => e.id === 'armhole')!.points.at(-1)!;
 			// Measured where the side allowance meets the armhole's: to a hundredth of an inch.
 			expect((finishedGirth(draft, underarm.y, seam) - body.bust_girth * 10) / inch).toBeCloseTo(ease, 1);
+			// The finished figures the draft states are the cut widths less their allowances (to a millimetre at
+			// the underarm, where the side seam's allowance turns into the armhole's).
+			expect(Math.abs(draft.line('front.finished_chest') * 10 - finishedGirth(draft, underarm.y, seam))).toBeLessThan(
+				1
+			);
+			expect(
+				Math.abs(draft.line('front.finished_waist') * 10 - finishedGirth(draft, net.figures.waistY, seam))
+			).toBeLessThan(1);
 		}
 	});
 
@@ -193,5 +201,13 @@ describe('waistcoat — datums from the nape (Aldrich, Metric Pattern Cutting fo
 		expect(b).toHaveLength(6);
 		const gaps = b.slice(1).map((y, i) => y - b[i]);
 		for (const gap of gaps) expect(gap).toBeCloseTo(gaps[0], 9);
+	});
+});
+
+describe('waistcoat — cautions', () => {
+	it('cautions about buttons on a small child’s waistcoat only', () => {
+		const child = { ...body, stature: 110, bust_girth: 58, waist_girth: 54, hip_girth: 60, neck_girth: 27 };
+		expect(draftIn(waistcoat, 'cm', child).cautions.map((c) => c.code)).toEqual(['child_buttons']);
+		expect(draftIn(waistcoat, 'cm', body).cautions).toEqual([]);
 	});
 });

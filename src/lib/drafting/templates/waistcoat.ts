@@ -1,9 +1,10 @@
-import type { Finding } from '../checks';
+import { isChildBody, type Finding } from '../checks';
 import { waistcoatEase } from '../ease';
 import { distance, pt, quadCurve, type Point } from '../geometry';
 import type { DraftPiece, PieceLine, PieceMark } from '../pieces';
 import { fitOf, fitOption, inch, lengthOption, need, num } from './common';
 import { cubicCurve, cutOutline, lengthOf, type NetEdge } from './seams';
+import { childButtonCaution } from './shirt';
 import type { BodyMm, GarmentTemplate, ResolvedOptions } from './types';
 
 /*
@@ -514,7 +515,7 @@ export const waistcoat: GarmentTemplate = {
 				'Sew each front facing to its front lining, then bag the waistcoat out: front edges, hem, neck and armholes, and turn through the side seams.',
 				`${f.buttons.length} buttons; buttonholes on the left front for a man’s waistcoat, on the right for a woman’s.`
 			],
-			cautions: [],
+			cautions: isChildBody(body) ? [childButtonCaution] : [],
 			warnings: waistcoatWarnings(net)
 		};
 	}
