@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { boundingBox, polygonArea } from '../geometry';
+import { notches } from '../print/notches';
 import { pathLength, type NetEdge } from './seams';
 import { shirt, shirtNet } from './shirt';
 import { distanceToOutline, draftIn, resolvedFor, sampleAlong, spanAt, standardBodyCm } from './test-support';
@@ -227,5 +228,56 @@ describe('shirt — cautions', () => {
 		const child = { ...body, stature: 110, bust_girth: 58, under_bust_girth: 56, waist_girth: 54, hip_girth: 60 };
 		expect(draftIn(shirt, 'cm', child).cautions.map((c) => c.code)).toEqual(['child_buttons']);
 		expect(draftIn(shirt, 'cm', body).cautions).toEqual([]);
+	});
+});
+
+/** How far along a polyline, from its start, the point on it nearest `p` lies. */
+function distanceAlong(points: readonly { x: number; y: number }[], p: { x: number; y: number }): number {
+	let best = { gap: Infinity, along: 0 };
+	let travelled = 0;
+	for (let i = 1; i < points.length; i++) {
+		const a = points[i - 1];
+		const b = points[i];
+		const length = Math.hypot(b.x - a.x, b.y - a.y);
+		const t = Math.min(1, Math.max(0, ((p.x - a.x) * (b.x - a.x) + (p.y - a.y) * (b.y - a.y)) / length ** 2));
+		const gap = Math.hypot(p.x - (a.x + t * (b.x - a.x)), p.y - (a.y + t * (b.y - a.y)));
+		if (gap < best.gap) best = { gap, along: travelled + t * length };
+		travelled += length;
+	}
+	return best.along;
+}
+
+describe('shirt — balance notches for setting the sleeve (common practice: one at the front, two at the back)', () => {
+	const draft = draftIn(shirt, 'cm', body);
+	const { net } = netOf();
+	const piece = (id: string) => draft.pieces.find((p) => p.id === id)!;
+	/** Notch marks: unlabelled guides from the seam line out to the cutting line (buttonholes stay inside). */
+	const notchPoints = (id: string) =>
+		piece(id)
+			.marks.filter((m) => m.kind === 'guide' && !m.label && distanceToOutline(m.points[1], piece(id).outline) < 0.5)
+			.map((m) => m.points[0]);
+
+	it('cuts one notch into the front armhole, two into the back and three plus the crown into the sleeve head', () => {
+		const cuts = (id: string) => notches(piece(id)).length;
+		expect(notchPoints('front')).toHaveLength(1);
+		expect(notchPoints('back')).toHaveLength(2);
+		expect(notchPoints('sleeve')).toHaveLength(3);
+		// Every notch mark reaches the cutting line, where the printed pattern cuts it; the crown adds one.
+		expect(cuts('sleeve')).toBe(4);
+	});
+	it('puts each notch the same distance from the underarm on the armhole and on the sleeve head', () => {
+		const fromUnderarm = (points: { x: number; y: number }[], p: { x: number; y: number }) =>
+			pathLength(points) - distanceAlong(points, p);
+		const frontArmhole = edge(net.front, 'armhole');
+		const backArmhole = edge(net.back, 'armhole');
+		const headBack = edge(net.sleeve, 'head_back');
+		const headFront = edge(net.sleeve, 'head_front');
+		const [front] = notchPoints('front').map((p) => fromUnderarm(frontArmhole, p));
+		const back = notchPoints('back').map((p) => fromUnderarm(backArmhole, p));
+		const sleeve = notchPoints('sleeve');
+		// The back half of the head starts at its underarm; the front half ends at its own.
+		expect(distanceAlong(headBack, sleeve[0])).toBeCloseTo(back[0], 6);
+		expect(distanceAlong(headBack, sleeve[1])).toBeCloseTo(back[1], 6);
+		expect(fromUnderarm(headFront, sleeve[2])).toBeCloseTo(front, 6);
 	});
 });

@@ -333,6 +333,36 @@ export function shirtNet(body: BodyMm, options: ResolvedOptions): ShirtNet {
 
 const guide = (label: string, from: Point, to: Point): PieceMark => ({ kind: 'guide', label, points: [from, to] });
 
+/**
+ * Balance notches for setting the sleeve (common practice: one notch on the front armhole, two on the back,
+ * the same distance from the underarm on bodice and sleeve, the head's ease held between them and the crown).
+ */
+export const armholeNotches = { front: [75], back: [85, 95] } as const;
+
+/** The point `distance` along an edge from its start (or from its end), with the edge's direction there. */
+export function alongEdge(points: readonly Point[], distance: number, fromEnd = false) {
+	const run = fromEnd ? [...points].reverse() : points;
+	let left = distance;
+	for (let i = 1; i < run.length; i++) {
+		const a = run[i - 1];
+		const b = run[i];
+		const length = Math.hypot(b.x - a.x, b.y - a.y);
+		if (left <= length || i === run.length - 1) {
+			const at = lerp(a, b, Math.min(left / length, 1));
+			const sign = fromEnd ? -1 : 1;
+			return { at, dir: pt((sign * (b.x - a.x)) / length, (sign * (b.y - a.y)) / length) };
+		}
+		left -= length;
+	}
+	return { at: run[0], dir: pt(1, 0) };
+}
+
+/** A notch mark from the seam line straight out to the cutting line of a clockwise piece. */
+function notchMark(points: readonly Point[], distance: number, fromEnd: boolean, allowance: number): PieceMark {
+	const { at, dir } = alongEdge(points, distance, fromEnd);
+	return guide('', at, pt(at.x + dir.y * allowance, at.y - dir.x * allowance));
+}
+
 function bodyPiece(which: 'front' | 'back', net: ShirtNet): DraftPiece {
 	const f = net.figures;
 	const front = which === 'front';
@@ -364,11 +394,18 @@ function bodyPiece(which: 'front' | 'back', net: ShirtNet): DraftPiece {
 			dimension: { from: pt(-inch(0.8), -s), to: pt(-inch(0.8), hemY + f.hem) }
 		}
 	];
+	const armhole = edges.find((e) => e.id === 'armhole')!.points;
+	marks.push(...armholeNotches[which].map((d) => notchMark(armhole, d, true, s)));
 	if (front) {
 		const apex = pt(f.apex.x + dartShortOfApex, f.apex.y);
 		const side = net.front.find((e) => e.id === 'side')!.points;
+		// The dart legs run out to the cutting line, where they are notched.
+		const out = (p: Point) => {
+			const { dir } = alongEdge([side[0], side[3]], 0);
+			return pt(p.x + dir.y * s, p.y - dir.x * s);
+		};
 		marks.push(
-			{ kind: 'dart', label: 'bust dart', points: [side[1], apex, side[2]] },
+			{ kind: 'dart', label: 'bust dart', points: [out(side[1]), side[1], apex, side[2], out(side[2])] },
 			{
 				kind: 'fold',
 				label: 'front edge: fold the facing back',
@@ -425,6 +462,8 @@ function sleevePiece(net: ShirtNet): DraftPiece {
 		outline: cutOutline(net.sleeve),
 		marks: [
 			guide('shoulder point', pt(crownX, -s), pt(crownX, inch(1))),
+			...armholeNotches.back.map((d) => notchMark(net.sleeve[0].points, d, false, s)),
+			...armholeNotches.front.map((d) => notchMark(net.sleeve[1].points, d, true, s)),
 			guide('biceps line', pt(0, f.capHeight), pt(f.biceps, f.capHeight))
 		],
 		lines: [
