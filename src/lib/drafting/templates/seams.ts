@@ -61,8 +61,8 @@ function intersect(p: Point, d: Point, q: Point, e: Point): Point | null {
 
 /**
  * The cutting line: each edge moved out by its own allowance, neighbouring edges meeting where their
- * offset lines cross (a mitred corner, as a cutter squares off allowances), or bevelled where a sharp
- * corner would throw the mitre further than twice the larger allowance from the seam corner.
+ * offset lines cross (a mitred corner, as a cutter squares off allowances), or bevelled where a corner
+ * sharper than about 29° would throw the mitre further than four times the larger allowance from it.
  */
 export function cutOutline(edges: readonly NetEdge[]): Point[] {
 	const segments: Segment[] = [];
@@ -85,7 +85,7 @@ export function cutOutline(edges: readonly NetEdge[]): Point[] {
 	offset.forEach((s, i) => {
 		const next = offset[(i + 1) % offset.length];
 		const meet = intersect(s.a, s.d, next.a, next.d);
-		const reach = 2 * Math.max(s.allowance, next.allowance, 1);
+		const reach = 4 * Math.max(s.allowance, next.allowance, 1);
 		if (meet && distance(meet, s.corner) <= reach) cut.push(meet);
 		else if (distance(s.b, next.a) < 1e-6) cut.push(s.b);
 		else cut.push(s.b, next.a);
