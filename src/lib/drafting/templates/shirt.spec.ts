@@ -216,6 +216,18 @@ describe('shirt — datums from the nape (Aldrich, Metric Pattern Cutting for Wo
 });
 
 describe('shirt — sleeve end and warnings', () => {
+	it('keeps a short sleeve’s underseam and warns when its end would bind the upper arm', () => {
+		const short = draftIn(shirt, 'cm', body, { sleeveLength: 25, sleeveOpening: 28 });
+		const sleeve = short.pieces.find((p) => p.id === 'sleeve')!;
+		expect(short.warnings.map((w) => w.fields[0])).toEqual(['options.sleeveOpening']);
+		// Upper arm 28 cm + 1 in: a 31 cm end is clear.
+		expect(draftIn(shirt, 'cm', body, { sleeveLength: 25, sleeveOpening: 31 }).warnings).toEqual([]);
+		const stub = draftIn(shirt, 'cm', body, { sleeveLength: 10, sleeveOpening: 31 });
+		expect(stub.warnings.map((w) => w.fields[0])).toEqual(['options.sleeveLength']);
+		const cap = stub.line('sleeve.cap_height');
+		expect(stub.line('sleeve.sleeve_length')).toBeCloseTo(cap + 5, 9);
+		expect(polygonArea(sleeve.outline)).toBeGreaterThan(0);
+	});
 	it('warns when a full-length sleeve end is too narrow to pass the hand', () => {
 		const draft = draftIn(shirt, 'cm', body, { sleeveOpening: 19 });
 		expect(draft.warnings.map((w) => w.fields[0])).toContain('options.sleeveOpening');

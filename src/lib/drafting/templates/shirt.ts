@@ -47,6 +47,8 @@ const buttonSpacing = 90;
 const buttonholeLength = 14;
 /** A hand passes through about 22 cm when slid in (from memory); a closed cuffless sleeve end needs that. */
 const handPassage = 220;
+/** The shortest underseam a set-in sleeve is drafted with (common practice: a short sleeve is about 5 cm). */
+const minUnderseam = 50;
 /** The least biceps ease a set-in sleeve should have (Threads, "Set-in sleeve solutions", 2021). */
 const minimumBicepsEase = inch(2);
 
@@ -91,6 +93,7 @@ export interface ShirtFigures {
 	headEase: number;
 	biceps: number;
 	sleeveLength: number;
+	requestedSleeveLength: number;
 	sleeveOpening: number;
 	standLength: number;
 	buttons: number[];
@@ -254,7 +257,8 @@ export function shirtNet(body: BodyMm, options: ResolvedOptions): ShirtNet {
 		sleeve = sleeveFor(lo);
 	}
 	const { h, bB, bF } = sleeve;
-	const sleeveLength = num(options, 'sleeveLength');
+	// The underseam needs some length below the underarm; a sleeve shorter than that is a cap sleeve.
+	const sleeveLength = Math.max(num(options, 'sleeveLength'), h + minUnderseam);
 	const opening = num(options, 'sleeveOpening');
 	const headBack = headHalf(bB, h, false);
 	const headFront = headHalf(bF, h, true)
@@ -324,6 +328,7 @@ export function shirtNet(body: BodyMm, options: ResolvedOptions): ShirtNet {
 			headEase,
 			biceps: bB + bF,
 			sleeveLength,
+			requestedSleeveLength: num(options, 'sleeveLength'),
 			sleeveOpening: opening,
 			standLength,
 			buttons
@@ -385,7 +390,11 @@ function bodyPiece(which: 'front' | 'back', net: ShirtNet): DraftPiece {
 		{ id: 'finished_chest', label: 'Finished chest, all round', mm: 4 * f.quarterChest },
 		{ id: 'chest_ease', label: 'Chest ease over the body, all round', mm: f.chestEase },
 		{ id: 'armhole_seam', label: `${front ? 'Front' : 'Back'} armhole seam`, mm: lengthOf(edges, 'armhole') },
-		{ id: 'neck_seam', label: `${front ? 'Front' : 'Back'} neck seam`, mm: lengthOf(edges, 'neck') },
+		{
+			id: 'neck_seam',
+			label: front ? 'Front neck seam, front edge to neck point' : 'Back neck seam, centre back to neck point',
+			mm: lengthOf(edges, 'neck')
+		},
 		{ id: 'shoulder_seam', label: 'Shoulder seam', mm: lengthOf(edges, 'shoulder') },
 		{
 			id: 'piece_length',
@@ -544,6 +553,23 @@ function shirtWarnings(net: ShirtNet, body: BodyMm): Finding[] {
 			fields: ['upper_arm_girth', 'bust_girth'],
 			message:
 				'The sleeve is tight over this upper arm even with the sleeve head lowered: a set-in sleeve needs its biceps at least 2 in over the arm. Choose a looser fit.'
+		});
+	}
+	if (f.sleeveLength > f.requestedSleeveLength + 1e-6) {
+		warnings.push({
+			code: 'option_out_of_range',
+			fields: ['options.sleeveLength'],
+			message: `A set-in sleeve needs its underseam: the sleeve is drafted ${Math.round(f.sleeveLength / 10)} cm long, the cap height plus 5 cm.`
+		});
+	}
+	// Above the elbow the sleeve end goes round the upper arm, so it needs the arm and a little ease.
+	const armAtEnd = body.upper_arm_girth ?? f.biceps - minimumBicepsEase;
+	if (f.sleeveLength < 0.55 * (body.arm_length ?? Infinity) && f.sleeveOpening < armAtEnd + inch(1)) {
+		warnings.push({
+			code: 'option_out_of_range',
+			fields: ['options.sleeveOpening'],
+			message:
+				'A short sleeve ends round the upper arm: make its end at least 1 in more than the upper arm, or it will bind.'
 		});
 	}
 	if (f.sleeveOpening < handPassage && f.sleeveLength > 0.8 * (body.arm_length ?? Infinity)) {
