@@ -24,6 +24,7 @@ const iterations = 2000;
 
 /** Bust, waist and hip: the EN 13402-3 pictogram body 88-72-96; the rest mid-range adult values. */
 const bodyCm = {
+	neck_girth: 35,
 	bust_girth: 88,
 	under_bust_girth: 73,
 	waist_girth: 72,
@@ -37,6 +38,7 @@ const bodyCm = {
 	waist_to_hip: 20.6,
 	waist_to_floor: 104,
 	inside_leg: 78,
+	arm_length: 58,
 	stature: 168
 };
 

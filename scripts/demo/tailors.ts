@@ -73,15 +73,15 @@ const workrooms: Workroom[] = [
 		shopName: 'Frost Bespoke Room',
 		slug: 'frost-bespoke-room',
 		district: 'brightwater',
-		specialties: ['wide-leg-trousers', 'straight-skirt'],
-		bio: 'Slow, careful work in wool and linen. Two fittings as standard and pressing done by hand. Reuben takes on only a few orders at a time and tells you honestly when he is full.',
+		specialties: ['wide-leg-trousers', 'straight-skirt', 'waistcoat'],
+		bio: 'Slow, careful work in wool and linen: trousers, skirts and lined waistcoats with proper welt pockets. Two fittings as standard and pressing done by hand. Reuben takes on only a few orders at a time and tells you honestly when he is full.',
 		serviceRadiusKm: 15,
 		leadTimeDays: 28,
 		capacity: 2,
 		hourlyRateMinor: 4500,
 		fabricMarkupPercent: 25,
-		leadDays: [28, 21],
-		hours: [10, 6]
+		leadDays: [28, 21, 28],
+		hours: [10, 6, 11]
 	},
 	{
 		email: 'hettie.pellow@tackline.test',
@@ -118,15 +118,15 @@ const workrooms: Workroom[] = [
 		shopName: 'Quill Atelier',
 		slug: 'quill-atelier',
 		district: 'cobbleRow',
-		specialties: ['cropped-top', 'straight-skirt'],
-		bio: 'Small, precise pieces: cropped tops with clean facings and straight skirts with a proper walking vent. Evening appointments for people who work during the day.',
+		specialties: ['cropped-top', 'straight-skirt', 'shirt'],
+		bio: 'Small, precise pieces: cropped tops with clean facings, straight skirts with a proper walking vent and blouses with a collar on a stand. Evening appointments for people who work during the day.',
 		serviceRadiusKm: 8,
 		leadTimeDays: 14,
 		capacity: 3,
 		hourlyRateMinor: 3900,
 		fabricMarkupPercent: 15,
-		leadDays: [14, 12],
-		hours: [4.5, 5.5]
+		leadDays: [14, 12, 18],
+		hours: [4.5, 5.5, 8]
 	},
 	{
 		email: 'benedek.harrow@tackline.test',

@@ -87,6 +87,18 @@ test('shows the neck-cord caution on the tunic', async ({ page }) => {
 	await expect(page.getByRole('button', { name: 'Print cut sheet' })).toBeVisible();
 });
 
+test('drafts the lined waistcoat: button count and breast pocket as chosen, lining laid apart', async ({ page }) => {
+	await page.goto('/draft-calculator?garment=waistcoat');
+	await page.getByRole('button', { name: 'Fill in a worked example' }).click();
+	await expect(page.getByRole('img', { name: /^Front lining: Cut 2 \(a pair\) in lining/ })).toBeVisible();
+	await expect(page.getByText(/^Lining \(front lining/)).toBeVisible();
+	await expect(page.getByRole('checkbox', { name: /Breast welt pocket/ })).toBeChecked();
+	await page.getByRole('checkbox', { name: /Breast welt pocket/ }).uncheck();
+	await expect(page.getByRole('img', { name: /^Breast welt:/ })).toHaveCount(0);
+	await page.getByLabel('Buttons').selectOption('6');
+	await expect(page.getByText(/^6 buttons;/)).toBeVisible();
+});
+
 test('on a 360 px phone the drawings read at 11 px or more and zoom by pinch, keys and buttons', async ({ page }) => {
 	await page.setViewportSize({ width: 360, height: 780 });
 	await page.goto('/draft-calculator?garment=wide-leg-trousers&unit=in');

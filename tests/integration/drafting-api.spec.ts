@@ -28,7 +28,7 @@ function lineValues(body: { pieces: Array<{ id: string; lines: Array<{ id: strin
 }
 
 describe('GET /api/v1/garments', () => {
-	it('lists the six garments with required measurements and options', async () => {
+	it('lists the eight garments with required measurements and options', async () => {
 		const response = await fetch(`${baseUrl}/api/v1/garments?unit=in`);
 		expect(response.status).toBe(200);
 		const garments = await response.json();
@@ -38,7 +38,9 @@ describe('GET /api/v1/garments', () => {
 			'straight-skirt',
 			'a-line-skirt',
 			'shift-dress',
-			'tunic'
+			'tunic',
+			'shirt',
+			'waistcoat'
 		]);
 		const first = garments[0];
 		expect(first.requiredMeasurements).toEqual(['hip_girth', 'waist_girth', 'thigh_girth']);

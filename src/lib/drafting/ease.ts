@@ -56,3 +56,37 @@ export const trouserEase: Readonly<Record<Fit, TrouserEase>> = {
 	regular: { waistPerQuarter: inch(1), hip: 0, thigh: 0 },
 	relaxed: { waistPerQuarter: inch(1.5), hip: wearingEase.relaxed.hip, thigh: inch(2) }
 };
+
+/**
+ * Total chest/bust ease for a shirt or blouse with set-in sleeves. fitted: 2 in, inside the CWU "Ease in
+ * Clothing" fitted-shirt range 1½–2½ in; regular: 3 in, the CWU "classic shirt up to 3 in"; relaxed: 4 in,
+ * McCunn's fitting ease "4 in with sleeves" (How to Make Sewing Patterns). Waist and hip take the wearing
+ * ease above; a blouse waist is McCunn's 2 in at regular.
+ */
+export const shirtEase: Readonly<Record<Fit, { bust: number; waist: number; hip: number }>> = {
+	fitted: { bust: inch(2), waist: inch(1), hip: wearingEase.fitted.hip },
+	regular: { bust: inch(3), waist: inch(2), hip: wearingEase.regular.hip },
+	relaxed: { bust: inch(4), waist: inch(3), hip: wearingEase.relaxed.hip }
+};
+
+/**
+ * A set-in sleeve's biceps should be at least 2 in larger than the arm (Threads, "Set-in sleeve solutions",
+ * 2021; dresspatternmaking.com sleeve block notes: 2 in for the standard figure, up to 4 in for freedom).
+ */
+export const bicepsEase: Readonly<Record<Fit, number>> = {
+	fitted: inch(2),
+	regular: inch(2.5),
+	relaxed: inch(3)
+};
+
+/**
+ * A waistcoat is worn over a shirt, so it carries the shirt beneath it as well as its own wearing ease
+ * (from memory: about 8–10 cm over the chest for a classic waistcoat). regular is McCunn's 4 in bust fitting
+ * ease; fitted takes the CWU bodice 2 in plus 1 in for the shirt; relaxed is common practice. At the waist
+ * a waistcoat sits close: the CWU dress waist range ¾–1 in plus 1 in for the shirt at fitted and regular.
+ */
+export const waistcoatEase: Readonly<Record<Fit, { chest: number; waist: number }>> = {
+	fitted: { chest: inch(3), waist: inch(1.75) },
+	regular: { chest: inch(4), waist: inch(2) },
+	relaxed: { chest: inch(6), waist: inch(3) }
+};

@@ -169,8 +169,36 @@ function bandVariants(
 	});
 	return variants;
 }
-/** Lays the pieces on the cloth and reports the length to buy. Null when the cloth is too narrow. */
+/**
+ * Lays the pieces on the cloth and reports the length to buy. Null when the cloth is too narrow. Pieces cut
+ * in lining are laid apart, on lining as wide as the cloth (plain, so it may turn end for end), and their
+ * length is given in the notes.
+ */
 export function estimateFabric(
+	pieces: readonly DraftPiece[],
+	spec: FabricSpec,
+	unit: Unit
+): { estimate: FabricEstimate | null; warnings: Finding[] } {
+	const lining = pieces.filter((p) => p.cut.cloth === 'lining');
+	if (!lining.length) return estimateCloth(pieces, spec, unit);
+	const main = estimateCloth(
+		pieces.filter((p) => p.cut.cloth !== 'lining'),
+		spec,
+		unit
+	);
+	const laid = estimateCloth(lining, { ...spec, directional: false, repeatMm: 0 }, unit);
+	const names = lining.map((p) => p.label.toLowerCase()).join(', ');
+	const width = formatLength(spec.widthMm, unit, { withUnit: true });
+	const note = laid.estimate
+		? `Lining (${names}): ${laid.estimate.rounded.display} of ${width} lining, laid apart from the cloth; not in the layout above.`
+		: `Lining (${names}): too wide for ${width} lining; choose a wider lining.`;
+	return {
+		estimate: main.estimate && { ...main.estimate, notes: [...main.estimate.notes, note] },
+		warnings: [...main.warnings, ...laid.warnings.map((w) => ({ ...w, message: `Lining: ${w.message}` }))]
+	};
+}
+
+function estimateCloth(
 	pieces: readonly DraftPiece[],
 	spec: FabricSpec,
 	unit: Unit

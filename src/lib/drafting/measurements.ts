@@ -35,7 +35,9 @@ export const garmentIds = [
 	'straight-skirt',
 	'a-line-skirt',
 	'shift-dress',
-	'tunic'
+	'tunic',
+	'shirt',
+	'waistcoat'
 ] as const;
 export type GarmentId = (typeof garmentIds)[number];
 
@@ -81,7 +83,7 @@ const vocabulary: MeasurementInfo[] = [
 		typical: [291, 467],
 		limits: [220, 617],
 		rangeSource: 'ansur',
-		garments: []
+		garments: ['shirt', 'waistcoat']
 	},
 	{
 		code: 'bust_girth',
@@ -92,7 +94,7 @@ const vocabulary: MeasurementInfo[] = [
 		typical: [784, 1276],
 		limits: [556, 1763],
 		rangeSource: 'ansur',
-		garments: ['cropped-top', 'shift-dress', 'tunic']
+		garments: ['cropped-top', 'shift-dress', 'tunic', 'shirt', 'waistcoat']
 	},
 	{
 		code: 'under_bust_girth',
@@ -102,7 +104,7 @@ const vocabulary: MeasurementInfo[] = [
 		typical: [620, 1250],
 		limits: [500, 1500],
 		rangeSource: 'from-memory',
-		garments: ['shift-dress']
+		garments: ['shift-dress', 'shirt']
 	},
 	{
 		code: 'waist_girth',
@@ -113,7 +115,7 @@ const vocabulary: MeasurementInfo[] = [
 		typical: [665, 1465],
 		limits: [451, 2136],
 		rangeSource: 'ansur-nhanes',
-		garments: ['wide-leg-trousers', 'straight-skirt', 'a-line-skirt', 'shift-dress']
+		garments: ['wide-leg-trousers', 'straight-skirt', 'a-line-skirt', 'shift-dress', 'shirt', 'waistcoat']
 	},
 	{
 		code: 'hip_girth',
@@ -123,7 +125,7 @@ const vocabulary: MeasurementInfo[] = [
 		typical: [830, 1546],
 		limits: [590, 2148],
 		rangeSource: 'ansur-nhanes',
-		garments: ['wide-leg-trousers', 'straight-skirt', 'a-line-skirt', 'shift-dress', 'tunic']
+		garments: ['wide-leg-trousers', 'straight-skirt', 'a-line-skirt', 'shift-dress', 'tunic', 'shirt', 'waistcoat']
 	},
 	{
 		code: 'thigh_girth',
@@ -163,7 +165,7 @@ const vocabulary: MeasurementInfo[] = [
 		typical: [220, 450],
 		limits: [160, 600],
 		rangeSource: 'from-memory',
-		garments: ['tunic']
+		garments: ['tunic', 'shirt']
 	},
 	{
 		code: 'wrist_girth',
@@ -183,7 +185,7 @@ const vocabulary: MeasurementInfo[] = [
 		typical: [322, 463],
 		limits: [226, 587],
 		rangeSource: 'ansur',
-		garments: ['cropped-top', 'shift-dress', 'tunic']
+		garments: ['cropped-top', 'shift-dress', 'tunic', 'shirt', 'waistcoat']
 	},
 	{
 		code: 'across_back',
@@ -203,7 +205,7 @@ const vocabulary: MeasurementInfo[] = [
 		typical: [350, 490],
 		limits: [280, 580],
 		rangeSource: 'from-memory',
-		garments: ['shift-dress']
+		garments: ['shift-dress', 'shirt', 'waistcoat']
 	},
 	{
 		code: 'shoulder_to_bust_point',
@@ -213,7 +215,7 @@ const vocabulary: MeasurementInfo[] = [
 		typical: [200, 330],
 		limits: [150, 400],
 		rangeSource: 'from-memory',
-		garments: ['cropped-top', 'shift-dress']
+		garments: ['cropped-top', 'shift-dress', 'shirt']
 	},
 	{
 		code: 'bust_point_span',
@@ -223,7 +225,7 @@ const vocabulary: MeasurementInfo[] = [
 		typical: [140, 240],
 		limits: [100, 300],
 		rangeSource: 'from-memory',
-		garments: ['cropped-top', 'shift-dress']
+		garments: ['cropped-top', 'shift-dress', 'shirt']
 	},
 	{
 		code: 'waist_to_hip',
@@ -233,7 +235,7 @@ const vocabulary: MeasurementInfo[] = [
 		typical: [150, 280],
 		limits: [100, 350],
 		rangeSource: 'from-memory',
-		garments: ['straight-skirt', 'a-line-skirt', 'shift-dress']
+		garments: ['straight-skirt', 'a-line-skirt', 'shift-dress', 'shirt', 'waistcoat']
 	},
 	{
 		code: 'body_rise',
@@ -273,7 +275,7 @@ const vocabulary: MeasurementInfo[] = [
 		typical: [478, 670],
 		limits: [328, 851],
 		rangeSource: 'ansur',
-		garments: ['tunic']
+		garments: ['tunic', 'shirt']
 	}
 ];
 

@@ -11,6 +11,8 @@ export interface CutInstruction {
 	/** The pieces are a mirrored left/right pair. */
 	pair: boolean;
 	grain: Grain;
+	/** Cut from the lining rather than the garment cloth; the lining is laid and estimated apart. */
+	cloth?: 'lining';
 }
 
 /** A dimension drawn on the piece: a line from `from` to `to`, labelled with the line's value. */

@@ -121,9 +121,11 @@ function foldMarker(box: Box, size: number): string {
 }
 
 export function cutText(cut: DraftPiece['cut']): string {
-	if (cut.onFold) return `Cut ${cut.quantity} on fold`;
-	if (cut.pair) return `Cut ${cut.quantity} (${cut.quantity / 2 === 1 ? 'a pair' : `${cut.quantity / 2} pairs`})`;
-	return `Cut ${cut.quantity}`;
+	const from = cut.cloth === 'lining' ? ' in lining' : '';
+	if (cut.onFold) return `Cut ${cut.quantity} on fold${from}`;
+	if (cut.pair)
+		return `Cut ${cut.quantity} (${cut.quantity / 2 === 1 ? 'a pair' : `${cut.quantity / 2} pairs`})${from}`;
+	return `Cut ${cut.quantity}${from}`;
 }
 
 /** Piece name and cut instruction where no dimension, guide or grainline runs through them. */
@@ -227,7 +229,8 @@ export function pieceLayout(piece: DraftPiece, unit: Unit): PieceDrawingLayout {
 	let layout = layoutAt(piece, unit, Math.max(Math.max(box.width, box.height) / 36, 6));
 	for (let i = 0; i < 8 && layout.labels.length; i++) {
 		const px = layout.labels[0].fontSize * phoneScale(layout.view);
-		if (px >= minLabelPx) break;
+		// 1 % in hand: the drawing writes sizes and its view box to a tenth of a unit.
+		if (px >= minLabelPx * 1.01) break;
 		layout = layoutAt(piece, unit, layout.size * (minLabelPx / px) * 1.02);
 	}
 	return layout;

@@ -84,4 +84,26 @@ describe('DraftCalculator', () => {
 		calc.setUnit('in');
 		expect(calc.result.allowances.find((a) => a.id === 'seam')!.display).toBe('5/8 in');
 	});
+
+	it('drafts the shirt and the waistcoat from their worked examples, with the waistcoat’s button count and pockets as chosen', () => {
+		const shirt = new DraftCalculator('shirt', 'cm');
+		shirt.fillExample();
+		expect(shirt.missingCount).toBe(0);
+		expect(shirt.result.errors).toEqual([]);
+		expect(shirt.result.pieces.map((p) => p.id)).toEqual(['front', 'back', 'sleeve', 'collar_stand', 'collar']);
+
+		const waistcoat = new DraftCalculator('waistcoat', 'cm');
+		waistcoat.fillExample();
+		const buttons = () => Number(/^(\d+) buttons/.exec(waistcoat.result.notes.find((n) => /buttons;/.test(n))!)![1]);
+		expect(waistcoat.result.pieces.map((p) => p.id)).toContain('breast_welt');
+		expect(buttons()).toBe(5);
+		waistcoat.choices = { buttons: '6' };
+		waistcoat.switches = { breastPocket: false };
+		expect(buttons()).toBe(6);
+		expect(waistcoat.result.pieces.map((p) => p.id)).not.toContain('breast_welt');
+		// The lining is laid apart from the cloth and its length given beside the layout.
+		expect(waistcoat.result.fabric!.notes.some((n) => n.startsWith('Lining'))).toBe(true);
+		waistcoat.chooseGarment('shirt');
+		expect(waistcoat.choices).toEqual({});
+	});
 });

@@ -45,7 +45,36 @@ const examples: Record<GarmentId, { unit: Unit; measurements: Texts; options?: T
 			bust_point_span: '18'
 		}
 	},
-	tunic: { unit: 'cm', measurements: { bust_girth: '88', hip_girth: '96', shoulder_width: '38' } }
+	tunic: { unit: 'cm', measurements: { bust_girth: '88', hip_girth: '96', shoulder_width: '38' } },
+	shirt: {
+		unit: 'cm',
+		measurements: {
+			bust_girth: '88',
+			under_bust_girth: '73',
+			waist_girth: '72',
+			hip_girth: '96',
+			neck_girth: '35',
+			shoulder_width: '38',
+			nape_to_waist: '41',
+			waist_to_hip: '20.6',
+			shoulder_to_bust_point: '25',
+			bust_point_span: '18',
+			upper_arm_girth: '28',
+			arm_length: '58'
+		}
+	},
+	waistcoat: {
+		unit: 'cm',
+		measurements: {
+			bust_girth: '88',
+			waist_girth: '72',
+			hip_girth: '96',
+			neck_girth: '35',
+			shoulder_width: '38',
+			nape_to_waist: '41',
+			waist_to_hip: '20.6'
+		}
+	}
 };
 
 /** Everything the draft calculator page knows, computed in the browser from what has been typed. */
@@ -56,6 +85,8 @@ export class DraftCalculator {
 	optionTexts = $state<Texts>({});
 	fit = $state('regular');
 	switches = $state<Record<string, boolean>>({});
+	/** Choice options other than the fit (a waistcoat's button count), as chosen. */
+	choices = $state<Record<string, string>>({});
 	widthIndex = $state(1);
 	folded = $state(true);
 	directional = $state(false);
@@ -93,7 +124,7 @@ export class DraftCalculator {
 			garment: this.garment,
 			unit: this.unit,
 			bodyMm,
-			optionsMm: { ...this.metricDefaults, ...this.options.mm, fit: this.fit, ...this.switches },
+			optionsMm: { ...this.metricDefaults, ...this.options.mm, fit: this.fit, ...this.choices, ...this.switches },
 			fabric: {
 				widthMm: toMm(this.widthPresets[this.widthIndex], this.unit),
 				folded: this.folded,
@@ -145,6 +176,7 @@ export class DraftCalculator {
 		this.garment = next;
 		this.optionTexts = {};
 		this.switches = {};
+		this.choices = {};
 	}
 
 	/** The worked example in the unit and on the cloth already chosen. */

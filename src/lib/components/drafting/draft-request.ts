@@ -19,7 +19,7 @@ export function draftRequestOf(calc: DraftCalculator): DraftRequest {
 		garment: calc.garment,
 		unit: calc.unit,
 		measurements,
-		options: { ...Object.fromEntries(lengths), fit: calc.fit, ...calc.switches },
+		options: { ...Object.fromEntries(lengths), fit: calc.fit, ...calc.choices, ...calc.switches },
 		fabric: {
 			width: calc.widthPresets[calc.widthIndex],
 			folded: calc.folded,

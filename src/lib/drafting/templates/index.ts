@@ -2,9 +2,11 @@ import type { GarmentId, MeasurementCode } from '../measurements';
 import { aLineSkirt } from './a-line-skirt';
 import { croppedTop } from './cropped-top';
 import { shiftDress } from './shift-dress';
+import { shirt } from './shirt';
 import { straightSkirt } from './straight-skirt';
 import { tunic } from './tunic';
 import type { GarmentTemplate, OptionSpec } from './types';
+import { waistcoat } from './waistcoat';
 import { wideLegTrousers } from './wide-leg-trousers';
 
 export const templates: Readonly<Record<GarmentId, GarmentTemplate>> = {
@@ -13,7 +15,9 @@ export const templates: Readonly<Record<GarmentId, GarmentTemplate>> = {
 	'straight-skirt': straightSkirt,
 	'a-line-skirt': aLineSkirt,
 	'shift-dress': shiftDress,
-	tunic
+	tunic,
+	shirt,
+	waistcoat
 };
 
 export interface GarmentSummary {

@@ -1,3 +1,4 @@
+import type { Point } from '../geometry';
 import type { Measurements } from '../measurements';
 import { resolveOptions } from '../options';
 import type { TemplateDraft } from '../pieces';
@@ -58,3 +59,66 @@ export const standardBodyCm = {
 	waist_to_floor: 104,
 	arm_length: 58
 } as const;
+
+/** Distance from a point to the nearest edge of a closed outline. */
+export function distanceToOutline(p: Point, outline: readonly Point[]): number {
+	let best = Infinity;
+	outline.forEach((a, i) => {
+		const b = outline[(i + 1) % outline.length];
+		const length2 = (b.x - a.x) ** 2 + (b.y - a.y) ** 2;
+		const t = length2 ? Math.min(1, Math.max(0, ((p.x - a.x) * (b.x - a.x) + (p.y - a.y) * (b.y - a.y)) / length2)) : 0;
+		best = Math.min(best, Math.hypot(p.x - (a.x + t * (b.x - a.x)), p.y - (a.y + t * (b.y - a.y))));
+	});
+	return best;
+}
+
+/** Where a closed outline crosses the horizontal line at `y`: its least and greatest x there. */
+export function spanAt(outline: readonly Point[], y: number): { min: number; max: number } {
+	const xs: number[] = [];
+	outline.forEach((a, i) => {
+		const b = outline[(i + 1) % outline.length];
+		if (a.y <= y !== b.y <= y) xs.push(a.x + ((y - a.y) * (b.x - a.x)) / (b.y - a.y));
+	});
+	return { min: Math.min(...xs), max: Math.max(...xs) };
+}
+
+/**
+ * Points along an edge at least `clear` mm from both of its ends and from any sharp turn in it (more than
+ * 10°): at corners the allowances are mitred, so the cutting line lies further out there, not at the allowance.
+ */
+export function sampleAlong(points: readonly Point[], clear: number, step = 5): Point[] {
+	const along: number[] = [0];
+	for (let i = 1; i < points.length; i++)
+		along.push(along[i - 1] + Math.hypot(points[i].x - points[i - 1].x, points[i].y - points[i - 1].y));
+	const total = along[along.length - 1];
+	const corners = [0, total];
+	for (let i = 1; i < points.length - 1; i++) {
+		const a = Math.atan2(points[i].y - points[i - 1].y, points[i].x - points[i - 1].x);
+		const b = Math.atan2(points[i + 1].y - points[i].y, points[i + 1].x - points[i].x);
+		const turn = Math.abs(((b - a + 3 * Math.PI) % (2 * Math.PI)) - Math.PI);
+		if (turn > Math.PI / 18) corners.push(along[i]);
+	}
+	const samples: Point[] = [];
+	for (let i = 1; i < points.length; i++) {
+		const a = points[i - 1];
+		const b = points[i];
+		const length = along[i] - along[i - 1];
+		for (let d = 0; d < length; d += step) {
+			if (corners.some((c) => Math.abs(along[i - 1] + d - c) < clear)) continue;
+			samples.push({ x: a.x + ((b.x - a.x) * d) / length, y: a.y + ((b.y - a.y) * d) / length });
+		}
+	}
+	return samples;
+}
+
+/** Template options resolved for a body given in cm, as the draft would use them (lengths in mm). */
+export function resolvedFor(
+	template: GarmentTemplate,
+	bodyCm: Measurements,
+	options: Record<string, OptionValue> = {}
+) {
+	const body = Object.fromEntries(Object.entries(bodyCm).map(([code, value]) => [code, toMm(value, 'cm')]));
+	const resolved = resolveOptions(template, options, body, 'cm');
+	if (resolved.errors.length) throw new Error(resolved.errors.map((e) => e.message).join('; '));
+	return { body, options: resolved.options };
+}

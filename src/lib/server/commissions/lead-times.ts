@@ -11,6 +11,8 @@ export const typicalLeadDays: Record<GarmentId | 'other', number> = {
 	'a-line-skirt': 14,
 	'shift-dress': 21,
 	tunic: 14,
+	shirt: 21,
+	waistcoat: 28,
 	other: 28
 };
 
