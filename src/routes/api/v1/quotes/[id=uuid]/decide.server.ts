@@ -12,8 +12,9 @@ export function decidingActor(user: SessionUser, ip: string): quotes.DecidingAct
 	return { id: user.id, role: user.role, ip };
 }
 
-/** Whether the request carries a body at all (a decline may be sent bare). */
+/** Whether the request carries a body at all: a decline or an acceptance may be sent bare, even with a content type. */
 export function hasBody(request: Request) {
 	const length = request.headers.get('content-length');
-	return request.headers.has('content-type') || (length !== null && length !== '0');
+	if (length === '0') return false;
+	return length !== null || request.headers.has('transfer-encoding') || request.headers.has('content-type');
 }
