@@ -48,7 +48,9 @@ export function errors(...statuses: ErrorStatus[]): ZodOpenApiResponsesObject {
 			{
 				description: statusText[status],
 				content: { 'application/json': { schema: apiErrorSchema } },
-				...(status === 429 ? { headers: { 'retry-after': { schema: { type: 'integer' } } } } : {})
+				...(status === 429
+					? { headers: { 'retry-after': { description: 'Seconds to wait.', schema: { type: 'integer' as const } } } }
+					: {})
 			}
 		])
 	);

@@ -1,5 +1,4 @@
-import { createDocument, type ZodOpenApiPathsObject } from 'zod-openapi';
-import type { oas31 } from 'zod-openapi';
+import { createDocument, type ZodOpenApiOverride, type ZodOpenApiPathsObject } from 'zod-openapi';
 import { sessionCookieName } from '../auth/session-token';
 
 /** One area's part of the API document: its tag (a group on /api/docs) and its operations. */
@@ -8,7 +7,7 @@ export interface Area {
 	paths: ZodOpenApiPathsObject;
 }
 
-export type OpenApiDocument = oas31.OpenAPIObject;
+export type OpenApiDocument = ReturnType<typeof createDocument>;
 
 const methods = ['get', 'put', 'post', 'delete', 'options', 'head', 'patch', 'trace'] as const;
 
@@ -65,8 +64,8 @@ export function buildDocument(areas: readonly Area[], { version }: { version: st
 const formatsWithPattern = new Set(['uuid', 'date', 'date-time', 'email']);
 
 /** zod spells out the safe-integer range of every `int()` and the regex behind each well-known format. */
-function withoutNoise({ jsonSchema }: { jsonSchema: oas31.SchemaObject }) {
+const withoutNoise: ZodOpenApiOverride = ({ jsonSchema }) => {
 	if (jsonSchema.minimum === Number.MIN_SAFE_INTEGER) delete jsonSchema.minimum;
 	if (jsonSchema.maximum === Number.MAX_SAFE_INTEGER) delete jsonSchema.maximum;
 	if (jsonSchema.format && formatsWithPattern.has(jsonSchema.format)) delete jsonSchema.pattern;
-}
+};
