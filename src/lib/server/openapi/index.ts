@@ -1,5 +1,6 @@
 import { createHash } from 'node:crypto';
 import { buildDocument, type Area, type OpenApiDocument } from './registry';
+import { docsView } from './view';
 import { commissionsArea } from './paths/commissions';
 import { draftingArea } from './paths/drafting';
 import { placesArea } from './paths/places';
@@ -8,6 +9,7 @@ import { serviceArea } from './paths/service';
 import { workroomsArea } from './paths/workrooms';
 
 export { buildDocument, mergePaths, type Area, type OpenApiDocument } from './registry';
+export { docsView } from './view';
 export { apiErrorSchema, access, errors, jsonBody, jsonRequest, uuidPath } from './common';
 
 /** Every area of `/api/v1`, in the order /api/docs shows them. Add a new area's module here. */
@@ -23,6 +25,7 @@ export const areas: readonly Area[] = [
 export const apiVersion = '1.0.0';
 
 let built: { document: OpenApiDocument; body: string; etag: string } | null = null;
+let view: ReturnType<typeof docsView> | null = null;
 
 /** The document is made of code alone, so it is built once per process, on first use. */
 export function openApi() {
@@ -33,4 +36,9 @@ export function openApi() {
 		built = { document, body, etag };
 	}
 	return built;
+}
+
+/** What /api/docs shows, read from the same document. */
+export function openApiDocsView() {
+	return (view ??= docsView(openApi().document));
 }
