@@ -32,7 +32,10 @@ const isNullSchema = (s: Schema) =>
 
 function constraintsOf(s: Schema): string[] {
 	const found: string[] = [];
-	const n = (key: string) => (typeof s[key] === 'number' ? (s[key] as number) : undefined);
+	const n = (key: string) => {
+		const value = s[key];
+		return typeof value === 'number' ? value : undefined;
+	};
 	const [min, max, xmin, xmax] = [n('minimum'), n('maximum'), n('exclusiveMinimum'), n('exclusiveMaximum')];
 	if (min !== undefined && max !== undefined) found.push(`${min} to ${max}`);
 	else if (min !== undefined) found.push(`at least ${min}`);
@@ -147,7 +150,8 @@ export function docsView(document: OpenApiDocument): DocsView {
 			const request = op.requestBody as { required?: boolean; content?: unknown } | undefined;
 			const responses: DocsResponse[] = Object.entries(op.responses ?? {}).map(([status, response]) => ({
 				status,
-				description: String((response as Json).description ?? ''),
+				description:
+					typeof (response as Json).description === 'string' ? ((response as Json).description as string) : '',
 				bodies: bodies((response as Json).content)
 			}));
 			const entry: DocsOperation = {
