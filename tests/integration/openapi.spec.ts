@@ -195,5 +195,15 @@ describe('GET /api/docs', () => {
 			expect(html).toMatch(new RegExp(`<h2[^>]*>${tag}</h2>`));
 		}
 		expect(html).toContain('id="schema-ApiError"');
+		expect(html, 'links, anchors and native disclosures only').not.toContain('<script');
+	});
+
+	it('reaches a visitor as the page built ahead, with a validator', async () => {
+		const response = await newClient().get('/api/docs');
+		expect(response.headers.get('cache-control')).toBe('no-cache');
+		const etag = response.headers.get('etag');
+		expect(etag).toMatch(/^".+"$/);
+		const again = await fetch(response.url, { headers: { 'if-none-match': etag! } });
+		expect(again.status).toBe(304);
 	});
 });
