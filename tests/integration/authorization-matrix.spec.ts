@@ -10,6 +10,7 @@ import { describeMatrix, type World } from './authorization/matrix';
 import { commissionRows } from './authorization/commissions';
 import { measurementProfileRows } from './authorization/measurement-profiles';
 import { quoteRows } from './authorization/quotes';
+import { openApiRows } from './authorization/openapi';
 import { workroomRows } from './authorization/workrooms';
 import { testDb } from './db';
 
@@ -29,3 +30,4 @@ describeMatrix('commissions and their photos', commissionRows, () => world);
 describeMatrix('workrooms', workroomRows, () => world);
 describeMatrix('quotes', quoteRows, () => world);
 describeMatrix('deciding on quotes, and what acceptance opens up', acceptRows, () => world);
+describeMatrix('the API description', openApiRows, () => world);

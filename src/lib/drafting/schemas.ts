@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { garmentIds, measurementCodes } from './measurements';
 import { optionInUnit } from './options';
+import { papers } from './print/paper';
 import { isCurrencyCode } from './quote';
 import { templates } from './templates/index';
 import { formatLength, toMm, units } from './units';
@@ -168,3 +169,16 @@ export const quoteRequestSchema = z
 	});
 
 export type QuoteRequest = z.input<typeof quoteRequestSchema>;
+
+/** `GET /api/v1/garments?unit=cm|in`: lengths in the answer are in this unit. */
+export const garmentsQuerySchema = z.object({ unit: unit.default('cm') });
+
+/** `GET /api/v1/drafts/pattern.pdf?paper=a4&request={…}`. */
+export const patternPdfQuerySchema = z.object({
+	paper: z.enum(papers).default('a4').meta({ description: 'A4 or US Letter tiles, or one A0 or 36 in roll sheet.' }),
+	request: z
+		.string()
+		.min(2)
+		.max(8192)
+		.meta({ description: 'The same JSON as the body of POST /api/v1/drafts, URL-encoded.' })
+});

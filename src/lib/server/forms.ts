@@ -19,7 +19,8 @@ export function text(options: { max: number; min?: number; multiline?: boolean; 
 				.string()
 				.min(min, options.tooShort ?? `Use at least ${min} characters.`)
 				.max(max, options.tooLong ?? `Use at most ${max} characters.`)
-		);
+		)
+		.meta({ ...(min > 0 ? { minLength: min } : {}), maxLength: max }); // the limits the API document shows
 }
 
 /** Validates submitted form fields; on failure returns messages per field for `fail(400, …)`. */

@@ -1,10 +1,7 @@
 import { createHash } from 'node:crypto';
-import { z } from 'zod';
-import { listGarments, units, type Unit } from '$lib/drafting';
+import { garmentsQuerySchema, listGarments, units, type Unit } from '$lib/drafting';
 import { invalidInput } from '$lib/server/http/respond';
 import type { RequestHandler } from './$types';
-
-const query = z.object({ unit: z.enum(units).default('cm') });
 
 /** The catalogue lives in code, so each unit's answer is the same for every caller until the next release. */
 const answers = new Map(
@@ -19,7 +16,7 @@ const matches = (header: string | null, etag: string) =>
 	header?.split(',').some((tag) => tag.trim().replace(/^W\//, '') === etag) ?? false;
 
 export const GET: RequestHandler = ({ url, request }) => {
-	const parsed = query.safeParse({ unit: url.searchParams.get('unit') ?? undefined });
+	const parsed = garmentsQuerySchema.safeParse({ unit: url.searchParams.get('unit') ?? undefined });
 	if (!parsed.success) return invalidInput(parsed.error);
 	const { body, etag } = answers.get(parsed.data.unit)!;
 	const headers = { etag, 'cache-control': 'public, max-age=3600' };

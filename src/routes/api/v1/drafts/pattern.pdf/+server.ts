@@ -1,23 +1,15 @@
-import { z } from 'zod';
-import { draftRequestSchema } from '$lib/drafting';
-import { papers } from '$lib/drafting/print/paper';
+import { draftRequestSchema, patternPdfQuerySchema } from '$lib/drafting';
 import { computeAnswer, refuseImplausible } from '$lib/server/compute/respond';
 import { hasControlCharacters } from '$lib/server/http/body';
 import { apiError, invalidInput, zodIssues } from '$lib/server/http/respond';
 import type { RequestHandler } from './$types';
-
-const querySchema = z.object({
-	paper: z.enum(papers).default('a4'),
-	/** The same JSON as the body of POST /api/v1/drafts. */
-	request: z.string().min(2).max(8192)
-});
 
 /**
  * GET /api/v1/drafts/pattern.pdf?paper=a4&request={…}: the draft's pieces at full size, tiled on A4 or
  * US Letter (paper=letter), or on one large sheet (paper=a0, paper=roll36).
  */
 export const GET: RequestHandler = async ({ url }) => {
-	const query = querySchema.safeParse(Object.fromEntries(url.searchParams));
+	const query = patternPdfQuerySchema.safeParse(Object.fromEntries(url.searchParams));
 	if (!query.success) return invalidInput(query.error);
 	if (hasControlCharacters(query.data.request))
 		return apiError(400, 'invalid_input', 'The request has invalid fields.', [

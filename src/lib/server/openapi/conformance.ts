@@ -1,0 +1,55 @@
+/*
+ * Compile-time proof that what each endpoint builds fits the response schema the document shows for it
+ * (`npm run check` fails otherwise). Dates become ISO strings on the way out, as `json()` writes them.
+ */
+import type { z } from 'zod';
+import type { DraftResponse, LayoutResponse, estimateQuoteRequest, listGarments } from '$lib/drafting';
+import type {
+	draftResponseSchema,
+	garmentListSchema,
+	layoutResponseSchema,
+	quoteEstimateResponseSchema
+} from '$lib/drafting/response-schemas';
+import type { PhotoView, PortfolioItemView } from '$lib/types/photos';
+import type { CommissionView } from '../commissions';
+import type { commissionResponse } from '../commissions/response-schemas';
+import type { HealthReport } from '../health';
+import type { healthReportSchema } from '../health/schemas';
+import type { photoResponse, portfolioItemResponse } from '../photos/response-schemas';
+import type { Place } from '../places/gazetteer';
+import type { placeResponse } from '../places/schemas';
+import type { PresentedProfile } from '../profiles';
+import type { profileResponse } from '../profiles/response-schemas';
+import type { onboardingJson, ownWorkroomJson, publicWorkroomJson } from '../workrooms/api';
+import type { onboardingResponse, ownWorkroomResponse, publicWorkroomResponse } from '../workrooms/response-schemas';
+
+/** A value as it reads after `JSON.stringify` and `JSON.parse`. */
+type Json<T> = T extends Date ? string : T extends object ? { -readonly [K in keyof T]: Json<T[K]> } : T;
+
+type Fits<Built, Schema extends z.ZodType> = [Json<Built>] extends [z.output<Schema>] ? true : false;
+type Assert<T extends true> = T;
+
+/** `commissionJson` in routes/api/v1/commissions: the view without `viewer`, measurements as `{ unit, values }`. */
+type CommissionAnswer = CommissionView extends infer View
+	? View extends { measurements: infer M }
+		? Omit<View, 'viewer' | 'measurements'> & {
+				measurements: M extends { unit: infer U; values: infer V } ? { unit: U; values: V } : null;
+			}
+		: Omit<View, 'viewer'>
+	: never;
+
+export type Conformance = [
+	Assert<Fits<HealthReport, typeof healthReportSchema>>,
+	Assert<Fits<CommissionAnswer, typeof commissionResponse>>,
+	Assert<Fits<PhotoView, typeof photoResponse>>,
+	Assert<Fits<PortfolioItemView, typeof portfolioItemResponse>>,
+	Assert<Fits<PresentedProfile, typeof profileResponse>>,
+	Assert<Fits<Place, typeof placeResponse>>,
+	Assert<Fits<ReturnType<typeof onboardingJson>, typeof onboardingResponse>>,
+	Assert<Fits<ReturnType<typeof ownWorkroomJson>, typeof ownWorkroomResponse>>,
+	Assert<Fits<ReturnType<typeof publicWorkroomJson>, typeof publicWorkroomResponse>>,
+	Assert<Fits<DraftResponse, typeof draftResponseSchema>>,
+	Assert<Fits<LayoutResponse, typeof layoutResponseSchema>>,
+	Assert<Fits<ReturnType<typeof estimateQuoteRequest>, typeof quoteEstimateResponseSchema>>,
+	Assert<Fits<ReturnType<typeof listGarments>, typeof garmentListSchema>>
+];

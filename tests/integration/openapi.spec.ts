@@ -1,0 +1,209 @@
+/**
+ * The API document against the running server: it is served and valid, and real answers — successes and
+ * errors — fit the response schemas it documents for them.
+ */
+import { Validator } from '@seriousme/openapi-schema-validator';
+import { Ajv2020 } from 'ajv/dist/2020.js';
+import addFormats from 'ajv-formats';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createUser, createWorkroom } from '../factories';
+import { testDb } from './db';
+import { newClient, signIn, type Client } from './http';
+
+const { db, pool } = testDb();
+afterAll(() => pool.end());
+
+type Document = {
+	openapi: string;
+	paths: Record<string, Record<string, { operationId: string; summary: string; responses: Record<string, unknown> }>>;
+};
+
+let document: Document;
+const ajv = new Ajv2020({ strict: false, allErrors: true });
+addFormats.default(ajv);
+const documentId = 'https://tackline.invalid/api/v1/openapi.json';
+
+beforeAll(async () => {
+	const response = await newClient().get('/api/v1/openapi.json');
+	expect(response.status).toBe(200);
+	document = (await response.json()) as Document;
+	ajv.addSchema({ ...document, $id: documentId });
+});
+
+const pointer = (...parts: string[]) => parts.map((p) => p.replaceAll('~', '~0').replaceAll('/', '~1')).join('/');
+
+/** Checks a real answer against the schema the document gives for that operation and status. */
+async function expectDocumented(response: Response, method: string, path: string) {
+	const status = String(response.status);
+	const operation = document.paths[path]?.[method.toLowerCase()];
+	expect(operation, `${method} ${path} is documented`).toBeDefined();
+	expect(Object.keys(operation.responses), `${method} ${path} documents ${status}`).toContain(status);
+	const body: unknown = await response.json();
+	const validate = ajv.getSchema(
+		`${documentId}#/${pointer('paths', path, method.toLowerCase(), 'responses', status, 'content', 'application/json', 'schema')}`
+	);
+	expect(validate, `${method} ${path} ${status} has a JSON schema`).toBeDefined();
+	const valid = validate!(body);
+	expect(validate!.errors ?? [], `${method} ${path} ${status}: ${JSON.stringify(body).slice(0, 400)}`).toEqual([]);
+	expect(valid).toBe(true);
+	return body;
+}
+
+async function signedIn(role: 'customer' | 'tailor'): Promise<Client> {
+	const person = await createUser(db, { role });
+	const client = newClient();
+	expect((await signIn(client, person.email, person.password)).status).toBe(303);
+	return client;
+}
+
+describe('GET /api/v1/openapi.json', () => {
+	it('serves a valid OpenAPI 3.1 document, with an ETag that answers 304', async () => {
+		const result = await new Validator().validate(structuredClone(document));
+		expect(result.errors ?? []).toEqual([]);
+		expect(result.valid).toBe(true);
+		const client = newClient();
+		const first = await client.get('/api/v1/openapi.json');
+		expect(first.headers.get('content-type')).toMatch(/^application\/json/);
+		const etag = first.headers.get('etag');
+		expect(etag).toMatch(/^".+"$/);
+		const again = await fetch(first.url, { headers: { 'if-none-match': etag!, 'x-forwarded-for': client.address } });
+		expect(again.status).toBe(304);
+	});
+});
+
+describe('real answers fit the documented schemas', () => {
+	it('public reads: garments, health, places, a tailor’s workroom', async () => {
+		const client = newClient();
+		const garments = await expectDocumented(await client.get('/api/v1/garments?unit=in'), 'GET', '/api/v1/garments');
+		expect((garments as unknown[]).length).toBeGreaterThan(0);
+		await expectDocumented(await client.get('/api/v1/health'), 'GET', '/api/v1/health');
+		const places = await expectDocumented(await client.get('/api/v1/places?q=Merrow'), 'GET', '/api/v1/places');
+		expect((places as { items: unknown[] }).items.length).toBeGreaterThan(0);
+		const tailor = await createWorkroom(db, { onboarded: true });
+		await expectDocumented(await client.get(`/api/v1/tailors/${tailor.id}`), 'GET', '/api/v1/tailors/{id}');
+	});
+
+	it('drafting: a draft, a layout and an estimate', async () => {
+		const client = newClient();
+		// The working dressmaker's trouser method (common practice), in inches.
+		const draft = await client.json('POST', '/api/v1/drafts', {
+			garment: 'wide-leg-trousers',
+			unit: 'in',
+			measurements: { hip_girth: 40, waist_girth: 28, thigh_girth: 25 },
+			options: { length: 45.5 },
+			fabric: { width: 60 }
+		});
+		const body = (await expectDocumented(draft, 'POST', '/api/v1/drafts')) as { pieces: unknown[] };
+		expect(body.pieces.length).toBeGreaterThan(0);
+		const layout = await client.json('POST', '/api/v1/layouts', {
+			width: 150,
+			unit: 'cm',
+			pieces: [{ w: 40, h: 60, quantity: 2 }]
+		});
+		await expectDocumented(layout, 'POST', '/api/v1/layouts');
+		const estimate = await client.json('POST', '/api/v1/quotes/estimate', {
+			currency: 'EUR',
+			garment: 'straight-skirt',
+			fabric: { supply: 'tailor', pricePerUnitMinor: 1800, per: 'm', length: 1.2 },
+			hourlyRateMinor: 3000
+		});
+		await expectDocumented(estimate, 'POST', '/api/v1/quotes/estimate');
+	});
+
+	it('a customer’s profile and commission', async () => {
+		const client = await signedIn('customer');
+		const profile = await client.json('POST', '/api/v1/measurement-profiles', {
+			label: 'Me',
+			unit: 'cm',
+			values: { hip_girth: 98, waist_girth: 76 }
+		});
+		expect(profile.status).toBe(201);
+		await expectDocumented(profile, 'POST', '/api/v1/measurement-profiles');
+		await expectDocumented(
+			await client.json('GET', '/api/v1/measurement-profiles'),
+			'GET',
+			'/api/v1/measurement-profiles'
+		);
+		const created = await client.json('POST', '/api/v1/commissions', {
+			garment: 'straight-skirt',
+			title: 'A charcoal wool skirt',
+			budget: { minMinor: 12000, maxMinor: 20000, currency: 'EUR' },
+			location: { lat: 51.5, lng: -0.12 }
+		});
+		expect(created.status).toBe(201);
+		const { id } = (await expectDocumented(created, 'POST', '/api/v1/commissions')) as { id: string };
+		await expectDocumented(await client.json('GET', `/api/v1/commissions/${id}`), 'GET', '/api/v1/commissions/{id}');
+		await expectDocumented(
+			await client.json('GET', `/api/v1/commissions/${id}/photos`),
+			'GET',
+			'/api/v1/commissions/{id}/photos'
+		);
+	});
+
+	it('a tailor’s own workroom and portfolio', async () => {
+		const client = await signedIn('tailor');
+		const saved = await client.json('PUT', '/api/v1/workroom', {
+			name: 'Cable Street Cutters',
+			location: { placeId: 'local:merrowgate-loomside' },
+			serviceRadiusKm: 10,
+			capacity: 2
+		});
+		await expectDocumented(saved, 'PUT', '/api/v1/workroom');
+		const item = await client.json('POST', '/api/v1/workroom/portfolio', { caption: 'Linen trousers' });
+		await expectDocumented(item, 'POST', '/api/v1/workroom/portfolio');
+		await expectDocumented(await client.json('GET', '/api/v1/workroom/portfolio'), 'GET', '/api/v1/workroom/portfolio');
+	});
+
+	it('errors: 400, 401, 403, 404 and 415 carry the documented error body', async () => {
+		const anonymous = newClient();
+		const bad = await anonymous.json('POST', '/api/v1/drafts', { garment: 'ball-gown', unit: 'furlong' });
+		expect(bad.status).toBe(400);
+		const error = (await expectDocumented(bad, 'POST', '/api/v1/drafts')) as { error: { issues: unknown[] } };
+		expect(error.error.issues.length).toBeGreaterThan(0);
+		await expectDocumented(await anonymous.get('/api/v1/garments?unit=furlong'), 'GET', '/api/v1/garments');
+		await expectDocumented(await anonymous.get('/api/v1/workroom'), 'GET', '/api/v1/workroom');
+		const customer = await signedIn('customer');
+		await expectDocumented(await customer.json('GET', '/api/v1/workroom'), 'GET', '/api/v1/workroom');
+		await expectDocumented(
+			await customer.json('GET', '/api/v1/measurement-profiles/00000000-0000-4000-8000-000000000000'),
+			'GET',
+			'/api/v1/measurement-profiles/{id}'
+		);
+		const unsupported = await anonymous.post('/api/v1/layouts', { width: '150' });
+		expect(unsupported.status).toBe(415);
+		await expectDocumented(unsupported, 'POST', '/api/v1/layouts');
+	});
+});
+
+describe('GET /api/docs', () => {
+	it('lists every operation of the document, each with its own anchor, grouped under headings', async () => {
+		const response = await newClient().get('/api/docs');
+		expect(response.status).toBe(200);
+		expect(response.headers.get('content-type')).toMatch(/^text\/html/);
+		const html = await response.text();
+		expect(html.match(/<h1[\s>]/g)).toHaveLength(1);
+		const operations = Object.entries(document.paths).flatMap(([path, item]) =>
+			Object.entries(item).map(([method, op]) => ({ path, method: method.toUpperCase(), ...op }))
+		);
+		expect(operations.length).toBeGreaterThan(20);
+		for (const op of operations) {
+			expect(html, `${op.method} ${op.path}`).toContain(`id="op-${op.operationId}"`);
+			expect(html).toContain(`href="#op-${op.operationId}"`);
+			expect(html).toContain(op.path);
+		}
+		for (const tag of ['Commissions', 'Workrooms', 'Measurement profiles', 'Drafting', 'Places', 'Service']) {
+			expect(html).toMatch(new RegExp(`<h2[^>]*>${tag}</h2>`));
+		}
+		expect(html).toContain('id="schema-ApiError"');
+		expect(html, 'links, anchors and native disclosures only').not.toContain('<script');
+	});
+
+	it('reaches a visitor as the page built ahead, with a validator', async () => {
+		const response = await newClient().get('/api/docs');
+		expect(response.headers.get('cache-control')).toBe('no-cache');
+		const etag = response.headers.get('etag');
+		expect(etag).toMatch(/^".+"$/);
+		const again = await fetch(response.url, { headers: { 'if-none-match': etag! } });
+		expect(again.status).toBe(304);
+	});
+});
