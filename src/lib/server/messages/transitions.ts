@@ -145,7 +145,8 @@ export async function startQuestion(
 ): Promise<{ threadId: string; message: MessageView }> {
 	if (actor.role !== 'tailor') throw new MessageError('forbidden', 'Only tailors ask questions on a commission.');
 	const text = checkedBody(body, 0);
-	if (!(await workrooms.canQuote(db, { tailorId: actor.id })))
+	// An onboarded, listed workroom (the stored mark; no onboarding repair runs from here).
+	if (!(await workrooms.getPublic(db, { slugOrId: actor.id })))
 		throw new MessageError('not_onboarded', 'Finish setting up your workroom before you ask customers questions.');
 	return db.transaction(async (tx) => {
 		const status = await commissionStatus(tx, commissionId);

@@ -3,6 +3,7 @@ import { requireRole } from '$lib/server/auth/guard';
 import * as commissions from '$lib/server/commissions';
 import { parseForm, readForm } from '$lib/server/forms';
 import * as messages from '$lib/server/messages';
+import * as workrooms from '$lib/server/workrooms';
 import type { Actions, PageServerLoad } from './$types';
 
 const notFound = { message: 'There is no such open commission.', code: 'not_found' };
@@ -14,7 +15,10 @@ export const load: PageServerLoad = async ({ params, locals }) => {
 	if (existing) redirect(303, `/messages/${existing}`);
 	const commission = await commissions.getForViewer(locals.db, { id: params.commissionId, viewer: user });
 	if (!commission || commission.status !== 'open') error(404, notFound);
-	return { commission: { id: commission.id, title: commission.title } };
+	return {
+		commission: { id: commission.id, title: commission.title },
+		canAsk: (await workrooms.getPublic(locals.db, { slugOrId: user.id })) !== null
+	};
 };
 
 export const actions: Actions = {
