@@ -163,7 +163,10 @@ describe('the messages API', () => {
 		expect(empty.body.error.issues[0].path).toBe('body');
 		const long = await api(customerClient, 'POST', `/api/v1/threads/${threadId}/messages`, { body: 'x'.repeat(4001) });
 		expect(long.status).toBe(400);
-		const extra = await api(customerClient, 'POST', `/api/v1/threads/${threadId}/messages`, { body: 'Hi', html: '<b>' });
+		const extra = await api(customerClient, 'POST', `/api/v1/threads/${threadId}/messages`, {
+			body: 'Hi',
+			html: '<b>'
+		});
 		expect(extra.status).toBe(400);
 		expect((await api(customerClient, 'GET', `/api/v1/threads/${threadId}/messages?cursor=nope`)).status).toBe(400);
 	});
@@ -197,7 +200,9 @@ describe('the live stream', () => {
 		expect(stream.response.status).toBe(200);
 		expect(stream.response.headers.get('content-type')).toContain('text/event-stream');
 
-		const first = await api(tailorClient, 'POST', `/api/v1/threads/${threadId}/messages`, { body: 'Fitting on Tuesday?' });
+		const first = await api(tailorClient, 'POST', `/api/v1/threads/${threadId}/messages`, {
+			body: 'Fitting on Tuesday?'
+		});
 		const event = await stream.next();
 		expect(event.id).toBe(first.body.id);
 		expect(event.event).toBe('message');

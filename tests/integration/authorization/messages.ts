@@ -3,6 +3,8 @@
  * told it does not exist, and the tailor never learns the customer's surname.
  */
 import { randomUUID } from 'node:crypto';
+import { eq } from 'drizzle-orm';
+import { tailorProfile } from '../../../src/lib/server/db/schema';
 import * as messages from '../../../src/lib/server/messages';
 import { createCommission } from '../../factories';
 import { solid } from '../../factories/images';
@@ -19,7 +21,8 @@ async function thread({ db, cast }: World, { withPhoto = false } = {}): Promise<
 	const { id: commissionId } = await createCommission(db, { customerId: cast.owner.id!, status: 'open' });
 	const tailor = { id: cast.tailor.id!, role: 'tailor' as const };
 	const owner = { id: cast.owner.id!, role: 'customer' as const };
-	const { threadId } = await messages.startQuestion(db, { commissionId, actor: tailor, body: 'Lined or unlined?' });
+	const { id: threadId } = await messages.openThread(db, { commissionId, tailorId: tailor.id });
+	await messages.post(db, { threadId, actor: tailor, body: 'Lined or unlined?' });
 	const reply = await messages.post(db, {
 		threadId,
 		actor: owner,
@@ -29,9 +32,13 @@ async function thread({ db, cast }: World, { withPhoto = false } = {}): Promise<
 	return { id: threadId, commissionId, attachmentId: reply.attachments[0]?.id ?? null, secrets: [surname] };
 }
 
-/** An open commission of the owner's with no thread yet. */
+/**
+ * An open commission of the owner's with no thread yet. The onboarded tailor is marked onboarded again: rows of
+ * other areas change that workroom and may have reopened its onboarding.
+ */
 async function openCommission({ db, cast }: World): Promise<Thread> {
 	const { id } = await createCommission(db, { customerId: cast.owner.id!, status: 'open' });
+	await db.update(tailorProfile).set({ onboardedAt: new Date() }).where(eq(tailorProfile.userId, cast.tailor.id!));
 	return { id: randomUUID(), commissionId: id, attachmentId: null, secrets: [surname] };
 }
 

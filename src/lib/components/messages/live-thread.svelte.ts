@@ -32,8 +32,7 @@ export class LiveThread {
 
 	/** Adds messages not yet held, in time order; answers those that were new. */
 	merge(incoming: MessageView[]) {
-		const known = new Set(this.messages.map((m) => m.id));
-		const fresh = incoming.filter((m) => !known.has(m.id));
+		const fresh = incoming.filter((m) => !this.messages.some((held) => held.id === m.id));
 		if (fresh.length) this.messages = [...this.messages, ...fresh].sort(byTime);
 		return fresh;
 	}

@@ -176,11 +176,15 @@ describe('posting and reading', () => {
 			})
 		).rejects.toMatchObject({ code: 'not_onboarded' });
 		const draft = await createCommission(db, { status: 'draft' });
+		await expect(messages.startQuestion(db, { commissionId: draft.id, actor, body: 'Hello?' })).rejects.toMatchObject({
+			code: 'not_found'
+		});
 		await expect(
-			messages.startQuestion(db, { commissionId: draft.id, actor, body: 'Hello?' })
-		).rejects.toMatchObject({ code: 'not_found' });
-		await expect(
-			messages.startQuestion(db, { commissionId: commission.id, actor: { id: customer.id, role: 'customer' }, body: 'x' })
+			messages.startQuestion(db, {
+				commissionId: commission.id,
+				actor: { id: customer.id, role: 'customer' },
+				body: 'x'
+			})
 		).rejects.toMatchObject({ code: 'forbidden' });
 	});
 });

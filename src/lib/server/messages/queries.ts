@@ -1,5 +1,11 @@
 import { and, asc, desc, eq, inArray, sql, type SQL } from 'drizzle-orm';
-import { attachmentUrl, type AttachmentView, type MessageView, type ThreadSummary, type ThreadView } from '$lib/types/messages';
+import {
+	attachmentUrl,
+	type AttachmentView,
+	type MessageView,
+	type ThreadSummary,
+	type ThreadView
+} from '$lib/types/messages';
 import { firstNameAndInitial } from '../commissions';
 import type { Executor } from '../db';
 import { message, messageAttachment, type Message } from '../db/schema';
@@ -109,7 +115,12 @@ export async function list(
  */
 export async function messagesAfter(
 	db: Executor,
-	{ threadId, after, viewerId, limit = 200 }: { threadId: string; after: string | null; viewerId: string; limit?: number }
+	{
+		threadId,
+		after,
+		viewerId,
+		limit = 200
+	}: { threadId: string; after: string | null; viewerId: string; limit?: number }
 ) {
 	const rows = await db
 		.select(messageColumns)
@@ -281,7 +292,10 @@ export async function getThread(db: Executor, { threadId, viewer }: { threadId: 
 }
 
 /** The thread of a commission and tailor, if one was opened. */
-export async function threadIdFor(db: Executor, { commissionId, tailorId }: { commissionId: string; tailorId: string }) {
+export async function threadIdFor(
+	db: Executor,
+	{ commissionId, tailorId }: { commissionId: string; tailorId: string }
+) {
 	const result = await db.execute<{ id: string }>(
 		sql`select id from message_thread where commission_id = ${commissionId} and tailor_id = ${tailorId}`
 	);

@@ -27,13 +27,9 @@ export const questionFields = z.object({ body: messageText.pipe(z.string().min(1
 
 const cursor = z.uuid('Use the nextCursor of the previous page.').optional();
 
-export const messagesQuery = z
-	.object({ cursor, limit: z.coerce.number().int().min(1).max(100).default(30) })
-	.strict();
+export const messagesQuery = z.object({ cursor, limit: z.coerce.number().int().min(1).max(100).default(30) }).strict();
 
-export const threadsQuery = z
-	.object({ cursor, limit: z.coerce.number().int().min(1).max(100).default(20) })
-	.strict();
+export const threadsQuery = z.object({ cursor, limit: z.coerce.number().int().min(1).max(100).default(20) }).strict();
 
 /** `?after=` on the live stream (the `Last-Event-ID` header says the same and wins). */
 export const eventsQuery = z.object({ after: z.uuid('Use the id of the last message received.').optional() }).strict();

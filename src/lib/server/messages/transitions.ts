@@ -52,7 +52,12 @@ async function writable(db: Executor, threadId: string, actor: Actor, options: {
  */
 async function insertMessage(
 	tx: Executor,
-	{ facts, actor, body, photos }: { facts: ThreadFacts; actor: Actor; body: string; photos: (StoredPhoto & { altText: string })[] }
+	{
+		facts,
+		actor,
+		body,
+		photos
+	}: { facts: ThreadFacts; actor: Actor; body: string; photos: (StoredPhoto & { altText: string })[] }
 ) {
 	const [row] = await tx
 		.insert(message)
@@ -89,7 +94,9 @@ async function withStored<T>(
 ): Promise<T> {
 	if (inputs.length === 0) return save(done);
 	const [first, ...rest] = inputs;
-	return storeUpload(first.file, (stored) => withStored(rest, save, [...done, { ...stored, altText: first.altText ?? '' }]));
+	return storeUpload(first.file, (stored) =>
+		withStored(rest, save, [...done, { ...stored, altText: first.altText ?? '' }])
+	);
 }
 
 /**

@@ -67,7 +67,9 @@ async function connect(): Promise<pg.Client> {
 	connecting = (async () => {
 		try {
 			await fresh.connect();
-			fresh.on('notification', (message) => fanOut(message.channel, { type: 'notification', payload: message.payload ?? '' }));
+			fresh.on('notification', (message) =>
+				fanOut(message.channel, { type: 'notification', payload: message.payload ?? '' })
+			);
 			fresh.on('error', (error) => lost(fresh, error));
 			fresh.on('end', () => lost(fresh));
 			for (const channel of listeners.keys()) await fresh.query(`LISTEN ${quoteIdent(channel)}`);

@@ -45,7 +45,8 @@ export const actions: Actions = {
 	send: async ({ params, request, locals, getClientAddress }) => {
 		const user = requireUser();
 		const form = await readForm(request, { limit: uploadBodyLimit });
-		if (!form.ok) return fail(form.status, { values: { body: '', altText: '' }, errors: form.errors } satisfies SendFailure);
+		if (!form.ok)
+			return fail(form.status, { values: { body: '', altText: '' }, errors: form.errors } satisfies SendFailure);
 		const text = (name: string) => {
 			const value = form.data.get(name);
 			return typeof value === 'string' ? value : '';

@@ -30,7 +30,8 @@ export async function readMessage(
 		return parsed.ok ? { ok: true, body: parsed.data.body, attachments: [] } : parsed;
 	}
 	const form = await readForm(request, { limit: uploadBodyLimit });
-	if (!form.ok) return { ok: false, response: apiError(form.status, formCodes[form.status], form.errors.form?.[0] ?? '') };
+	if (!form.ok)
+		return { ok: false, response: apiError(form.status, formCodes[form.status], form.errors.form?.[0] ?? '') };
 	const fields = new FormData();
 	for (const name of ['body', 'altText']) {
 		const value = form.data.get(name);
@@ -38,7 +39,9 @@ export async function readMessage(
 	}
 	const parsed = parseForm(messages.schemas.sendFields, fields);
 	if (!parsed.ok) {
-		const issues = Object.entries(parsed.errors).flatMap(([path, list]) => (list ?? []).map((message) => ({ path, message })));
+		const issues = Object.entries(parsed.errors).flatMap(([path, list]) =>
+			(list ?? []).map((message) => ({ path, message }))
+		);
 		return { ok: false, response: apiError(400, 'invalid_input', 'The request has invalid fields.', issues) };
 	}
 	const files = form.data.getAll('file').filter((file): file is File => file instanceof Blob && file.size > 0);
