@@ -106,7 +106,8 @@ export async function openStream(
 
 	// Listen before reading, so a message committed between the two is heard.
 	unsubscribe = await listen(messagesChannel, (event) => {
-		if (event.type !== 'resync' && parse(event.payload).threadId !== threadId) return;
+		if (event.type === 'closing') return stop();
+		if (event.type === 'notification' && parse(event.payload).threadId !== threadId) return;
 		if (ready) void catchUp();
 		else missed = true;
 	});

@@ -1,8 +1,11 @@
 import { env } from '$env/dynamic/private';
 import pg from 'pg';
 
-/** What a subscriber hears: a notification on its channel, or that the connection came back (re-read the source). */
-export type NotificationEvent = { type: 'notification'; payload: string } | { type: 'resync' };
+/**
+ * What a subscriber hears: a notification on its channel, that the connection came back (re-read the source),
+ * or that the process is shutting down (end long-lived answers so the server can drain).
+ */
+export type NotificationEvent = { type: 'notification'; payload: string } | { type: 'resync' } | { type: 'closing' };
 export type NotificationListener = (event: NotificationEvent) => void;
 
 const listeners = new Map<string, Set<NotificationListener>>();
@@ -130,3 +133,11 @@ export async function closeNotifications() {
 }
 
 process.on('sveltekit:shutdown', () => void closeNotifications());
+
+// adapter-node drains open requests before it exits; live streams never end by themselves, so they are told
+// to close (browsers reconnect, to another instance if there is one).
+for (const signal of ['SIGTERM', 'SIGINT'] as const) {
+	process.on(signal, () => {
+		for (const channel of listeners.keys()) fanOut(channel, { type: 'closing' });
+	});
+}
