@@ -97,6 +97,7 @@ async function connect(): Promise<pg.Client> {
  */
 export async function listen(channel: string, listener: NotificationListener): Promise<() => void> {
 	closed = false;
+	closeOnShutdownSignals();
 	let set = listeners.get(channel);
 	const isNewChannel = !set;
 	if (!set) listeners.set(channel, (set = new Set()));
@@ -134,10 +135,19 @@ export async function closeNotifications() {
 
 process.on('sveltekit:shutdown', () => void closeNotifications());
 
-// adapter-node drains open requests before it exits; live streams never end by themselves, so they are told
-// to close (browsers reconnect, to another instance if there is one).
-for (const signal of ['SIGTERM', 'SIGINT'] as const) {
-	process.on(signal, () => {
-		for (const channel of listeners.keys()) fanOut(channel, { type: 'closing' });
-	});
+let watchingSignals = false;
+
+/**
+ * adapter-node drains open requests before it exits; live streams never end by themselves, so they are told to
+ * close (browsers reconnect, to another instance if there is one). Registered with the first subscriber only,
+ * so scripts that never listen keep the default signal handling.
+ */
+function closeOnShutdownSignals() {
+	if (watchingSignals) return;
+	watchingSignals = true;
+	for (const signal of ['SIGTERM', 'SIGINT'] as const) {
+		process.on(signal, () => {
+			for (const channel of listeners.keys()) fanOut(channel, { type: 'closing' });
+		});
+	}
 }
