@@ -1,6 +1,7 @@
 // Conversations through the built server: the JSON API, the live stream (server-sent events fed by
 // PostgreSQL LISTEN/NOTIFY), the pages and their form actions, photo attachments and the unread digest.
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { freePort, startServer, stopProcess, uploadBodySizeLimit, waitForHealth } from '../../scripts/lib/local';
 import { message } from '../../src/lib/server/db/schema';
 import * as messages from '../../src/lib/server/messages';
 import { createCommission, createUser, createWorkroom, type Person } from '../factories';
@@ -38,10 +39,14 @@ async function api(client: Client, method: string, path: string, body?: unknown)
 type Event = { id: string | null; event: string | null; data: string };
 
 /** Reads a server-sent event stream the way EventSource does, one event at a time. */
-async function openEvents(client: Client, threadId: string, options: { lastEventId?: string; after?: string } = {}) {
+async function openEvents(
+	client: Client,
+	threadId: string,
+	options: { lastEventId?: string; after?: string; server?: string } = {}
+) {
 	const abort = new AbortController();
 	const query = options.after ? `?after=${options.after}` : '';
-	const response = await fetch(`${baseUrl}/api/v1/threads/${threadId}/events${query}`, {
+	const response = await fetch(`${options.server ?? baseUrl}/api/v1/threads/${threadId}/events${query}`, {
 		headers: headersOf(client, {
 			accept: 'text/event-stream',
 			...(options.lastEventId ? { 'last-event-id': options.lastEventId } : {})
@@ -224,6 +229,31 @@ describe('the live stream', () => {
 		expect((await viaQuery.next()).id).toBe(third.body.id);
 		viaQuery.close();
 	});
+});
+
+describe('several app instances', () => {
+	it('delivers a message posted through one instance to a stream opened on another', async () => {
+		const port = await freePort();
+		const second = `http://localhost:${port}`;
+		const server = startServer({
+			DATABASE_URL: process.env.DATABASE_URL!,
+			PORT: String(port),
+			ORIGIN: second,
+			BODY_SIZE_LIMIT: uploadBodySizeLimit
+		});
+		try {
+			await waitForHealth(second, 30_000);
+			const stream = await openEvents(customerClient, threadId, { server: second });
+			expect(stream.response.status).toBe(200);
+			const posted = await api(tailorClient, 'POST', `/api/v1/threads/${threadId}/messages`, {
+				body: 'Sent through the first instance.'
+			});
+			expect((await stream.next()).id).toBe(posted.body.id);
+			stream.close();
+		} finally {
+			await stopProcess(server);
+		}
+	}, 60_000);
 });
 
 describe('the conversation page', () => {

@@ -261,3 +261,24 @@ describe('the unread-message digest', () => {
 		expect(plan.rows.map((r) => r['QUERY PLAN']).join('\n')).toContain('message_unread_unnotified_idx');
 	});
 });
+
+describe('the listening connection', () => {
+	it('reconnects after losing its connection, tells subscribers to re-read, and hears new messages again', async () => {
+		const { customer, threadId } = await conversation();
+		const events: string[] = [];
+		const stop = await listen(messages.messagesChannel, (event) => {
+			events.push(event.type === 'notification' ? `message:${JSON.parse(event.payload).messageId}` : event.type);
+		});
+		try {
+			// The server ends the listening backend, as a restart or a failover would.
+			await db.execute(
+				sql`select pg_terminate_backend(pid) from pg_stat_activity where application_name = 'tackline-notifications'`
+			);
+			await expect.poll(() => events.includes('resync'), { timeout: 15_000 }).toBe(true);
+			const posted = await messages.post(db, { threadId, actor: customer, body: 'After the reconnect' });
+			await expect.poll(() => events.includes(`message:${posted.id}`), { timeout: 5000 }).toBe(true);
+		} finally {
+			stop();
+		}
+	});
+});
