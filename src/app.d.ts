@@ -16,6 +16,8 @@ declare global {
 		/** The root layout gives every page the signed-in person (or null). */
 		interface PageData {
 			user: SessionUser | null;
+			/** Messages waiting unread for the signed-in person (0 when signed out). */
+			unreadMessages?: number;
 		}
 		interface Locals {
 			/** The database handle routes pass to domain functions (routes never import db/ themselves). */

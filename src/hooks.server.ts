@@ -14,6 +14,7 @@ import { startJobs, stopJobs } from '$lib/server/jobs/runner';
 import * as commissions from '$lib/server/commissions';
 import * as mail from '$lib/server/mail';
 import * as quotes from '$lib/server/quotes';
+import * as messages from '$lib/server/messages';
 
 /** Background jobs (mail and later ones) run in the app process; adapter-node's shutdown lets them finish. */
 export const init: ServerInit = async () => {
@@ -22,7 +23,8 @@ export const init: ServerInit = async () => {
 	await startJobs({
 		[queueNames.mail]: mail.deliver,
 		[queueNames.commissionExpiry]: async () => void (await commissions.expireDue(db)),
-		[queueNames.quoteLapse]: async () => void (await quotes.lapseDue(db))
+		[queueNames.quoteLapse]: async () => void (await quotes.lapseDue(db)),
+		[queueNames.messageDigest]: async () => void (await messages.sendDigests(db))
 	});
 	void mail.relayStatus(); // warm the health check's cache
 };

@@ -14,6 +14,7 @@ import {
 import { demoCommissionMeasurements, demoCommissions } from './commissions';
 import { seedDemoPhotos, storageConfigured } from './images';
 import { demoMeasurementProfiles } from './measurements';
+import { seedDemoMessages } from './messages';
 import { adminEmail, demoPassword, demoUsers } from './people';
 import { demoPlaces } from './places';
 import { seedDemoQuotes } from './quotes';
@@ -78,6 +79,7 @@ export async function seedDemo(db: Database): Promise<SeedResult> {
 			.values(posted.flatMap((p) => p.band))
 			.onConflictDoNothing();
 		await seedDemoQuotes(tx, now);
+		await seedDemoMessages(tx, now);
 	});
 	// Photos go through the photos area into the bucket; without one (a bare `npm run db:seed`) there are none.
 	if (storageConfigured()) {

@@ -11,6 +11,7 @@ import { commissionRows } from './authorization/commissions';
 import { measurementProfileRows } from './authorization/measurement-profiles';
 import { quoteRows } from './authorization/quotes';
 import { openApiRows } from './authorization/openapi';
+import { messageRows } from './authorization/messages';
 import { workroomRows } from './authorization/workrooms';
 import { testDb } from './db';
 
@@ -31,3 +32,4 @@ describeMatrix('workrooms', workroomRows, () => world);
 describeMatrix('quotes', quoteRows, () => world);
 describeMatrix('deciding on quotes, and what acceptance opens up', acceptRows, () => world);
 describeMatrix('the API description', openApiRows, () => world);
+describeMatrix('messages', messageRows, () => world);

@@ -6,7 +6,9 @@ export const queueNames = {
 	/** Every few minutes: open commissions past their expiry with no accepted quote become `expired`. */
 	commissionExpiry: 'commission-expiry',
 	/** Every few minutes: sent quotes past their valid-until date become `lapsed`. */
-	quoteLapse: 'quote-lapse'
+	quoteLapse: 'quote-lapse',
+	/** Every minute: one mail per person about messages that have waited unread for 15 minutes. */
+	messageDigest: 'message-digest'
 } as const;
 
 export type QueueName = (typeof queueNames)[keyof typeof queueNames];

@@ -49,6 +49,12 @@ export function queueDefinitions(): QueueDefinition[] {
 			// As for expiry: one run at a time; each quote lapses in its own transaction, at most once.
 			options: { policy: 'singleton', retryLimit: 3, retryDelay: 60, expireInSeconds: 300 },
 			cron: { expression: '*/5 * * * *' }
+		},
+		{
+			name: queueNames.messageDigest,
+			// One run at a time; rows are locked while a run mails about them, and a missed minute is caught up.
+			options: { policy: 'singleton', retryLimit: 2, retryDelay: 30, expireInSeconds: 120 },
+			cron: { expression: '* * * * *' }
 		}
 	];
 }

@@ -16,6 +16,6 @@ export {
 export { defaultUrlSeconds, deletePhoto, readPhoto, signedUrl, storePhoto, type PhotoKeys } from './store';
 export { PhotoRuleBroken, type PhotoRuleCode } from './errors';
 export { openForViewer } from './serving';
-export type { Upload } from './stored';
 export * as commissionPhotos from './commission-photos';
 export * as portfolio from './portfolio';
+export { storeUpload, type StoredPhoto, type Upload } from './stored';
