@@ -40,6 +40,8 @@ export type ComparedQuote = {
 	/** How many earlier quotes the response time is the median of. */
 	responseSample: number;
 	portfolio: PortfolioThumb[];
+	/** The conversation with this workroom about the commission, when there is one. */
+	threadId: string | null;
 	/** Only for live (sent) quotes. */
 	fit: QuoteFit | null;
 };

@@ -22,6 +22,7 @@ function q(id: string, fields: Partial<ComparedQuote>): ComparedQuote {
 		responseHours: null,
 		responseSample: 0,
 		portfolio: [],
+		threadId: null,
 		fit: { points: 5, max: 9, criteria: [] },
 		...fields
 	};

@@ -5,6 +5,7 @@ import * as commissions from '../commissions';
 import type { Executor } from '../db';
 import { quote, type Quote } from '../db/schema';
 import { portfolio } from '../photos';
+import { threadIdFor } from '../messages';
 import * as workrooms from '../workrooms';
 import { bestFitHint, byFit, daysBetween, fitMethod, scoreQuotes, type FitInput } from './fit';
 
@@ -72,13 +73,15 @@ export async function compare(
 		.where(eq(quote.commissionId, commissionId))
 		.orderBy(quote.createdAt, quote.id);
 	const tailorIds = [...new Set(quotes.map((q) => q.tailorId))];
-	const [rooms, responses, thumbs] = await Promise.all([
+	const [rooms, responses, thumbs, threads] = await Promise.all([
 		Promise.all(tailorIds.map((tailorId) => workrooms.getOwn(db, { tailorId }))),
 		responseTimes(db, tailorIds),
-		Promise.all(tailorIds.map((tailorId) => thumbsOf(db, tailorId)))
+		Promise.all(tailorIds.map((tailorId) => thumbsOf(db, tailorId))),
+		Promise.all(tailorIds.map((tailorId) => threadIdFor(db, { commissionId, tailorId })))
 	]);
 	const roomOf = new Map(tailorIds.map((id, i) => [id, rooms[i]]));
 	const thumbsFor = new Map(tailorIds.map((id, i) => [id, thumbs[i]]));
+	const threadOf = new Map(tailorIds.map((id, i) => [id, threads[i]]));
 	const here = row.approxLat !== null && row.approxLng !== null ? { lat: row.approxLat, lng: row.approxLng } : null;
 	const budget =
 		row.budgetMinMinor !== null && row.budgetMaxMinor !== null
@@ -112,7 +115,8 @@ export async function compare(
 			leadTimeDays: room?.leadTimes[row.garmentType as keyof typeof room.leadTimes] ?? null,
 			responseHours: response.hours,
 			responseSample: response.sample,
-			portfolio: thumbsFor.get(q.tailorId) ?? []
+			portfolio: thumbsFor.get(q.tailorId) ?? [],
+			threadId: threadOf.get(q.tailorId) ?? null
 		};
 	});
 

@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { requireRole, requireUser } from '$lib/server/auth/guard';
 import * as commissions from '$lib/server/commissions';
 import { keepValues, parseForm, readForm, text } from '$lib/server/forms';
+import * as messages from '$lib/server/messages';
 import * as orders from '$lib/server/orders';
 import * as quotes from '$lib/server/quotes';
 import { comparisonSorts, type AcceptPreview } from '$lib/types/quote-comparison';
@@ -17,11 +18,12 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 	if (!view) error(404, { message: 'There is no such commission.', code: 'not_found' });
 	const isParty = view.viewer === 'owner' || view.viewer === 'awarded';
 	const isTailor = view.viewer === 'tailor' || view.viewer === 'awarded';
-	const [comparison, order, draft, myQuote] = await Promise.all([
+	const [comparison, order, draft, myQuote, threadId] = await Promise.all([
 		view.viewer === 'owner' ? quotes.compare(locals.db, { commissionId: params.id, ownerId: user.id }) : null,
 		isParty ? orders.getForParty(locals.db, { viewerId: user.id, commissionId: params.id }) : null,
 		view.viewer === 'awarded' ? draftForAwarded(view.garment, view.measurements) : null,
-		isTailor ? quotes.latestQuoteOf(locals.db, { commissionId: view.id, tailorId: user.id }) : null
+		isTailor ? quotes.latestQuoteOf(locals.db, { commissionId: view.id, tailorId: user.id }) : null,
+		isTailor ? messages.threadIdFor(locals.db, { commissionId: view.id, tailorId: user.id }) : null
 	]);
 	const asked = url.searchParams.get('accept');
 	const confirming = comparison?.quotes.find((q) => q.id === asked && q.status === 'sent');
@@ -37,6 +39,7 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 	return {
 		view,
 		myQuote: myQuote && quotes.quoteJson(myQuote),
+		threadId,
 		comparison,
 		order: order && { ...order, rateText: orders.rateText(order.platformFeeBasisPoints) },
 		awardedTo,
