@@ -2,9 +2,16 @@
  * Quotes made directly in a test's own database, as sending one stores them: a live `sent` quote by
  * default, or any other status with its decision time stamped.
  */
-import { eq } from 'drizzle-orm';
+import { and, eq, ne } from 'drizzle-orm';
 import type { Executor } from '../../src/lib/server/db/client';
-import { quote, tailorProfile, type NewQuote, type QuoteStatus } from '../../src/lib/server/db/schema';
+import {
+	commission,
+	order,
+	quote,
+	tailorProfile,
+	type NewQuote,
+	type QuoteStatus
+} from '../../src/lib/server/db/schema';
 import { createPortfolioPhoto, createWorkroom, type PersonOptions, type Workroom } from './index';
 
 const day = 24 * 60 * 60 * 1000;
@@ -91,4 +98,53 @@ export async function createQuotingWorkroom(db: Executor, options: PersonOptions
 	const workroom = await createWorkroom(db, options);
 	await completeOnboarding(db, workroom.id);
 	return workroom;
+}
+
+/** A live quote (unless `status` says otherwise) of €450, delivered in 40 days with two fittings. */
+export function insertQuote(db: Executor, options: QuoteOptions): Promise<CreatedQuote> {
+	return createQuote(db, {
+		priceMinor: 45_000,
+		deliveryDate: isoDate(new Date(Date.now() + 40 * day)),
+		fittingsIncluded: 2,
+		message: 'Happy to make this; two fittings included.',
+		...options
+	});
+}
+
+/**
+ * The state an acceptance leaves behind, written directly: the quote accepted, the others declined, an order
+ * awaiting payment (10 % fee) and the commission awarded. For tests about what comes after acceptance.
+ */
+export async function awardQuote(
+	db: Executor,
+	{ commissionId, quoteId, customerId }: { commissionId: string; quoteId: string; customerId: string }
+) {
+	const now = new Date();
+	await db
+		.update(quote)
+		.set({ status: 'declined', declineReason: 'another quote was accepted', decidedAt: now })
+		.where(and(eq(quote.commissionId, commissionId), eq(quote.status, 'sent'), ne(quote.id, quoteId)));
+	const [accepted] = await db
+		.update(quote)
+		.set({ status: 'accepted', decidedAt: now })
+		.where(eq(quote.id, quoteId))
+		.returning();
+	const fee = Math.floor((accepted.priceMinor * 1000 + 5000) / 10_000);
+	const [row] = await db
+		.insert(order)
+		.values({
+			commissionId,
+			quoteId,
+			customerId,
+			tailorId: accepted.tailorId,
+			priceMinor: accepted.priceMinor,
+			platformFeeMinor: fee,
+			tailorPayoutMinor: accepted.priceMinor - fee,
+			platformFeeBasisPoints: 1000,
+			currency: accepted.currency,
+			dueDate: accepted.deliveryDate
+		})
+		.returning({ id: order.id });
+	await db.update(commission).set({ status: 'awarded' }).where(eq(commission.id, commissionId));
+	return { orderId: row.id };
 }

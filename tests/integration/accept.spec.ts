@@ -14,7 +14,7 @@ import {
 	searchOutbox
 } from '../../src/lib/server/db/schema';
 import { createCommission, createUser, createWorkroom, type Person, type Workroom } from '../factories';
-import { insertQuote } from '../factories/quote-rows';
+import { insertQuote } from '../factories/quotes';
 import { testDb } from './db';
 import { newClient, signIn, type Client } from './http';
 import { settledMailTo, waitForMail } from './inbox';

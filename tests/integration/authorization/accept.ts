@@ -9,7 +9,7 @@ import { expect } from 'vitest';
 import { commission, commissionMeasurements, order, quote } from '../../../src/lib/server/db/schema';
 import { neededFor } from '../../../src/lib/server/profiles';
 import { createCommission, createWorkroom } from '../../factories';
-import { awardQuote, insertQuote } from '../../factories/quote-rows';
+import { awardQuote, insertQuote } from '../../factories/quotes';
 import type { Client } from '../http';
 import { customerApi, customerPage, signInRedirect, suspendedRedirect, type Row, type World } from './matrix';
 import { spellings } from './measurement-profiles';

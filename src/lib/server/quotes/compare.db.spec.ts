@@ -1,6 +1,6 @@
 import { afterAll, describe, expect, it, vi } from 'vitest';
 import { createCommission, createPortfolioPhoto, createUser, createWorkroom } from '../../../../tests/factories';
-import { insertQuote } from '../../../../tests/factories/quote-rows';
+import { insertQuote } from '../../../../tests/factories/quotes';
 import { createDb } from '../db/client';
 import { compare } from './compare';
 
