@@ -13,6 +13,7 @@ import { queueNames } from '$lib/server/jobs/names';
 import { startJobs, stopJobs } from '$lib/server/jobs/runner';
 import * as commissions from '$lib/server/commissions';
 import * as mail from '$lib/server/mail';
+import * as search from '$lib/server/search';
 
 /** Background jobs (mail and later ones) run in the app process; adapter-node's shutdown lets them finish. */
 export const init: ServerInit = async () => {
@@ -20,7 +21,8 @@ export const init: ServerInit = async () => {
 	process.once('sveltekit:shutdown', () => void stopJobs());
 	await startJobs({
 		[queueNames.mail]: mail.deliver,
-		[queueNames.commissionExpiry]: async () => void (await commissions.expireDue(db))
+		[queueNames.commissionExpiry]: async () => void (await commissions.expireDue(db)),
+		[queueNames.searchSync]: async () => void (await search.syncOutbox(db))
 	});
 	void mail.relayStatus(); // warm the health check's cache
 };

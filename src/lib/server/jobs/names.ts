@@ -4,7 +4,9 @@ export const queueNames = {
 	/** Mail that failed every retry waits here, with its last error, until an admin acts on the desk. */
 	mailDeadLetter: 'mail-dead-letter',
 	/** Every few minutes: open commissions past their expiry with no accepted quote become `expired`. */
-	commissionExpiry: 'commission-expiry'
+	commissionExpiry: 'commission-expiry',
+	/** Drains the search outbox into the indexes; every minute too, so the index catches up after an outage. */
+	searchSync: 'search-sync'
 } as const;
 
 export type QueueName = (typeof queueNames)[keyof typeof queueNames];

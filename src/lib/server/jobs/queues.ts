@@ -43,6 +43,19 @@ export function queueDefinitions(): QueueDefinition[] {
 			// picked up by the next (each commission expires in its own transaction, at most once).
 			options: { policy: 'singleton', retryLimit: 3, retryDelay: 60, expireInSeconds: 300 },
 			cron: { expression: '*/5 * * * *' }
+		},
+		{
+			name: queueNames.searchSync,
+			// At most one run waiting and one running: every note asks for a run, and one run drains them all.
+			// Retries back off while search is away; the minute cron starts again after the last retry.
+			options: {
+				policy: 'stately',
+				retryLimit: 6,
+				retryDelay: 5,
+				retryBackoff: true,
+				expireInSeconds: 300
+			},
+			cron: { expression: '* * * * *' }
 		}
 	];
 }
