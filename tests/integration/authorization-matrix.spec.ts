@@ -8,6 +8,7 @@ import { castActors } from './authorization/actors';
 import { describeMatrix, type World } from './authorization/matrix';
 import { commissionRows } from './authorization/commissions';
 import { measurementProfileRows } from './authorization/measurement-profiles';
+import { searchRows } from './authorization/search';
 import { workroomRows } from './authorization/workrooms';
 import { testDb } from './db';
 
@@ -25,3 +26,4 @@ afterAll(() => pool.end());
 describeMatrix('measurement profiles', measurementProfileRows, () => world);
 describeMatrix('commissions and their photos', commissionRows, () => world);
 describeMatrix('workrooms', workroomRows, () => world);
+describeMatrix('search near me', searchRows, () => world);

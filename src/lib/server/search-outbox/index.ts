@@ -11,7 +11,7 @@ export const syncSingletonKey = 'search-sync';
  * database), the savepoint keeps the caller's transaction alive: the note stays, and the next run or a
  * reindex picks it up.
  */
-async function requestSync(db: Executor) {
+export async function requestSync(db: Executor) {
 	try {
 		await db.transaction((sp) => jobs.enqueue(sp, jobs.queueNames.searchSync, {}, { singletonKey: syncSingletonKey }));
 	} catch (error) {
