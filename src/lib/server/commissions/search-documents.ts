@@ -110,9 +110,9 @@ export async function allSearchDocuments(
  * Great-circle metres from `near` on the WGS-84 mean radius, written as the search engine computes
  * `_geoDistance` (haversine, R = 6 371 008.8 m), so both paths agree on distances and order.
  */
-export function haversineMetresSql(
-	latColumn: SQL | typeof commission.approxLat,
-	lngColumn: SQL | typeof commission.approxLng,
+function haversineMetresSql(
+	latColumn: typeof commission.approxLat,
+	lngColumn: typeof commission.approxLng,
 	near: LatLng
 ) {
 	return sql<number>`(2 * 6371008.8 * asin(least(1, sqrt(
@@ -139,24 +139,26 @@ function textFilter(q: string | undefined): SQL[] {
  * up. A bounding box on the indexed coarse coordinates narrows the rows first (the partial index on open
  * commissions), then the exact distance decides; keyset-paged after `after`.
  */
-export async function nearbyFromDatabase(
-	db: Executor,
-	{
-		near,
-		radiusKm,
-		filters,
-		sort,
-		after,
-		limit
-	}: {
-		near: LatLng;
-		radiusKm: number;
-		filters: NearbyCommissionFilters;
-		sort: CommissionSort;
-		after?: NearbyAfter | null;
-		limit: number;
-	}
-): Promise<NearbyHit[]> {
+export async function nearbyFromDatabase(db: Executor, search: NearbySearch): Promise<NearbyHit[]> {
+	const result = await db.execute(nearbyQuery(search));
+	return (result.rows as { id: string; distanceM: number; publishedMs: string | number }[]).map((row) => ({
+		id: row.id,
+		distanceM: Number(row.distanceM),
+		publishedMs: Number(row.publishedMs)
+	}));
+}
+
+export type NearbySearch = {
+	near: LatLng;
+	radiusKm: number;
+	filters: NearbyCommissionFilters;
+	sort: CommissionSort;
+	after?: NearbyAfter | null;
+	limit: number;
+};
+
+/** The statement behind `nearbyFromDatabase`, apart so that a test can EXPLAIN it. */
+export function nearbyQuery({ near, radiusKm, filters, sort, after, limit }: NearbySearch): SQL {
 	const box = boundingBox(near, radiusKm);
 	const conditions: SQL[] = [
 		sql`${commission.status} = 'open'`,
@@ -179,7 +181,7 @@ export async function nearbyFromDatabase(
 		keyset = sql`(s.published_ms, s.id) < (${after.publishedMs}::bigint, ${after.id}::uuid)`;
 	const order = sort === 'distance' ? sql`round(s.raw_m)::int, s.id` : sql`s.published_ms desc, s.id desc`;
 
-	const result = await db.execute(sql`
+	return sql`
 		select s.id, round(s.raw_m)::int as "distanceM", s.published_ms as "publishedMs"
 		from (
 			select ${commission.id} as id, ${raw} as raw_m,
@@ -189,12 +191,7 @@ export async function nearbyFromDatabase(
 		) s
 		where s.raw_m <= ${radiusM}::float8 and ${keyset}
 		order by ${order}
-		limit ${limit}`);
-	return (result.rows as { id: string; distanceM: number; publishedMs: string | number }[]).map((row) => ({
-		id: row.id,
-		distanceM: Number(row.distanceM),
-		publishedMs: Number(row.publishedMs)
-	}));
+		limit ${limit}`;
 }
 
 /** A listed commission as a browsing tailor sees it on a card: never measurements or the customer's name. */
@@ -259,4 +256,15 @@ export async function cardsByIds(db: Executor, ids: string[]): Promise<Map<strin
 			}
 		])
 	);
+}
+
+/** Where the customer's most recent posted or drafted commission is (coarse): their place, for finding workrooms. */
+export async function latestPlaceOf(db: Executor, customerId: string) {
+	const [row] = await db
+		.select({ lat: commission.approxLat, lng: commission.approxLng, town: commission.city })
+		.from(commission)
+		.where(and(eq(commission.customerId, customerId), isNotNull(commission.approxLat), isNotNull(commission.approxLng)))
+		.orderBy(sql`${commission.updatedAt} desc`)
+		.limit(1);
+	return row ? { lat: row.lat!, lng: row.lng!, town: row.town } : null;
 }

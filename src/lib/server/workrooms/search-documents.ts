@@ -84,20 +84,25 @@ function haversineMetres(near: LatLng) {
  */
 export async function nearbyFromDatabase(
 	db: Executor,
-	{
-		near,
-		radiusKm,
-		filters,
-		after,
-		limit
-	}: {
-		near: LatLng;
-		radiusKm: number;
-		filters: NearbyWorkroomFilters;
-		after?: { distanceM: number; id: string } | null;
-		limit: number;
-	}
+	search: NearbySearch
 ): Promise<{ id: string; distanceM: number }[]> {
+	const result = await db.execute(nearbyQuery(search));
+	return (result.rows as { id: string; distanceM: number }[]).map((row) => ({
+		id: row.id,
+		distanceM: Number(row.distanceM)
+	}));
+}
+
+export type NearbySearch = {
+	near: LatLng;
+	radiusKm: number;
+	filters: NearbyWorkroomFilters;
+	after?: { distanceM: number; id: string } | null;
+	limit: number;
+};
+
+/** The statement behind `nearbyFromDatabase`, apart so that a test can EXPLAIN it. */
+export function nearbyQuery({ near, radiusKm, filters, after, limit }: NearbySearch): SQL {
 	const box = boundingBox(near, radiusKm);
 	const conditions: SQL[] = [
 		sql`${tailorProfile.lat} between ${box.minLat} and ${box.maxLat}`,
@@ -113,7 +118,7 @@ export async function nearbyFromDatabase(
 		conditions.push(sql`(${tailorProfile.shopName} ilike ${pattern} or ${tailorProfile.bio} ilike ${pattern})`);
 	}
 	const keyset = after ? sql`(round(s.raw_m)::int, s.id) > (${after.distanceM}::int, ${after.id}::uuid)` : sql`true`;
-	const result = await db.execute(sql`
+	return sql`
 		select s.id, round(s.raw_m)::int as "distanceM"
 		from (
 			select ${tailorProfile.userId} as id, ${haversineMetres(near)} as raw_m
@@ -122,11 +127,7 @@ export async function nearbyFromDatabase(
 		) s
 		where s.raw_m <= ${radiusKm * 1000}::float8 and ${keyset}
 		order by round(s.raw_m)::int, s.id
-		limit ${limit}`);
-	return (result.rows as { id: string; distanceM: number }[]).map((row) => ({
-		id: row.id,
-		distanceM: Number(row.distanceM)
-	}));
+		limit ${limit}`;
 }
 
 /** A findable workroom as the near-me list shows it. */
