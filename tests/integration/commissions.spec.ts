@@ -120,8 +120,9 @@ describe('posting a commission', () => {
 		expect(again.body.publishedAt).toBe(published.body.publishedAt);
 
 		const tailor = await signedIn(await createWorkroom(db));
-		const workroom = await tailor.get('/workroom');
-		expect(await workroom.text()).toContain('Grey flannel skirt for the office');
+		// Newest first among the open commissions near the tailor's workroom (the demo city has closer ones).
+		const browse = await tailor.get('/workroom/commissions?sort=newest');
+		expect(await browse.text()).toContain('Grey flannel skirt for the office');
 		const page = await tailor.get(`/commissions/${created.body.id}`);
 		expect(page.status).toBe(200);
 		const html = await page.text();

@@ -6,20 +6,23 @@ import * as jobs from '../jobs';
 /** Every note asks for one sync run; while one waits in the queue, further asks are folded into it. */
 export const syncSingletonKey = 'search-sync';
 
+let lastWarning = 0;
+
 /**
- * Asks for a sync run inside the caller's transaction. Where pg-boss has never started (a bare test
- * database), the savepoint keeps the caller's transaction alive: the note stays, and the next run or a
- * reindex picks it up.
+ * Asks for a sync run inside the caller's transaction. Asking must never undo the change itself: in a
+ * savepoint, and a refusal (pg-boss never started on this database, no queue configured in a script) is
+ * only noted — the outbox row stays, and the minute cron or a reindex picks it up.
  */
 export async function requestSync(db: Executor) {
 	try {
 		await db.transaction((sp) => jobs.enqueue(sp, jobs.queueNames.searchSync, {}, { singletonKey: syncSingletonKey }));
 	} catch (error) {
-		if (
-			(error as { code?: string }).code !== '42P01' &&
-			(error as { cause?: { code?: string } }).cause?.code !== '42P01'
-		)
-			throw error;
+		const code =
+			(error as { code?: string; cause?: { code?: string } }).code ??
+			(error as { cause?: { code?: string } }).cause?.code;
+		if (code === '42P01' || Date.now() - lastWarning < 60_000) return;
+		lastWarning = Date.now();
+		console.warn(`[search] could not ask for a sync now; the next scheduled run will: ${String(error)}`);
 	}
 }
 
