@@ -151,7 +151,7 @@ export class SearchIndex {
 		const started = performance.now();
 		const match = this.compile(request.filter);
 		const q = request.q?.trim() ?? '';
-		let candidates: { key: string; doc: Doc; score: number }[];
+		let candidates: { key: string; doc: Doc; score: number; distance?: number }[];
 		if (q) {
 			candidates = this.textIndex()
 				.search(q)
@@ -171,7 +171,9 @@ export class SearchIndex {
 				const origin = { lat: Number(geo[1]), lng: Number(geo[2]) };
 				geoOrigin = origin;
 				const direction = geo[3] === 'asc' ? 1 : -1;
-				comparators.push((a, b) => direction * (distanceTo(a.doc, origin) - distanceTo(b.doc, origin)));
+				// Each hit's distance is worked out once, not at every comparison of the sort.
+				const distance = (c: { doc: Doc; distance?: number }) => (c.distance ??= distanceTo(c.doc, origin));
+				comparators.push((a, b) => direction * (distance(a) - distance(b)));
 				continue;
 			}
 			const field = fieldSort.exec(rule);

@@ -34,7 +34,7 @@ export async function seedSearchData(databaseUrl: string, { commissions = 10_000
 				insert into "user" (email, name, role)
 				select 'bench-tailor-' || i || '@example.test', 'Bench tailor ' || i, 'tailor'
 				from generate_series(1, $5::int) as i
-				returning id, split_part(email, '-', 3)::int as i
+				returning id, split_part(split_part(email, '@', 1), '-', 3)::int as i
 			)
 			insert into tailor_profile (user_id, shop_name, slug, bio, specialties, city, lat, lng, service_radius_km, onboarded_at)
 			select id, 'Bench workroom ' || i, 'bench-workroom-' || i, 'Made to measure and alterations',
@@ -46,8 +46,8 @@ export async function seedSearchData(databaseUrl: string, { commissions = 10_000
 		);
 		await pool.query(
 			`insert into search_outbox (kind, entity_id)
-			select 'commission', id from commission where title like 'Bench commission %'
-			union all select 'workroom', user_id from tailor_profile where slug like 'bench-workroom-%'
+			select 'commission'::search_document_kind, id from commission where title like 'Bench commission %'
+			union all select 'workroom'::search_document_kind, user_id from tailor_profile where slug like 'bench-workroom-%'
 			on conflict do nothing`
 		);
 		await pool.query('analyze');
