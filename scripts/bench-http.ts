@@ -12,6 +12,7 @@
  * running the same near-me keyset query).
  */
 import { spawn } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
 import { mkdtempSync, readdirSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -61,9 +62,25 @@ function startBaseline(kind: 'bare' | 'keyset' | 'nearby', port: number, databas
 
 type Run = { scenario: Scenario; url: string; headers: Record<string, string>; body?: string; slices: Slice[] };
 
+/** The search stand-in in its own process (see scripts/bench/search-standin.ts). */
+async function startSearchProcess() {
+	const port = await freePort();
+	const masterKey = randomBytes(16).toString('hex');
+	const child = spawn(
+		process.execPath,
+		['--import', 'tsx', 'scripts/bench/search-standin.ts', String(port), masterKey],
+		{ cwd: root, stdio: ['ignore', 'ignore', 'inherit'] }
+	);
+	cleanups.push(() => stopChild(child));
+	const host = `http://127.0.0.1:${port}`;
+	await waitForAnswer(`${host}/health`);
+	return { MEILI_HOST: host, MEILI_MASTER_KEY: masterKey };
+}
+
 async function main(profileDir: string | null) {
 	const environment = await startBenchEnvironment({
-		nodeArgs: profileDir ? ['--cpu-prof', `--cpu-prof-dir=${profileDir}`] : []
+		nodeArgs: profileDir ? ['--cpu-prof', `--cpu-prof-dir=${profileDir}`] : [],
+		env: options.search ? await startSearchProcess() : {}
 	});
 	cleanups.push(environment.stop);
 	const { app, appUrl, databaseUrl, postmasterPid } = environment;
