@@ -122,6 +122,8 @@ async function main(profileDir: string | null) {
 			redirect: 'manual'
 		});
 		await probe.arrayBuffer();
+		const source = probe.headers.get('x-search-source');
+		if (source) log(`"${scenario.name}" answers from the ${source === 'index' ? 'search index' : source}`);
 		if (probe.status === 404 && scenario.optional) {
 			log(`skipping "${scenario.name}": ${scenario.path} answers 404`);
 			continue;
