@@ -6,9 +6,13 @@
  * list. Absolute figures swing on a shared machine; the ratios are what to compare.
  *
  * Options: --rounds N (5), --seconds S per slice (3), --connections C (50), --only REGEX (scenario names;
- * the keyset baseline always runs), --profile (the app runs under `node --cpu-prof`; a summary follows).
+ * the keyset baseline always runs), --profile (the app runs under `node --cpu-prof`; a summary follows),
+ * --search (`npm run bench:search`: adds 10 000 open commissions and 1 000 workrooms around Merrowgate,
+ * waits for the index, then loads the near-me page and the search API beside a node:http + pg baseline
+ * running the same near-me keyset query).
  */
 import { spawn } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
 import { mkdtempSync, readdirSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -16,7 +20,16 @@ import { parseArgs } from 'node:util';
 import { startBenchEnvironment, signIn, stopChild, waitForAnswer } from './bench/environment';
 import { slice, type Slice } from './bench/load';
 import { summariseProfile } from './bench/profile';
-import { baselineName, demoAccounts, scenarios, type Scenario, type Target } from './bench/scenarios';
+import {
+	baselineName,
+	demoAccounts,
+	scenarios,
+	searchBaselineName,
+	searchScenarios,
+	type Scenario,
+	type Target
+} from './bench/scenarios';
+import { seedSearchData, waitForIndex } from './bench/search-data';
 import { median, table } from './bench/stats';
 import { freePort, log, root, runCleanups } from './lib/local';
 
@@ -26,14 +39,17 @@ const { values: options } = parseArgs({
 		seconds: { type: 'string', default: '3' },
 		connections: { type: 'string', default: '50' },
 		only: { type: 'string' },
-		profile: { type: 'boolean', default: false }
+		profile: { type: 'boolean', default: false },
+		search: { type: 'boolean', default: false }
 	}
 });
 const rounds = Number(options.rounds);
 const seconds = Number(options.seconds);
 const connections = Number(options.connections);
+const scenarioList = options.search ? searchScenarios : scenarios;
+const yardstick = options.search ? searchBaselineName : baselineName;
 
-function startBaseline(kind: 'bare' | 'keyset', port: number, databaseUrl: string) {
+function startBaseline(kind: 'bare' | 'keyset' | 'nearby', port: number, databaseUrl: string) {
 	return spawn(
 		process.execPath,
 		['--import', 'tsx', 'scripts/bench/baseline-server.ts', kind, String(port), databaseUrl],
@@ -46,20 +62,44 @@ function startBaseline(kind: 'bare' | 'keyset', port: number, databaseUrl: strin
 
 type Run = { scenario: Scenario; url: string; headers: Record<string, string>; body?: string; slices: Slice[] };
 
+/** The search stand-in in its own process (see scripts/bench/search-standin.ts). */
+async function startSearchProcess() {
+	const port = await freePort();
+	const masterKey = randomBytes(16).toString('hex');
+	const child = spawn(
+		process.execPath,
+		['--import', 'tsx', 'scripts/bench/search-standin.ts', String(port), masterKey],
+		{ cwd: root, stdio: ['ignore', 'ignore', 'inherit'] }
+	);
+	cleanups.push(() => stopChild(child));
+	const host = `http://127.0.0.1:${port}`;
+	await waitForAnswer(`${host}/health`);
+	return { MEILI_HOST: host, MEILI_MASTER_KEY: masterKey };
+}
+
 async function main(profileDir: string | null) {
 	const environment = await startBenchEnvironment({
-		nodeArgs: profileDir ? ['--cpu-prof', `--cpu-prof-dir=${profileDir}`] : []
+		nodeArgs: profileDir ? ['--cpu-prof', `--cpu-prof-dir=${profileDir}`] : [],
+		env: options.search ? await startSearchProcess() : {}
 	});
 	cleanups.push(environment.stop);
 	const { app, appUrl, databaseUrl, postmasterPid } = environment;
-	const ports = { bare: await freePort(), keyset: await freePort() };
+	if (options.search) {
+		log('adding 10 000 open commissions and 1 000 workrooms, and waiting for the index…');
+		await seedSearchData(databaseUrl);
+		await waitForIndex(databaseUrl);
+	}
+	const ports = { bare: await freePort(), keyset: await freePort(), nearby: await freePort() };
 	const bare = startBaseline('bare', ports.bare, databaseUrl);
 	cleanups.unshift(() => stopChild(bare));
 	const keyset = startBaseline('keyset', ports.keyset, databaseUrl);
 	cleanups.unshift(() => stopChild(keyset));
 	await waitForAnswer(`http://127.0.0.1:${ports.bare}/`);
+	const nearby = startBaseline('nearby', ports.nearby, databaseUrl);
+	cleanups.unshift(() => stopChild(nearby));
 	await waitForAnswer(`http://127.0.0.1:${ports.keyset}/`);
-	const pids: Record<Target, number> = { app: app.pid!, bare: bare.pid!, keyset: keyset.pid! };
+	await waitForAnswer(`http://127.0.0.1:${ports.nearby}/`);
+	const pids: Record<Target, number> = { app: app.pid!, bare: bare.pid!, keyset: keyset.pid!, nearby: nearby.pid! };
 
 	const cookies = {
 		customer: await signIn(appUrl, demoAccounts.customer),
@@ -67,8 +107,8 @@ async function main(profileDir: string | null) {
 	};
 	const only = options.only ? new RegExp(options.only, 'i') : null;
 	const runs: Run[] = [];
-	for (const scenario of scenarios) {
-		if (only && scenario.name !== baselineName && !only.test(scenario.name)) continue;
+	for (const scenario of scenarioList) {
+		if (only && scenario.name !== yardstick && !only.test(scenario.name)) continue;
 		const base = scenario.target === 'app' ? appUrl : `http://127.0.0.1:${ports[scenario.target]}`;
 		const headers: Record<string, string> = { origin: base, accept: 'text/html,application/json' };
 		if (scenario.as) headers.cookie = cookies[scenario.as];
@@ -82,6 +122,8 @@ async function main(profileDir: string | null) {
 			redirect: 'manual'
 		});
 		await probe.arrayBuffer();
+		const source = probe.headers.get('x-search-source');
+		if (source) log(`"${scenario.name}" answers from the ${source === 'index' ? 'search index' : source}`);
 		if (probe.status === 404 && scenario.optional) {
 			log(`skipping "${scenario.name}": ${scenario.path} answers 404`);
 			continue;
@@ -122,7 +164,7 @@ async function main(profileDir: string | null) {
 }
 
 function report(runs: Run[]) {
-	const baseline = runs.find((r) => r.scenario.name === baselineName)!;
+	const baseline = runs.find((r) => r.scenario.name === yardstick)!;
 	const figure = (value: number, digits = 0) => (Number.isFinite(value) ? value.toFixed(digits) : '—');
 	const rows = [['scenario', 'req/s', 'p50 ms', 'p99 ms', 'server µs/req', 'db µs/req', '× keyset', 'failed']];
 	for (const run of runs) {
@@ -142,7 +184,7 @@ function report(runs: Run[]) {
 	}
 	console.log(
 		`\nTackline HTTP bench — ${rounds} rounds of ${seconds} s slices, ${connections} connections, Node ${process.version}\n` +
-			'(medians over rounds; "× keyset" is the median of per-round req/s ratios to the keyset list)\n'
+			`(medians over rounds; "× keyset" is the median of per-round req/s ratios to "${yardstick}")\n`
 	);
 	console.log(table(rows));
 	const odd = runs.filter((r) => r.slices.some((s) => s.failures));

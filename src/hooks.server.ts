@@ -15,6 +15,8 @@ import * as commissions from '$lib/server/commissions';
 import * as mail from '$lib/server/mail';
 import * as quotes from '$lib/server/quotes';
 import * as messages from '$lib/server/messages';
+import * as search from '$lib/server/search';
+import { requestSync } from '$lib/server/search-outbox';
 
 /** Background jobs (mail and later ones) run in the app process; adapter-node's shutdown lets them finish. */
 export const init: ServerInit = async () => {
@@ -24,9 +26,12 @@ export const init: ServerInit = async () => {
 		[queueNames.mail]: mail.deliver,
 		[queueNames.commissionExpiry]: async () => void (await commissions.expireDue(db)),
 		[queueNames.quoteLapse]: async () => void (await quotes.lapseDue(db)),
-		[queueNames.messageDigest]: async () => void (await messages.sendDigests(db))
+		[queueNames.messageDigest]: async () => void (await messages.sendDigests(db)),
+		[queueNames.searchSync]: async () => void (await search.syncOutbox(db))
 	});
 	void mail.relayStatus(); // warm the health check's cache
+	// A search engine that lost its data (or a first start) is rebuilt by the first sync run.
+	await requestSync(db).catch((error: unknown) => console.error(`[search] could not ask for a sync: ${String(error)}`));
 };
 
 /** Routes hand this to domain functions; tests and scripts pass their own handle. */

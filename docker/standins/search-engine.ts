@@ -69,9 +69,33 @@ export class SearchIndex {
 		return { uid: this.uid, primaryKey: this.primaryKey, createdAt: this.createdAt, updatedAt: this.updatedAt };
 	}
 
+	/** Documents with a point, by latitude: a radius filter then reads a band of them instead of every one. */
+	private byLatitude: { lat: number; key: string }[] | null = null;
+
 	private touch() {
 		this.updatedAt = new Date().toISOString();
 		this.text = null;
+		this.byLatitude = null;
+	}
+
+	/** Keys of documents whose latitude is within the radius's north–south reach (a superset of the matches). */
+	private latitudeBand({ lat, metres }: { lat: number; metres: number }): string[] {
+		this.byLatitude ??= [...this.documents]
+			.map(([key, doc]) => ({ key, lat: Number((doc._geo as { lat?: unknown } | undefined)?.lat) }))
+			.filter((entry) => Number.isFinite(entry.lat))
+			.sort((a, b) => a.lat - b.lat);
+		const reach = ((metres * 1.01) / 6_371_008.8) * (180 / Math.PI);
+		const sorted = this.byLatitude;
+		let low = 0;
+		let high = sorted.length;
+		while (low < high) {
+			const middle = (low + high) >> 1;
+			if (sorted[middle].lat < lat - reach) low = middle + 1;
+			else high = middle;
+		}
+		const keys: string[] = [];
+		for (let i = low; i < sorted.length && sorted[i].lat <= lat + reach; i++) keys.push(sorted[i].key);
+		return keys;
 	}
 
 	updateSettings(patch: Partial<Settings>) {
@@ -151,11 +175,13 @@ export class SearchIndex {
 		const started = performance.now();
 		const match = this.compile(request.filter);
 		const q = request.q?.trim() ?? '';
-		let candidates: { key: string; doc: Doc; score: number }[];
+		let candidates: { key: string; doc: Doc; score: number; distance?: number; sortValues?: unknown[] }[];
 		if (q) {
 			candidates = this.textIndex()
 				.search(q)
 				.map((hit) => ({ key: String(hit.id), doc: this.documents.get(String(hit.id))!, score: hit.score }));
+		} else if (match.within) {
+			candidates = this.latitudeBand(match.within).map((key) => ({ key, doc: this.documents.get(key)!, score: 0 }));
 		} else {
 			candidates = [...this.documents].map(([key, doc]) => ({ key, doc, score: 0 }));
 		}
@@ -171,7 +197,9 @@ export class SearchIndex {
 				const origin = { lat: Number(geo[1]), lng: Number(geo[2]) };
 				geoOrigin = origin;
 				const direction = geo[3] === 'asc' ? 1 : -1;
-				comparators.push((a, b) => direction * (distanceTo(a.doc, origin) - distanceTo(b.doc, origin)));
+				// Each hit's distance is worked out once, not at every comparison of the sort.
+				const distance = (c: { doc: Doc; distance?: number }) => (c.distance ??= distanceTo(c.doc, origin));
+				comparators.push((a, b) => direction * (distance(a) - distance(b)));
 				continue;
 			}
 			const field = fieldSort.exec(rule);
@@ -182,7 +210,14 @@ export class SearchIndex {
 					'invalid_search_sort'
 				);
 			const direction = field[2] === 'asc' ? 1 : -1;
-			comparators.push((a, b) => direction * compareValues(fieldValue(a.doc, field[1]), fieldValue(b.doc, field[1])));
+			// Read once per hit and rule, not at every comparison.
+			const slot = comparators.length;
+			const value = (c: { doc: Doc; sortValues?: unknown[] }) => {
+				c.sortValues ??= [];
+				if (!(slot in c.sortValues)) c.sortValues[slot] = fieldValue(c.doc, field[1]);
+				return c.sortValues[slot];
+			};
+			comparators.push((a, b) => direction * compareValues(value(a), value(b)));
 		}
 		comparators.push((a, b) => b.score - a.score);
 		filtered.sort((a, b) => {

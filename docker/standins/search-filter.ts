@@ -255,8 +255,17 @@ function matches(node: Node, doc: Doc): boolean {
 	}
 }
 
+/** A compiled filter; `within` is a radius every match lies in, when the filter requires one (for a prefilter). */
+export type Predicate = ((doc: Doc) => boolean) & { within?: { lat: number; lng: number; metres: number } };
+
+function requiredRadius(node: Node): Predicate['within'] {
+	if (node.kind === 'geoRadius') return { lat: node.lat, lng: node.lng, metres: node.metres };
+	if (node.kind === 'and') for (const item of node.items) if (item.kind === 'geoRadius') return requiredRadius(item);
+	return undefined;
+}
+
 /** Parses a filter (string or array form) into a predicate, refusing attributes that are not filterable. */
-export function compileFilter(filter: Filter | undefined | null, filterable: readonly string[]): (doc: Doc) => boolean {
+export function compileFilter(filter: Filter | undefined | null, filterable: readonly string[]): Predicate {
 	if (filter === undefined || filter === null || (Array.isArray(filter) && filter.length === 0)) return () => true;
 	const text = Array.isArray(filter)
 		? filter
@@ -271,5 +280,7 @@ export function compileFilter(filter: Filter | undefined | null, filterable: rea
 				`Attribute \`${attribute}\` is not filterable. Available filterable attributes are: \`${filterable.join(', ')}\`.`
 			);
 	}
-	return (doc) => matches(node, doc);
+	const predicate: Predicate = (doc) => matches(node, doc);
+	predicate.within = requiredRadius(node);
+	return predicate;
 }

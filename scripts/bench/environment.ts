@@ -66,8 +66,8 @@ export async function signIn(baseUrl: string, email: string) {
 	return cookie;
 }
 
-/** `nodeArgs` go before `build` (e.g. `--cpu-prof`). */
-export async function startBenchEnvironment(options: { nodeArgs?: string[] } = {}) {
+/** `nodeArgs` go before `build` (e.g. `--cpu-prof`); `env` overrides the stand-ins' settings for the app. */
+export async function startBenchEnvironment(options: { nodeArgs?: string[]; env?: Record<string, string> } = {}) {
 	const work = mkdtempSync(join(tmpdir(), 'tackline-bench-'));
 	chmodSync(work, 0o755); // the postgres user must be able to enter it
 	const cleanups: (() => unknown)[] = [() => rmSync(work, { recursive: true, force: true })];
@@ -93,6 +93,7 @@ export async function startBenchEnvironment(options: { nodeArgs?: string[] } = {
 		const app = startServer(
 			{
 				...standins.env,
+				...options.env,
 				DATABASE_URL: database.url,
 				AUTH_SECRET: randomBytes(32).toString('base64url'),
 				AUTH_TRUST_HOST: 'true',

@@ -3,7 +3,7 @@
  * demo account first and sends its cookie; `optional` scenarios are skipped when their route answers 404
  * (a feature not built yet).
  */
-export type Target = 'app' | 'bare' | 'keyset';
+export type Target = 'app' | 'bare' | 'keyset' | 'nearby';
 
 export type Scenario = {
 	name: string;
@@ -44,3 +44,20 @@ export const scenarios: Scenario[] = [
 
 /** Demo accounts from scripts/demo/people.ts. */
 export const demoAccounts = { customer: 'customer@tackline.test', tailor: 'tailor@tackline.test' } as const;
+
+/** The search bench's yardstick: the near-me keyset query answered by node:http + pg alone. */
+export const searchBaselineName = 'near-me keyset (node:http + pg)';
+
+/** `npm run bench:search`: the near-me lists over 10 000 open commissions and 1 000 workrooms. */
+export const searchScenarios: Scenario[] = [
+	{ name: searchBaselineName, target: 'nearby', path: '/' },
+	{ name: 'tailor: near-me page (SSR)', target: 'app', path: '/workroom/commissions', as: 'tailor' },
+	{ name: 'tailor: GET /api/v1/commissions', target: 'app', path: '/api/v1/commissions', as: 'tailor' },
+	{
+		name: 'tailor: API, newest, filtered',
+		target: 'app',
+		path: '/api/v1/commissions?sort=newest&garment=tunic&budgetMin=9000&radiusKm=25',
+		as: 'tailor'
+	},
+	{ name: 'GET /api/v1/tailors near a point', target: 'app', path: '/api/v1/tailors?near=46.8512,3.2089&radiusKm=25' }
+];

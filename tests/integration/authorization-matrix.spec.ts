@@ -12,6 +12,7 @@ import { measurementProfileRows } from './authorization/measurement-profiles';
 import { quoteRows } from './authorization/quotes';
 import { openApiRows } from './authorization/openapi';
 import { messageRows } from './authorization/messages';
+import { searchRows } from './authorization/search';
 import { workroomRows } from './authorization/workrooms';
 import { testDb } from './db';
 
@@ -33,3 +34,4 @@ describeMatrix('quotes', quoteRows, () => world);
 describeMatrix('deciding on quotes, and what acceptance opens up', acceptRows, () => world);
 describeMatrix('the API description', openApiRows, () => world);
 describeMatrix('messages', messageRows, () => world);
+describeMatrix('search near me', searchRows, () => world);

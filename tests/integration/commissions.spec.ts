@@ -120,8 +120,14 @@ describe('posting a commission', () => {
 		expect(again.body.publishedAt).toBe(published.body.publishedAt);
 
 		const tailor = await signedIn(await createWorkroom(db));
-		const workroom = await tailor.get('/workroom');
-		expect(await workroom.text()).toContain('Grey flannel skirt for the office');
+		// Newest first among the open commissions near the tailor's workroom (the demo city has closer ones);
+		// the search index takes the new one in a moment after publishing.
+		let listed = '';
+		for (let attempt = 0; attempt < 40 && !listed.includes('Grey flannel skirt for the office'); attempt += 1) {
+			if (attempt) await new Promise((resolve) => setTimeout(resolve, 250));
+			listed = await (await tailor.get('/workroom/commissions?sort=newest')).text();
+		}
+		expect(listed).toContain('Grey flannel skirt for the office');
 		const page = await tailor.get(`/commissions/${created.body.id}`);
 		expect(page.status).toBe(200);
 		const html = await page.text();

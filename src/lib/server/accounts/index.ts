@@ -3,6 +3,7 @@ import type { Executor } from '../db';
 import { session, user, type LengthUnit, type UserRole } from '../db/schema';
 import * as mail from '../mail';
 import * as audit from '../audit';
+import { noteWorkroomChanged } from '../search-outbox';
 import type { SessionUser } from '$lib/types/user';
 import { hashPassword, verifyAgainstNothing, verifyPassword } from './password';
 import { accountExistsMail, confirmAddressMail, noAccountMail, signInLinkMail, suspendedAccountMail } from './mails';
@@ -147,8 +148,10 @@ export async function suspend(
 			.update(user)
 			.set({ suspendedAt: new Date(), suspendedReason: reason })
 			.where(sql`${user.id} = ${userId} and ${user.suspendedAt} is null`)
-			.returning({ id: user.id });
+			.returning({ id: user.id, role: user.role });
 		if (!changed) return;
+		// A suspended tailor's workroom leaves the search results.
+		if (changed.role === 'tailor') await noteWorkroomChanged(tx, userId);
 		// Reinstatement must not bring old cookies back to life.
 		await endSessionsOf(tx, { userId });
 		await audit.record(tx, {
@@ -167,9 +170,10 @@ export async function reinstate(db: Executor, { userId, actorId }: { userId: str
 			.update(user)
 			.set({ suspendedAt: null, suspendedReason: null })
 			.where(sql`${user.id} = ${userId} and ${user.suspendedAt} is not null`)
-			.returning({ id: user.id });
-		if (changed)
-			await audit.record(tx, { actorId, action: 'account.reinstated', subjectType: 'user', subjectId: userId });
+			.returning({ id: user.id, role: user.role });
+		if (!changed) return;
+		if (changed.role === 'tailor') await noteWorkroomChanged(tx, userId);
+		await audit.record(tx, { actorId, action: 'account.reinstated', subjectType: 'user', subjectId: userId });
 	});
 }
 

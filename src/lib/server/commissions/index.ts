@@ -19,3 +19,5 @@ export { CommissionError, errorStatus, type CommissionIssue } from './errors';
 export { leadTimeWarning, todayIn, typicalLeadDays } from './lead-times';
 export { fabricEstimateForBand } from './estimate';
 export * as schemas from './schemas';
+export * as searchDocuments from './search-documents';
+export type { CommissionCard, CommissionSort, NearbyCommissionFilters } from './search-documents';

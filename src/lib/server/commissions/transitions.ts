@@ -6,6 +6,7 @@ import type { Executor } from '../db';
 import { commission, commissionMeasurements, commissionSizeBand, type Commission } from '../db/schema';
 import * as mail from '../mail';
 import type { Mail } from '../mail';
+import { noteCommissionChanged } from '../search-outbox';
 import { commissionOpenDays } from '../services/commission-settings';
 import { CommissionError, type CommissionIssue } from './errors';
 import { coarsen } from '$lib/geo/coarsen';
@@ -241,6 +242,7 @@ export async function publish(
 			subjectId: id,
 			data: { expiresAt: expiresAt.toISOString() }
 		});
+		await noteCommissionChanged(tx, id);
 		return {
 			commission: updated,
 			sizeBand: bandRows.map(({ dimension, lowerMm, upperMm }) => ({ dimension, lowerMm, upperMm }))
@@ -278,6 +280,7 @@ export async function editOpen(
 			action: 'commission.edited',
 			data: { fields: Object.keys(set) }
 		});
+		await noteCommissionChanged(tx, id);
 		const lines = describeChanges(row, updated);
 		if (lines.length) await mailQuotingTailors(tx, id, (to) => changedMail(to, updated, lines));
 		return updated;
@@ -296,7 +299,10 @@ export async function cancel(db: Executor, { id, actor }: { id: string; actor: A
 			action: 'commission.cancelled',
 			data: { from: row.status }
 		});
-		if (row.status === 'open') await mailQuotingTailors(tx, id, (to) => cancelledMail(to, row));
+		if (row.status === 'open') {
+			await noteCommissionChanged(tx, id);
+			await mailQuotingTailors(tx, id, (to) => cancelledMail(to, row));
+		}
 		return updated;
 	});
 }
@@ -312,6 +318,7 @@ export async function expire(db: Executor, { id, now = new Date() }: { id: strin
 		if (await hasAcceptedQuote(tx, id)) return false;
 		await tx.update(commission).set({ status: 'expired', updatedAt: now }).where(eq(commission.id, id));
 		await audit.record(tx, { actorId: null, action: 'commission.expired', subjectType: 'commission', subjectId: id });
+		await noteCommissionChanged(tx, id);
 		const customer = await accounts.getProfile(tx, { id: row.customerId });
 		if (customer) await mail.queue(tx, expiredMail(customer.email, customer.name, row));
 		return true;

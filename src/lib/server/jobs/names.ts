@@ -8,7 +8,9 @@ export const queueNames = {
 	/** Every few minutes: sent quotes past their valid-until date become `lapsed`. */
 	quoteLapse: 'quote-lapse',
 	/** Every minute: one mail per person about messages that have waited unread for 15 minutes. */
-	messageDigest: 'message-digest'
+	messageDigest: 'message-digest',
+	/** Drains the search outbox into the indexes; every minute too, so the index catches up after an outage. */
+	searchSync: 'search-sync'
 } as const;
 
 export type QueueName = (typeof queueNames)[keyof typeof queueNames];

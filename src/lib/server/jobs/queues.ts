@@ -55,6 +55,19 @@ export function queueDefinitions(): QueueDefinition[] {
 			// One run at a time; rows are locked while a run mails about them, and a missed minute is caught up.
 			options: { policy: 'singleton', retryLimit: 2, retryDelay: 30, expireInSeconds: 120 },
 			cron: { expression: '* * * * *' }
+		},
+		{
+			name: queueNames.searchSync,
+			// At most one run waiting and one running: every note asks for a run, and one run drains them all.
+			// Retries back off while search is away; the minute cron starts again after the last retry.
+			options: {
+				policy: 'stately',
+				retryLimit: 6,
+				retryDelay: 5,
+				retryBackoff: true,
+				expireInSeconds: 300
+			},
+			cron: { expression: '* * * * *' }
 		}
 	];
 }

@@ -7,6 +7,7 @@ import { tailorProfile, user, type NewTailorProfile } from '../db/schema';
 import { resolveLocation, type WorkroomPlace } from './location';
 import { statusOf, type OnboardingFacts } from './onboarding';
 import { portfolio } from '../photos';
+import { noteWorkroomChanged } from '../search-outbox';
 import type { WorkroomInput } from './schemas';
 import { firstFreeSlug, slugify } from './slug';
 
@@ -150,6 +151,7 @@ async function syncOnboarding(tx: Executor, tailorId: string, row: OwnRow | null
 	if (!row || status.complete === (row.onboardedAt !== null)) return { status, onboardedAt: row?.onboardedAt ?? null };
 	const onboardedAt = status.complete ? new Date() : null;
 	await tx.update(tailorProfile).set({ onboardedAt }).where(eq(tailorProfile.userId, tailorId));
+	await noteWorkroomChanged(tx, tailorId);
 	await audit.record(tx, {
 		actorId: tailorId,
 		action: status.complete ? 'workroom.onboarded' : 'workroom.onboarding_reopened',
@@ -191,6 +193,7 @@ export async function save(
 			data: { fields: Object.keys(input).sort() }
 		});
 		const row = (await readRow(tx, tailorId))!;
+		await noteWorkroomChanged(tx, tailorId);
 		const { status, onboardedAt } = await syncOnboarding(tx, tailorId, row);
 		return { workroom: toOwn({ ...row, onboardedAt }), onboarding: status };
 	});
@@ -328,3 +331,4 @@ export async function listTowns(db: Executor): Promise<string[]> {
 		.orderBy(tailorProfile.city);
 	return rows.map((row) => row.town);
 }
+export * as searchDocuments from './search-documents';

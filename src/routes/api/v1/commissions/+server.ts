@@ -1,6 +1,8 @@
 import { requireRole } from '$lib/server/auth/guard';
 import * as commissions from '$lib/server/commissions';
-import { parseJsonBody } from '$lib/server/http/respond';
+import { apiError, parseJsonBody, parseQuery } from '$lib/server/http/respond';
+import * as search from '$lib/server/search';
+import { json } from '@sveltejs/kit';
 import { actorOf, answerWith, refused, withTownName } from './respond.server';
 import type { RequestHandler } from './$types';
 
@@ -21,4 +23,25 @@ export const POST: RequestHandler = async ({ request, locals, getClientAddress }
 	} catch (error) {
 		return refused(error);
 	}
+};
+
+/** Open commissions near the tailor (their workroom unless `near` is given), by distance or newest, keyset-paged. */
+export const GET: RequestHandler = async ({ url, locals }) => {
+	const user = requireRole('tailor');
+	const parsed = parseQuery(url, search.schemas.nearbyCommissionsQuery);
+	if (!parsed.ok) return parsed.response;
+	const list = await search.browseForTailor(locals.db, { tailorId: user.id, query: parsed.data });
+	if (!list.ok)
+		return apiError(400, 'invalid_input', 'Your workroom has no place yet: pass near=LAT,LNG.', [
+			{ path: 'near', message: 'Give a point, or set your workroom’s place first.' }
+		]);
+	return json(
+		{
+			items: list.items.map((item) => search.commissionItem(item, user.units)),
+			nextCursor: list.nextCursor,
+			near: list.origin.near,
+			radiusKm: list.origin.radiusKm
+		},
+		{ headers: { 'x-search-source': list.source, 'cache-control': 'private, no-store' } }
+	);
 };
