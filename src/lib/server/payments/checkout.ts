@@ -7,7 +7,7 @@ import * as commissions from '../commissions';
 import type { Executor } from '../db';
 import { forPayment, isParty, noteCheckoutSession } from '../orders/payment';
 import { payments } from '../services/payments';
-import { PaymentError } from './errors';
+import { outageAsUnavailable, PaymentError } from './errors';
 import { syncFromSession } from './events';
 
 /** Who pays: the signed-in person, with the request's address for the audit log. */
@@ -30,6 +30,17 @@ function attemptOf(session: Stripe.Checkout.Session): number {
  * after one expires is the next attempt made. Returns the hosted page's URL.
  */
 export async function startCheckout(
+	db: Executor,
+	input: { orderId: string; actor: PayingActor }
+): Promise<{ url: string; sessionId: string; reused: boolean }> {
+	try {
+		return await checkout(db, input);
+	} catch (error) {
+		throw outageAsUnavailable(error);
+	}
+}
+
+async function checkout(
 	db: Executor,
 	{ orderId, actor }: { orderId: string; actor: PayingActor }
 ): Promise<{ url: string; sessionId: string; reused: boolean }> {

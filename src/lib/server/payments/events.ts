@@ -9,7 +9,7 @@ import * as mail from '../mail';
 import { forPayment, markFunded, type PayableOrder } from '../orders/payment';
 import * as payouts from '../payouts';
 import { payments } from '../services/payments';
-import { PaymentError } from './errors';
+import { outageAsUnavailable, PaymentError } from './errors';
 import { lastFailure, post, recordPayment } from './ledger';
 import { orderFundedMail, paymentReceivedMail } from './mails';
 
@@ -235,7 +235,7 @@ export async function syncFromSession(
 		session = await payments().checkout.sessions.retrieve(sessionId, { expand: ['payment_intent'] });
 	} catch (error) {
 		if ((error as { statusCode?: number }).statusCode === 404) throw new PaymentError('not_found', 'There is no such payment.');
-		throw error;
+		throw outageAsUnavailable(error);
 	}
 	if (session.metadata?.order_id !== orderId) throw new PaymentError('not_found', 'There is no such payment.');
 	const paid = await paidFromSession(session);

@@ -4,7 +4,7 @@ import * as audit from '../audit';
 import { publicOrigin } from '../auth/origin';
 import type { Executor } from '../db';
 import { tailorProfile, type PayoutStatus } from '../db/schema';
-import { payments } from '../services/payments';
+import { isProcessorOutage, payments } from '../services/payments';
 
 export type { PayoutStatus } from '../db/schema';
 
@@ -62,6 +62,16 @@ export async function destinationOf(db: Executor, tailorId: string): Promise<str
  * workroom's payouts page.
  */
 export async function startOnboarding(db: Executor, tailor: PayoutActor): Promise<{ url: string }> {
+	try {
+		return await onboard(db, tailor);
+	} catch (error) {
+		if (isProcessorOutage(error))
+			throw new PayoutError('unavailable', 'The payment service is not answering just now. Please try again in a minute.');
+		throw error;
+	}
+}
+
+async function onboard(db: Executor, tailor: PayoutActor): Promise<{ url: string }> {
 	const [profile] = await db
 		.select({
 			accountId: tailorProfile.payoutAccountId,
