@@ -15,6 +15,7 @@ import { demoCommissionMeasurements, demoCommissions } from './commissions';
 import { seedDemoPhotos, storageConfigured } from './images';
 import { demoMeasurementProfiles } from './measurements';
 import { adminEmail, demoPassword, demoUsers } from './people';
+import { seedDemoPayouts } from './payouts';
 import { demoPlaces } from './places';
 import { seedDemoQuotes } from './quotes';
 import { demoTailorProfiles } from './tailors';
@@ -79,6 +80,10 @@ export async function seedDemo(db: Database): Promise<SeedResult> {
 			.onConflictDoNothing();
 		await seedDemoQuotes(tx, now);
 	});
+	await seedDemoPayouts(
+		db,
+		demoTailorProfiles(now).map((t) => t.userId)
+	);
 	// Photos go through the photos area into the bucket; without one (a bare `npm run db:seed`) there are none.
 	if (storageConfigured()) {
 		await seedDemoPhotos(

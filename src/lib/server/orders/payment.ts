@@ -30,7 +30,10 @@ export async function forPayment(
 }
 
 /** Remembers the Checkout Session the customer was sent to, so a second click can reuse it. */
-export async function noteCheckoutSession(db: Executor, { orderId, sessionId }: { orderId: string; sessionId: string }) {
+export async function noteCheckoutSession(
+	db: Executor,
+	{ orderId, sessionId }: { orderId: string; sessionId: string }
+) {
 	await db
 		.update(order)
 		.set({ checkoutSessionId: sessionId })

@@ -47,15 +47,15 @@ async function checkout(
 	const row = await forPayment(db, { orderId });
 	if (!row || !(isParty(row, actor.id) || actor.role === 'admin')) throw noSuchOrder();
 	if (row.customerId !== actor.id) throw new PaymentError('forbidden', 'Only the customer pays for an order.');
-	if (row.status === 'cancelled') throw new PaymentError('conflict', 'This order was cancelled, so there is nothing to pay.');
+	if (row.status === 'cancelled')
+		throw new PaymentError('conflict', 'This order was cancelled, so there is nothing to pay.');
 	if (row.status !== 'awaiting_payment') throw new PaymentError('conflict', 'This order is already paid.');
 
 	const stripe = payments();
 	let attempt = 1;
 	if (row.checkoutSessionId) {
 		const previous = await stripe.checkout.sessions.retrieve(row.checkoutSessionId);
-		if (previous.status === 'open' && previous.url)
-			return { url: previous.url, sessionId: previous.id, reused: true };
+		if (previous.status === 'open' && previous.url) return { url: previous.url, sessionId: previous.id, reused: true };
 		if (previous.status === 'complete') {
 			await syncFromSession(db, { sessionId: previous.id, orderId });
 			throw new PaymentError('conflict', 'This order is already paid.');

@@ -22,6 +22,9 @@ export const errorStatus: Record<PaymentErrorCode, 403 | 404 | 409 | 503> = {
 /** A processor outage becomes a 503 the person can retry; anything else is passed on unchanged. */
 export function outageAsUnavailable(error: unknown): unknown {
 	return isProcessorOutage(error)
-		? new PaymentError('unavailable', 'The payment service is not answering just now. Nothing was charged; please try again in a minute.')
+		? new PaymentError(
+				'unavailable',
+				'The payment service is not answering just now. Nothing was charged; please try again in a minute.'
+			)
 		: error;
 }

@@ -117,7 +117,13 @@ async function fund(tx: Executor, paid: Paid, via: string): Promise<boolean> {
 		action: 'order.funded',
 		subjectType: 'order',
 		subjectId: row.id,
-		data: { chargeId: paid.chargeId, paymentIntentId: paid.paymentIntentId, amountMinor: row.priceMinor, currency: row.currency, via }
+		data: {
+			chargeId: paid.chargeId,
+			paymentIntentId: paid.paymentIntentId,
+			amountMinor: row.priceMinor,
+			currency: row.currency,
+			via
+		}
 	});
 	await mailBothSides(tx, funded);
 	return true;
@@ -172,7 +178,13 @@ async function recordFailure(tx: Executor, intent: Stripe.PaymentIntent) {
 		action: 'order.payment_failed',
 		subjectType: 'order',
 		subjectId: orderId,
-		data: { chargeId, paymentIntentId: intent.id, code: error?.code ?? null, declineCode: error?.decline_code ?? null, message }
+		data: {
+			chargeId,
+			paymentIntentId: intent.id,
+			code: error?.code ?? null,
+			declineCode: error?.decline_code ?? null,
+			message
+		}
 	});
 	return true;
 }
@@ -234,7 +246,8 @@ export async function syncFromSession(
 	try {
 		session = await payments().checkout.sessions.retrieve(sessionId, { expand: ['payment_intent'] });
 	} catch (error) {
-		if ((error as { statusCode?: number }).statusCode === 404) throw new PaymentError('not_found', 'There is no such payment.');
+		if ((error as { statusCode?: number }).statusCode === 404)
+			throw new PaymentError('not_found', 'There is no such payment.');
 		throw outageAsUnavailable(error);
 	}
 	if (session.metadata?.order_id !== orderId) throw new PaymentError('not_found', 'There is no such payment.');

@@ -15,10 +15,7 @@ export function paymentReceivedMail(to: string, paid: Paid): Mail {
 }
 
 /** To the tailor: the customer has paid, so work can start. */
-export function orderFundedMail(
-	to: string,
-	paid: Paid & { tailorPayoutMinor: number; dueDate: string }
-): Mail {
+export function orderFundedMail(to: string, paid: Paid & { tailorPayoutMinor: number; dueDate: string }): Mail {
 	return {
 		to,
 		subject: `“${paid.title}” is paid — you can start`,

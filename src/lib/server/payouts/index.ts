@@ -26,7 +26,9 @@ export class PayoutError extends Error {
 export const payoutsPath = '/workroom/payouts';
 
 /** What the processor says about a connected account, in our four words. */
-export function statusOf(account: Pick<Stripe.Account, 'payouts_enabled' | 'details_submitted' | 'requirements'>): PayoutStatus {
+export function statusOf(
+	account: Pick<Stripe.Account, 'payouts_enabled' | 'details_submitted' | 'requirements'>
+): PayoutStatus {
 	if (account.payouts_enabled) return 'enabled';
 	const disabled = account.requirements?.disabled_reason;
 	if (account.details_submitted && disabled && !disabled.startsWith('requirements.')) return 'restricted';
@@ -66,7 +68,10 @@ export async function startOnboarding(db: Executor, tailor: PayoutActor): Promis
 		return await onboard(db, tailor);
 	} catch (error) {
 		if (isProcessorOutage(error))
-			throw new PayoutError('unavailable', 'The payment service is not answering just now. Please try again in a minute.');
+			throw new PayoutError(
+				'unavailable',
+				'The payment service is not answering just now. Please try again in a minute.'
+			);
 		throw error;
 	}
 }
