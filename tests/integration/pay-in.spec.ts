@@ -116,7 +116,7 @@ async function eventJson(type: string, orderId: string) {
 		return object.metadata?.order_id === orderId;
 	});
 	if (!found) throw new Error(`No ${type} for ${orderId}`);
-	// eslint-disable-next-line @typescript-eslint/no-unused-vars
+	 
 	const { deliveries, ...event } = found;
 	return JSON.stringify(event);
 }
@@ -399,7 +399,7 @@ describe('tailor payouts', () => {
 			.from(tailorProfile)
 			.where(eq(tailorProfile.slug, 'obi-cut-and-stitch'));
 		expect(rows).toEqual([{ status: 'enabled', id: expect.stringMatching(/^acct_/) }]);
-		const account = await sdk().accounts.retrieve(rows[0].id!);
+		const account = await sdk().accounts.retrieve(rows[0].id);
 		expect(account.payouts_enabled).toBe(true);
 	});
 });

@@ -78,7 +78,7 @@ export const orderRows: Row<Ordered>[] = [
 	},
 	{
 		name: 'GET /workroom/payouts',
-		arrange: async () => ({ orderId: '', secrets: [] }),
+		arrange: () => Promise.resolve({ orderId: '', secrets: [] }),
 		send: (client) => client.get('/workroom/payouts'),
 		expect: {
 			anonymous: signInRedirect,
@@ -92,7 +92,7 @@ export const orderRows: Row<Ordered>[] = [
 	},
 	{
 		name: 'POST /workroom/payouts?/setUp',
-		arrange: async () => ({ orderId: '', secrets: [] }),
+		arrange: () => Promise.resolve({ orderId: '', secrets: [] }),
 		send: (client) => client.post('/workroom/payouts?/setUp'),
 		expect: {
 			anonymous: signInRedirect,
