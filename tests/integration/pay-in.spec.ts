@@ -20,6 +20,7 @@ import { createCommission, createUser, createWorkroom, type Person } from '../fa
 import { awardQuote, insertQuote } from '../factories/quote-rows';
 import { testDb } from './db';
 import { baseUrl, newClient, signIn, type Client } from './http';
+import { waitForMail } from './inbox';
 import { stripeControl, stripeStandin } from './stripe';
 
 const { db, pool } = testDb();
@@ -116,7 +117,7 @@ async function eventJson(type: string, orderId: string) {
 		return object.metadata?.order_id === orderId;
 	});
 	if (!found) throw new Error(`No ${type} for ${orderId}`);
-	 
+
 	const { deliveries, ...event } = found;
 	return JSON.stringify(event);
 }
@@ -199,6 +200,12 @@ describe('paying with a card that works', () => {
 			.from(auditEvent)
 			.where(and(eq(auditEvent.subjectId, world.orderId), eq(auditEvent.action, 'order.funded')));
 		expect(funded).toHaveLength(1);
+		const receipt = await waitForMail(world.customer.email);
+		expect(receipt.subject).toMatch(/^Payment received for/);
+		expect(receipt.text).toContain('€482.50');
+		const startNow = await waitForMail(world.tailor.email);
+		expect(startNow.subject).toMatch(/is paid — you can start$/);
+		expect(startNow.text).toContain('€434.25');
 	});
 
 	it('refuses a new checkout for a paid order', async () => {
@@ -327,6 +334,23 @@ describe('webhooks that are not to be trusted', () => {
 		const response = await deliver(payload);
 		expect(response.status).toBe(200);
 		expect(await response.json()).toMatchObject({ outcome: 'ignored' });
+	});
+
+	it('is not held to the per-address API limit: the processor sends from few addresses, in bursts', async () => {
+		const payload = JSON.stringify({
+			id: 'evt_unused_type_burst',
+			object: 'event',
+			type: 'customer.updated',
+			data: { object: { id: 'cus_y', object: 'customer' } },
+			created: Math.floor(Date.now() / 1000),
+			livemode: false,
+			api_version: '2025-01-01'
+		});
+		// The public API allows 600 a minute per address.
+		const statuses: number[] = [];
+		for (let batch = 0; batch < 13; batch++)
+			statuses.push(...(await Promise.all(Array.from({ length: 50 }, () => deliver(payload).then((r) => r.status)))));
+		expect(statuses.filter((status) => status !== 200)).toEqual([]);
 	});
 });
 
