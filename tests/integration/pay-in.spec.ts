@@ -377,6 +377,29 @@ describe('the return page before the webhook', () => {
 		expect(await chargesOf(world.orderId)).toHaveLength(1);
 	});
 
+	it('shows a refused card on the way back, before its webhook, and records it once', async () => {
+		const world = await unpaidOrder(17_500);
+		await control.setFaults({ dropWebhooks: 1 });
+		const { body } = await checkout(world.client, world.orderId);
+		expect((await control.pay(body.url!, TEST_CARDS.declined)).status).toBe(402);
+		await control.idle();
+		expect(await chargesOf(world.orderId)).toEqual([]);
+
+		const html = await (await world.client.get(`/orders/${world.orderId}/paid?cancelled=1`)).text();
+		expect(html).toContain('Your last card attempt did not go through');
+		expect(html).toMatch(/declined/i);
+		await control.clearFaults();
+		const failed = await eventJson('payment_intent.payment_failed', world.orderId);
+		expect((await deliver(failed)).status).toBe(200);
+		expect(await chargesOf(world.orderId)).toEqual([expect.objectContaining({ status: 'failed' })]);
+		const audited = await db
+			.select()
+			.from(auditEvent)
+			.where(and(eq(auditEvent.subjectId, world.orderId), eq(auditEvent.action, 'order.payment_failed')));
+		expect(audited).toHaveLength(1);
+		expect(await statusOf(world.orderId)).toBe('awaiting_payment');
+	});
+
 	it('says a cancelled payment left the order unpaid and offers to pay', async () => {
 		const world = await unpaidOrder(12_000);
 		const page = await world.client.get(`/orders/${world.orderId}/paid?cancelled=1`);

@@ -155,15 +155,19 @@ async function paidFromSession(session: Stripe.Checkout.Session): Promise<Paid |
 	return paid && orderId === paid.orderId ? paid : null;
 }
 
+/**
+ * Keeps why a card attempt failed, for the order's page (the order stays unpaid). The failed charge's id makes
+ * the record once, whether the webhook or the return page saw it first.
+ */
 async function recordFailure(tx: Executor, intent: Stripe.PaymentIntent) {
 	const orderId = intent.metadata?.order_id;
 	const error = intent.last_payment_error;
 	const chargeId = error?.charge ?? idOf(intent.latest_charge);
-	if (!orderId || !chargeId) return false;
+	if (!orderId || !chargeId || !error) return false;
 	const row = await forPayment(tx, { orderId, lock: true });
 	if (!row) return false;
-	const message = error?.message ?? 'The card was declined.';
-	await recordPayment(tx, {
+	const message = error.message ?? 'The card was declined.';
+	const recorded = await recordPayment(tx, {
 		orderId,
 		kind: 'charge',
 		processorId: chargeId,
@@ -173,6 +177,7 @@ async function recordFailure(tx: Executor, intent: Stripe.PaymentIntent) {
 		idempotencyKey: `charge-failed:${chargeId}`,
 		failureReason: message
 	});
+	if (!recorded) return false;
 	await audit.record(tx, {
 		actorId: null,
 		action: 'order.payment_failed',
@@ -181,8 +186,8 @@ async function recordFailure(tx: Executor, intent: Stripe.PaymentIntent) {
 		data: {
 			chargeId,
 			paymentIntentId: intent.id,
-			code: error?.code ?? null,
-			declineCode: error?.decline_code ?? null,
+			code: error.code ?? null,
+			declineCode: error.decline_code ?? null,
 			message
 		}
 	});
@@ -253,6 +258,22 @@ export async function syncFromSession(
 	if (session.metadata?.order_id !== orderId) throw new PaymentError('not_found', 'There is no such payment.');
 	const paid = await paidFromSession(session);
 	if (paid) await db.transaction((tx) => fund(tx, paid, 'return_page'));
+	else if (session.payment_intent && typeof session.payment_intent !== 'string') {
+		const intent = session.payment_intent;
+		await db.transaction((tx) => recordFailure(tx, intent));
+	}
+	return stateOf(db, orderId);
+}
+
+/**
+ * The same for an order whose customer came back without a session id (the payment page's "go back"):
+ * reads the order's latest Checkout Session, if it has one.
+ */
+export async function syncOrder(db: Executor, { orderId }: { orderId: string }): Promise<PaymentState> {
+	const row = await forPayment(db, { orderId });
+	if (!row) throw new PaymentError('not_found', 'There is no such order.');
+	if (row.status === 'awaiting_payment' && row.checkoutSessionId)
+		return syncFromSession(db, { sessionId: row.checkoutSessionId, orderId });
 	return stateOf(db, orderId);
 }
 

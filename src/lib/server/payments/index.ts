@@ -4,7 +4,7 @@ import { PaymentError } from './errors';
 import { lastFailure, moneyOf, type OrderMoney } from './ledger';
 
 export { startCheckout, returnPath, type PayingActor } from './checkout';
-export { handleEvent, stateOf, syncFromSession, type EventOutcome, type PaymentState } from './events';
+export { handleEvent, stateOf, syncFromSession, syncOrder, type EventOutcome, type PaymentState } from './events';
 export { PaymentError, errorStatus, type PaymentErrorCode } from './errors';
 export { moneyOf, type OrderMoney } from './ledger';
 

@@ -25,10 +25,12 @@ export const load: PageServerLoad = async ({ params, url, locals }) => {
 		throw problem;
 	}
 	let unreachable = false;
-	// Back from the hosted page: ask the processor, so a paid order shows as paid before its webhook arrives.
-	if (sessionId && user.id === order.customerId && order.status === 'awaiting_payment') {
+	// Back from the hosted page: ask the processor, so a paid order shows as paid (and a refused card its
+	// reason) before the webhook arrives.
+	if ((sessionId || cancelled) && user.id === order.customerId && order.status === 'awaiting_payment') {
 		try {
-			await payments.syncFromSession(locals.db, { sessionId, orderId: order.id });
+			if (sessionId) await payments.syncFromSession(locals.db, { sessionId, orderId: order.id });
+			else await payments.syncOrder(locals.db, { orderId: order.id });
 			order = await payments.orderView(locals.db, { orderId: params.id, viewer: user });
 		} catch (problem) {
 			if (!(problem instanceof payments.PaymentError)) throw problem;
