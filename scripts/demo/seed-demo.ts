@@ -16,6 +16,7 @@ import { seedDemoPhotos, storageConfigured } from './images';
 import { demoMeasurementProfiles } from './measurements';
 import { seedDemoMessages } from './messages';
 import { adminEmail, demoPassword, demoUsers } from './people';
+import { seedDemoPayouts } from './payouts';
 import { demoPlaces } from './places';
 import { seedDemoQuotes } from './quotes';
 import { demoTailorProfiles } from './tailors';
@@ -81,6 +82,10 @@ export async function seedDemo(db: Database): Promise<SeedResult> {
 		await seedDemoQuotes(tx, now);
 		await seedDemoMessages(tx, now);
 	});
+	await seedDemoPayouts(
+		db,
+		demoTailorProfiles(now).map((t) => t.userId)
+	);
 	// Photos go through the photos area into the bucket; without one (a bare `npm run db:seed`) there are none.
 	if (storageConfigured()) {
 		await seedDemoPhotos(

@@ -9,6 +9,7 @@ import { castActors } from './authorization/actors';
 import { describeMatrix, type World } from './authorization/matrix';
 import { commissionRows } from './authorization/commissions';
 import { measurementProfileRows } from './authorization/measurement-profiles';
+import { orderRows } from './authorization/orders';
 import { quoteRows } from './authorization/quotes';
 import { openApiRows } from './authorization/openapi';
 import { messageRows } from './authorization/messages';
@@ -35,3 +36,4 @@ describeMatrix('deciding on quotes, and what acceptance opens up', acceptRows, (
 describeMatrix('the API description', openApiRows, () => world);
 describeMatrix('messages', messageRows, () => world);
 describeMatrix('search near me', searchRows, () => world);
+describeMatrix('paying for orders, and payouts', orderRows, () => world);

@@ -109,3 +109,22 @@ export async function signUp(
 export async function signIn(client: Client, email: string, password: string) {
 	return client.post('/sign-in?/password', { email, password });
 }
+
+// Read loosely: each test asserts the shape it relies on.
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+export type JsonBody = Record<string, any>;
+
+/** A JSON API call as `client`, its answer parsed (null for an empty body). */
+export async function callJson(client: Client, method: string, path: string, body?: unknown) {
+	const response = await client.json(method, path, body);
+	const text = await response.text();
+	return { status: response.status, headers: response.headers, body: (text ? JSON.parse(text) : null) as JsonBody };
+}
+
+/** A new client signed in with the person's password (each client has its own address). */
+export async function signedIn(person: { email: string; password: string }, base = baseUrl) {
+	const client = newClient(undefined, base);
+	const response = await signIn(client, person.email, person.password);
+	if (response.status !== 303) throw new Error(`sign-in as ${person.email} answered ${response.status}`);
+	return client;
+}

@@ -1,5 +1,15 @@
 import type { Handle } from '@sveltejs/kit';
+import { hostedPagesOrigins } from '../services/payments';
 import { protectiveHeaders } from './protective-headers.js';
+
+/**
+ * Paying and payout set-up are forms whose answer redirects to the processor's hosted pages; browsers hold
+ * such redirects to `form-action`, so those origins (and only those) are added to it.
+ */
+function allowHostedPages(csp: string): string {
+	const origins = hostedPagesOrigins().join(' ');
+	return csp.replace(/form-action 'self'(?=;|$)/, `form-action 'self' ${origins}`);
+}
 
 /** Headers that belong on every response; the Content-Security-Policy comes from svelte.config.js. */
 export const securityHeaders: Handle = async ({ event, resolve }) => {
@@ -12,6 +22,8 @@ export const securityHeaders: Handle = async ({ event, resolve }) => {
 	} catch {
 		response = new Response(resolved.body, resolved);
 	}
+	const csp = response.headers.get('content-security-policy');
+	if (csp) response.headers.set('content-security-policy', allowHostedPages(csp));
 	for (const [name, value] of Object.entries(headers)) {
 		if (!response.headers.has(name)) response.headers.set(name, value);
 	}

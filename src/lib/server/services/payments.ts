@@ -55,3 +55,24 @@ export function check(): Promise<string> {
 	if (!lastCheck || now - lastCheck.at > checkCacheMs) lastCheck = { at: now, result: ping() };
 	return lastCheck.result;
 }
+
+/**
+ * Where the processor's hosted pages (payment, onboarding) live, for the Content-Security-Policy's
+ * `form-action`: a form that pays redirects there. The stand-in serves them from its own address.
+ */
+export function hostedPagesOrigins(): string[] {
+	if (env.STRIPE_API_HOST) {
+		const protocol = env.STRIPE_API_PROTOCOL === 'http' ? 'http' : 'https';
+		const port = env.STRIPE_API_PORT ? `:${Number(env.STRIPE_API_PORT)}` : '';
+		return [`${protocol}://${env.STRIPE_API_HOST}${port}`];
+	}
+	return ['https://checkout.stripe.com', 'https://connect.stripe.com'];
+}
+
+/** Whether a processor call failed on the processor's side or on the way there (rather than on our request). */
+export function isProcessorOutage(error: unknown): boolean {
+	const { type, statusCode } = (error ?? {}) as { type?: unknown; statusCode?: unknown };
+	if (typeof type !== 'string' || !type.startsWith('Stripe')) return false;
+	if (['StripeConnectionError', 'StripeAPIError', 'StripeRateLimitError'].includes(type)) return true;
+	return typeof statusCode === 'number' && (statusCode >= 500 || statusCode === 409 || statusCode === 429);
+}

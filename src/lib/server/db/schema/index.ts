@@ -6,6 +6,7 @@ export * from './quotes';
 export * from './messages';
 export * from './orders';
 export * from './disputes';
+export * from './payments';
 export * from './ledger';
 export * from './reviews';
 export * from './audit';

@@ -2,6 +2,7 @@ import { sql } from 'drizzle-orm';
 import { bigint, char, check, index, pgEnum, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
 import { id, createdAt, instant } from './columns';
 import { order } from './orders';
+import { payment } from './payments';
 
 /**
  * Positive amounts flow into an account, negative ones out of it. Customer money enters from
@@ -33,6 +34,8 @@ export const ledgerEntry = pgTable(
 		currency: char('currency', { length: 3 }).notNull(),
 		/** What happened: 'charge', 'release', 'fee', 'refund', 'transfer', 'settlement'. */
 		kind: text('kind').notNull(),
+		/** The processor object this movement records, when there is one (a fee kept has none). */
+		paymentId: uuid('payment_id').references(() => payment.id, { onDelete: 'restrict' }),
 		/** Derived from the business action (`release:<order>`), shared by a transaction's entries. */
 		idempotencyKey: text('idempotency_key').notNull(),
 		createdAt: createdAt()
@@ -42,6 +45,7 @@ export const ledgerEntry = pgTable(
 		uniqueIndex('ledger_entry_idempotency_account_uq').on(t.idempotencyKey, t.account),
 		index('ledger_entry_order_idx').on(t.orderId),
 		index('ledger_entry_transaction_idx').on(t.transactionId),
+		index('ledger_entry_payment_idx').on(t.paymentId),
 		index('ledger_entry_account_idx').on(t.account, t.currency),
 		check('ledger_entry_currency_iso', sql`${t.currency} ~ '^[A-Z]{3}$'`),
 		check('ledger_entry_amount_nonzero', sql`${t.amountMinor} <> 0`)
