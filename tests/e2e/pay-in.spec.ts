@@ -1,7 +1,7 @@
 import { expect, test } from '@playwright/test';
 import { createDb } from '../../src/lib/server/db/client';
 import { createCommission, createUser, createWorkroom } from '../factories';
-import { awardQuote, insertQuote } from '../factories/quote-rows';
+import { awardQuote, insertQuote } from '../factories/quotes';
 import { signInWithPassword } from './helpers';
 
 test.use({ extraHTTPHeaders: { 'x-forwarded-for': '198.19.0.93' } });

@@ -17,7 +17,7 @@ import {
 } from '../../src/lib/server/db/schema';
 import { TEST_CARDS } from '../../docker/standins/stripe-controller';
 import { createCommission, createUser, createWorkroom, type Person } from '../factories';
-import { awardQuote, insertQuote } from '../factories/quote-rows';
+import { awardQuote, insertQuote } from '../factories/quotes';
 import { testDb } from './db';
 import { baseUrl, newClient, signIn, type Client } from './http';
 import { waitForMail } from './inbox';

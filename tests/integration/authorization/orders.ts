@@ -8,7 +8,7 @@ import { eq } from 'drizzle-orm';
 import { expect } from 'vitest';
 import { order } from '../../../src/lib/server/db/schema';
 import { createCommission } from '../../factories';
-import { awardQuote, insertQuote } from '../../factories/quote-rows';
+import { awardQuote, insertQuote } from '../../factories/quotes';
 import { signInRedirect, suspendedRedirect, type Expectations, type Row, type World } from './matrix';
 
 type Ordered = { orderId: string; secrets: string[] };

@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createCommission, createUser, createWorkroom } from '../../../../tests/factories';
-import { awardQuote, insertQuote } from '../../../../tests/factories/quote-rows';
+import { awardQuote, insertQuote } from '../../../../tests/factories/quotes';
 import { createDb } from '../db/client';
 import { ledgerEntry } from '../db/schema';
 import { moneyOf, post, recordPayment } from './ledger';
