@@ -95,7 +95,15 @@ export async function createWorkroom(
 		specialties: ['straight-skirt', 'wide-leg-trousers'],
 		...(options.onboarded === false
 			? {}
-			: { countryCode: 'FR', hourlyRateMinor: 2800, rateCurrency: 'EUR', onboardedAt: new Date() }),
+			: {
+					countryCode: 'FR',
+					hourlyRateMinor: 2800,
+					rateCurrency: 'EUR',
+					onboardedAt: new Date(),
+					// Payouts set up, as a quote must have before it can be accepted (a local id, unknown to Stripe).
+					payoutStatus: 'enabled' as const,
+					payoutAccountId: `acct_local_${slug}`
+				}),
 		...options.profile,
 		userId: tailor.id,
 		slug,

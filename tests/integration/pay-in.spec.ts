@@ -415,7 +415,7 @@ describe('the return page before the webhook', () => {
 
 describe('tailor payouts', () => {
 	it('sets up a connected account once and follows it to enabled', async () => {
-		const tailor = await createWorkroom(db);
+		const tailor = await createWorkroom(db, { profile: { payoutStatus: 'not_connected', payoutAccountId: null } });
 		const client = await signedIn(tailor);
 		const first = await client.post('/workroom/payouts?/setUp');
 		expect(first.status).toBe(303);

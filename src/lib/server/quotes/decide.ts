@@ -8,6 +8,7 @@ import type { Executor } from '../db';
 import { quote, type Commission, type Quote } from '../db/schema';
 import * as mail from '../mail';
 import * as orders from '../orders';
+import * as payouts from '../payouts';
 import { noteCommissionChanged } from '../search-outbox';
 import { acceptedMail, anotherAcceptedMail, declinedMail } from './decision-mails';
 import { QuoteError } from './errors';
@@ -174,6 +175,11 @@ export async function accept(
 			if (row.status !== 'open') throw notOpen(row, q);
 			const refusal = unavailable(q, now);
 			if (refusal) throw refusal;
+			if (!(await payouts.ready(tx, q.tailorId)))
+				throw new QuoteError(
+					'conflict',
+					'This workroom has not finished setting up payouts, so its quote cannot be accepted yet. Ask them in Messages, or choose another quote.'
+				);
 
 			const order = await orders.createOrder(tx, {
 				commissionId: row.id,
