@@ -38,12 +38,10 @@ export const quoteResponse = z
 	})
 	.meta({ id: 'Quote' });
 
-export const quoteListResponse = z
-	.object({ items: z.array(quoteResponse) })
-	.meta({
-		id: 'QuoteList',
-		description: 'The owner sees every quote, live first and then the history; a tailor their own.'
-	});
+export const quoteListResponse = z.object({ items: z.array(quoteResponse) }).meta({
+	id: 'QuoteList',
+	description: 'The owner sees every quote, live first and then the history; a tailor their own.'
+});
 
 /** `POST /api/v1/quotes/{id}/accept` → 201: the order the acceptance made. */
 export const acceptResponse = z
