@@ -271,12 +271,12 @@ describe('real answers fit the documented schemas', () => {
 		expect(photo.attachments).toHaveLength(1);
 
 		const page = (await expectDocumented(
-			await tailor.json('GET', `${path}/messages?limit=2`),
+			await tailor.json('GET', `${path}/messages?limit=1`),
 			'GET',
 			'/api/v1/threads/{id}/messages'
 		)) as { items: unknown[]; nextCursor: string | null };
-		expect(page.items).toHaveLength(2);
-		expect(page.nextCursor).not.toBeNull();
+		expect(page.items).toHaveLength(1);
+		expect(page.nextCursor, 'an older page follows').not.toBeNull();
 		const read = await expectDocumented(await tailor.json('POST', `${path}/read`), 'POST', '/api/v1/threads/{id}/read');
 		expect(read).toEqual({ marked: 2 });
 
