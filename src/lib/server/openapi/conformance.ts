@@ -30,7 +30,40 @@ import type { onboardingResponse, ownWorkroomResponse, publicWorkroomResponse } 
 /** A value as it reads after `JSON.stringify` and `JSON.parse`. */
 type Json<T> = T extends Date ? string : T extends object ? { -readonly [K in keyof T]: Json<T[K]> } : T;
 
-type Fits<Built, Schema extends z.ZodType> = [Json<Built>] extends [z.output<Schema>] ? true : false;
+/**
+ * Keys the builder writes that the schema does not name, at any depth (`never` when there are none). Assignability
+ * alone lets an extra key through, yet the document's objects refuse additional properties.
+ */
+type ExtraKeys<B, S, Path extends string = ''> = B extends readonly (infer BI)[]
+	? NonNullable<S> extends readonly (infer SI)[]
+		? ExtraKeys<BI, SI, `${Path}[]`>
+		: never
+	: B extends object
+		? Matching<B, NonNullable<S>> extends infer SO
+			? SO extends object
+				? string extends keyof SO
+					? never
+					: {
+							[K in keyof B & string]: K extends keyof SO ? ExtraKeys<B[K], SO[K], `${Path}.${K}`> : `${Path}.${K}`;
+						}[keyof B & string]
+				: never
+			: never
+		: never;
+
+/** The members of a union schema type that the built value fits (all of them when it fits none alone). */
+type Matching<B, S> = [S extends unknown ? (B extends S ? S : never) : never] extends [never]
+	? S
+	: S extends unknown
+		? B extends S
+			? S
+			: never
+		: never;
+
+type Fits<Built, Schema extends z.ZodType> = [Json<Built>] extends [z.output<Schema>]
+	? [ExtraKeys<Json<Built>, z.output<Schema>>] extends [never]
+		? true
+		: false
+	: false;
 type Assert<T extends true> = T;
 
 /**
