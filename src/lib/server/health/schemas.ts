@@ -3,11 +3,9 @@ import { z } from 'zod';
 /** `GET /api/v1/health` (`HealthReport` in ./index). */
 export const healthReportSchema = z
 	.object({
-		status: z
-			.enum(['ok', 'degraded', 'down'])
-			.meta({
-				description: '`down` when the database is; `degraded` while mail, jobs, storage, search or payments wait.'
-			}),
+		status: z.enum(['ok', 'degraded', 'down']).meta({
+			description: '`down` when the database is; `degraded` while mail, jobs, storage, search or payments wait.'
+		}),
 		checks: z.object({
 			database: z.enum(['ok', 'down']),
 			mail: z.enum(['ok', 'degraded']),
