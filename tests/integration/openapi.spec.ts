@@ -6,9 +6,13 @@ import { Validator } from '@seriousme/openapi-schema-validator';
 import { Ajv2020 } from 'ajv/dist/2020.js';
 import addFormats from 'ajv-formats';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createUser, createWorkroom } from '../factories';
+import { createCommission, createUser, createWorkroom, type Person } from '../factories';
+import { solid } from '../factories/images';
+import { insertQuote } from '../factories/quote-rows';
+import { createQuotingWorkroom } from '../factories/quotes';
+import { openThread } from '../../src/lib/server/messages/threads';
 import { testDb } from './db';
-import { newClient, signIn, type Client } from './http';
+import { baseUrl, newClient, signIn, type Client } from './http';
 
 const { db, pool } = testDb();
 afterAll(() => pool.end());
@@ -32,6 +36,16 @@ beforeAll(async () => {
 
 const pointer = (...parts: string[]) => parts.map((p) => p.replaceAll('~', '~0').replaceAll('/', '~1')).join('/');
 
+/** Checks a value against the schema at `#/…` in the document. */
+function expectFits(body: unknown, where: string, ...parts: string[]) {
+	const validate = ajv.getSchema(`${documentId}#/${pointer(...parts)}`);
+	expect(validate, `${where} has a JSON schema`).toBeDefined();
+	const valid = validate!(body);
+	expect(validate!.errors ?? [], `${where}: ${JSON.stringify(body).slice(0, 400)}`).toEqual([]);
+	expect(valid).toBe(true);
+	return body;
+}
+
 /** Checks a real answer against the schema the document gives for that operation and status. */
 async function expectDocumented(response: Response, method: string, path: string) {
 	const status = String(response.status);
@@ -39,18 +53,15 @@ async function expectDocumented(response: Response, method: string, path: string
 	expect(operation, `${method} ${path} is documented`).toBeDefined();
 	expect(Object.keys(operation.responses), `${method} ${path} documents ${status}`).toContain(status);
 	const body: unknown = await response.json();
-	const validate = ajv.getSchema(
-		`${documentId}#/${pointer('paths', path, method.toLowerCase(), 'responses', status, 'content', 'application/json', 'schema')}`
+	return expectFits(
+		body,
+		`${method} ${path} ${status}`,
+		...['paths', path, method.toLowerCase(), 'responses', status, 'content', 'application/json', 'schema']
 	);
-	expect(validate, `${method} ${path} ${status} has a JSON schema`).toBeDefined();
-	const valid = validate!(body);
-	expect(validate!.errors ?? [], `${method} ${path} ${status}: ${JSON.stringify(body).slice(0, 400)}`).toEqual([]);
-	expect(valid).toBe(true);
-	return body;
 }
 
-async function signedIn(role: 'customer' | 'tailor'): Promise<Client> {
-	const person = await createUser(db, { role });
+async function signedIn(role: 'customer' | 'tailor' | Person): Promise<Client> {
+	const person = typeof role === 'string' ? await createUser(db, { role }) : role;
 	const client = newClient();
 	expect((await signIn(client, person.email, person.password)).status).toBe(303);
 	return client;
@@ -154,6 +165,161 @@ describe('real answers fit the documented schemas', () => {
 		await expectDocumented(await client.json('GET', '/api/v1/workroom/portfolio'), 'GET', '/api/v1/workroom/portfolio');
 	});
 
+	it('quotes: sent, read, listed, changed, declined and accepted; the awarded tailor’s commission', async () => {
+		const customer = await createUser(db, { role: 'customer' });
+		const made = await createCommission(db, { customerId: customer.id, status: 'open' });
+		const workroom = await createQuotingWorkroom(db);
+		const tailor = await signedIn(workroom);
+		const owner = await signedIn(customer);
+		const seen = (await expectDocumented(
+			await tailor.json('GET', `/api/v1/commissions/${made.id}`),
+			'GET',
+			'/api/v1/commissions/{id}'
+		)) as { budget: { currency: string }; measurements?: unknown };
+		expect(seen).not.toHaveProperty('measurements');
+
+		const sent = await tailor.json('POST', `/api/v1/commissions/${made.id}/quotes`, {
+			priceMinor: 8200,
+			currency: seen.budget.currency,
+			deliveryDate: new Date(Date.now() + 30 * 86_400_000).toISOString().slice(0, 10),
+			fittings: 1,
+			fabricIncluded: false,
+			message: 'Cut from your own wool, with one fitting in the Merrowgate workroom.',
+			validUntil: new Date(Date.now() + 10 * 86_400_000).toISOString().slice(0, 10)
+		});
+		expect(sent.status).toBe(201);
+		const quote = (await expectDocumented(sent, 'POST', '/api/v1/commissions/{id}/quotes')) as { id: string };
+		await expectDocumented(await owner.json('GET', `/api/v1/quotes/${quote.id}`), 'GET', '/api/v1/quotes/{id}');
+		await expectDocumented(
+			await tailor.json('PATCH', `/api/v1/quotes/${quote.id}`, { fittings: 2 }),
+			'PATCH',
+			'/api/v1/quotes/{id}'
+		);
+
+		const other = await insertQuote(db, { commissionId: made.id, tailorId: (await createWorkroom(db)).id });
+		const declined = await owner.json('POST', `/api/v1/quotes/${other.id}/decline`, { reason: 'Too far away.' });
+		expect(declined.status).toBe(200);
+		expect(await expectDocumented(declined, 'POST', '/api/v1/quotes/{id}/decline')).toMatchObject({
+			id: other.id,
+			status: 'declined',
+			declineReason: 'Too far away.'
+		});
+		const list = (await expectDocumented(
+			await owner.json('GET', `/api/v1/commissions/${made.id}/quotes`),
+			'GET',
+			'/api/v1/commissions/{id}/quotes'
+		)) as { items: unknown[] };
+		expect(list.items).toHaveLength(2);
+
+		const accepted = await owner.json('POST', `/api/v1/quotes/${quote.id}/accept`);
+		expect(accepted.status).toBe(201);
+		const order = (await expectDocumented(accepted, 'POST', '/api/v1/quotes/{id}/accept')) as Record<string, number>;
+		expect(order.platformFeeMinor + order.tailorPayoutMinor).toBe(order.priceMinor);
+		await expectDocumented(
+			await owner.json('POST', `/api/v1/quotes/${quote.id}/accept`),
+			'POST',
+			'/api/v1/quotes/{id}/accept'
+		);
+		const awarded = await expectDocumented(
+			await tailor.json('GET', `/api/v1/commissions/${made.id}`),
+			'GET',
+			'/api/v1/commissions/{id}'
+		);
+		expect(awarded).toMatchObject({ status: 'awarded', measurements: { values: { waist_girth: expect.any(Number) } } });
+		await expectDocumented(
+			await owner.json('POST', `/api/v1/quotes/${quote.id}/withdraw`),
+			'POST',
+			'/api/v1/quotes/{id}/withdraw'
+		);
+	});
+
+	it('messages: the inbox, a page, a message sent as JSON and with a photo, marking read, the live stream', async () => {
+		const customer = await createUser(db, { role: 'customer' });
+		const made = await createCommission(db, { customerId: customer.id, status: 'open' });
+		const workroom = await createQuotingWorkroom(db);
+		const tailor = await signedIn(workroom);
+		const owner = await signedIn(customer);
+		await openThread(db, { commissionId: made.id, tailorId: workroom.id });
+
+		const inbox = (await expectDocumented(await owner.json('GET', '/api/v1/threads'), 'GET', '/api/v1/threads')) as {
+			items: { id: string; commission: { id: string } }[];
+		};
+		const thread = inbox.items.find((item) => item.commission.id === made.id);
+		expect(thread, 'the conversation is in the customer’s inbox').toBeDefined();
+		const path = `/api/v1/threads/${thread!.id}`;
+
+		const first = (await expectDocumented(
+			await owner.json('POST', `${path}/messages`, { body: 'Just below it, please.' }),
+			'POST',
+			'/api/v1/threads/{id}/messages'
+		)) as { id: string };
+		const form = new FormData();
+		form.set('body', 'The cloth I have in mind.');
+		form.set('altText', 'A swatch of red wool');
+		form.set('file', new Blob([new Uint8Array(await solid(320, 240).png().toBuffer())]), 'swatch.png');
+		const cookie = [...owner.jar].map(([name, value]) => `${name}=${value}`).join('; ');
+		const withPhoto = await fetch(`${baseUrl}${path}/messages`, {
+			method: 'POST',
+			headers: { origin: baseUrl, 'x-forwarded-for': owner.address, cookie },
+			body: form
+		});
+		expect(withPhoto.status).toBe(201);
+		const photo = (await expectDocumented(withPhoto, 'POST', '/api/v1/threads/{id}/messages')) as {
+			id: string;
+			attachments: unknown[];
+		};
+		expect(photo.attachments).toHaveLength(1);
+
+		const page = (await expectDocumented(
+			await tailor.json('GET', `${path}/messages?limit=1`),
+			'GET',
+			'/api/v1/threads/{id}/messages'
+		)) as { items: unknown[]; nextCursor: string | null };
+		expect(page.items).toHaveLength(1);
+		expect(page.nextCursor, 'an older page follows').not.toBeNull();
+		const read = await expectDocumented(await tailor.json('POST', `${path}/read`), 'POST', '/api/v1/threads/{id}/read');
+		expect(read).toEqual({ marked: 2 });
+
+		// The live stream: documented as text/event-stream, each event's data a Message.
+		expect(
+			Object.keys((document.paths['/api/v1/threads/{id}/events'].get.responses['200'] as { content: object }).content)
+		).toEqual(['text/event-stream']);
+		const abort = new AbortController();
+		const tailorCookie = [...tailor.jar].map(([name, value]) => `${name}=${value}`).join('; ');
+		const stream = await fetch(`${baseUrl}${path}/events?after=${first.id}`, {
+			headers: { 'x-forwarded-for': tailor.address, cookie: tailorCookie, accept: 'text/event-stream' },
+			signal: abort.signal
+		});
+		try {
+			expect(stream.status).toBe(200);
+			expect(stream.headers.get('content-type')).toMatch(/^text\/event-stream/);
+			const reader = stream.body!.getReader();
+			const decoder = new TextDecoder();
+			let buffer = '';
+			while (!/^data: .*\n\n/m.test(buffer)) {
+				const chunk = await reader.read();
+				expect(chunk.done, 'an event before the stream ends').toBe(false);
+				buffer += decoder.decode(chunk.value, { stream: true });
+			}
+			const data = buffer.match(/^data: (.*)$/m)![1];
+			const event = expectFits(JSON.parse(data), 'an event’s data', 'components', 'schemas', 'Message');
+			expect(event).toMatchObject({ id: photo.id });
+		} finally {
+			abort.abort();
+		}
+
+		await expectDocumented(
+			await tailor.json('GET', '/api/v1/threads/00000000-0000-4000-8000-000000000000/messages'),
+			'GET',
+			'/api/v1/threads/{id}/messages'
+		);
+		await expectDocumented(
+			await tailor.json('POST', `${path}/messages`, { body: '' }),
+			'POST',
+			'/api/v1/threads/{id}/messages'
+		);
+	});
+
 	it('errors: 400, 401, 403, 404 and 415 carry the documented error body', async () => {
 		const anonymous = newClient();
 		const bad = await anonymous.json('POST', '/api/v1/drafts', { garment: 'ball-gown', unit: 'furlong' });
@@ -191,7 +357,16 @@ describe('GET /api/docs', () => {
 			expect(html).toContain(`href="#op-${op.operationId}"`);
 			expect(html).toContain(op.path);
 		}
-		for (const tag of ['Commissions', 'Workrooms', 'Measurement profiles', 'Drafting', 'Places', 'Service']) {
+		for (const tag of [
+			'Commissions',
+			'Quotes',
+			'Messages',
+			'Workrooms',
+			'Measurement profiles',
+			'Drafting',
+			'Places',
+			'Service'
+		]) {
 			expect(html).toMatch(new RegExp(`<h2[^>]*>${tag}</h2>`));
 		}
 		expect(html).toContain('id="schema-ApiError"');

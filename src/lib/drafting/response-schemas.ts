@@ -69,6 +69,10 @@ export const draftResponseSchema = z
 					onFold: z.boolean(),
 					pair: z.boolean(),
 					grain: z.enum(['lengthwise', 'crosswise']),
+					cloth: z
+						.enum(['lining'])
+						.optional()
+						.meta({ description: 'Cut from the lining, laid and estimated apart from the garment cloth.' }),
 					text: z.string()
 				}),
 				lines: z.array(line),

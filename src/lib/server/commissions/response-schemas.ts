@@ -19,7 +19,10 @@ export const budgetSchema = z
 	.object({ minMinor: z.int(), maxMinor: z.int(), currency: z.string().length(3) })
 	.meta({ id: 'Budget', description: 'Amounts in the currency’s minor unit (ISO 4217 exponent).' });
 
-/** A commission as the caller may see it: the owner has `measurements` and `measurementProfileId`; others a fabric estimate. */
+/**
+ * A commission as the caller may see it: the owner has `measurements` and `measurementProfileId`; the awarded
+ * tailor `measurements` and a fabric estimate; other tailors and administrators a fabric estimate alone.
+ */
 export const commissionResponse = z
 	.object({
 		id: z.uuid(),
@@ -61,11 +64,17 @@ export const commissionResponse = z
 			.object({ unit: z.enum(units), values: z.record(z.string(), z.number()) })
 			.nullable()
 			.optional()
-			.meta({ description: 'The frozen measurements in their own unit; only for those allowed to see them.' }),
+			.meta({
+				description:
+					'The frozen measurements in their own unit: for the owner and the tailor whose quote was accepted; absent for everyone else.'
+			}),
 		fabricEstimate: z
 			.object({ length: z.string(), width: z.number(), unit: z.enum(units), folded: z.boolean() })
 			.nullable()
 			.optional()
-			.meta({ description: 'For callers other than the owner: fabric for the middle of the size band.' })
+			.meta({
+				description:
+					'For callers other than the owner (the awarded tailor included): fabric for the middle of the size band.'
+			})
 	})
 	.meta({ id: 'Commission' });

@@ -3,11 +3,9 @@ import { z } from 'zod';
 /** `GET /api/v1/health` (`HealthReport` in ./index). */
 export const healthReportSchema = z
 	.object({
-		status: z
-			.enum(['ok', 'degraded', 'down'])
-			.meta({
-				description: '`down` when the database is; `degraded` while mail, jobs, storage, search or payments wait.'
-			}),
+		status: z.enum(['ok', 'degraded', 'down']).meta({
+			description: '`down` when the database is; `degraded` while mail, jobs, storage, search or payments wait.'
+		}),
 		checks: z.object({
 			database: z.enum(['ok', 'down']),
 			mail: z.enum(['ok', 'degraded']),
@@ -18,7 +16,7 @@ export const healthReportSchema = z
 				.meta({ description: 'When degraded, lists come from PostgreSQL instead: slower, still right.' }),
 			payments: z
 				.enum(['ok', 'degraded'])
-				.meta({ description: 'The payment processor: when degraded, payments and payouts wait and are retried.' })
+				.meta({ description: 'The payment provider; degraded while it cannot be reached.' })
 		}),
 		details: z.record(z.string(), z.string()).optional().meta({ description: 'Error text, for administrators only.' })
 	})

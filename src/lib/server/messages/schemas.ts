@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { maxAttachments, maxMessageLength } from '$lib/types/messages';
+import { maxMessageLength } from '$lib/types/messages';
 import { maxAltTextLength } from '$lib/types/photos';
 import { text } from '../forms';
 
@@ -33,47 +33,3 @@ export const threadsQuery = z.object({ cursor, limit: z.coerce.number().int().mi
 
 /** `?after=` on the live stream (the `Last-Event-ID` header says the same and wins). */
 export const eventsQuery = z.object({ after: z.uuid('Use the id of the last message received.').optional() }).strict();
-
-export const attachmentDto = z
-	.object({
-		id: z.uuid(),
-		url: z.string(),
-		thumbUrl: z.string(),
-		width: z.number().int().nullable(),
-		height: z.number().int().nullable(),
-		altText: z.string()
-	})
-	.meta({ id: 'MessageAttachment' });
-
-export const messageDto = z
-	.object({
-		id: z.uuid(),
-		threadId: z.uuid(),
-		authorId: z.uuid().nullable(),
-		mine: z.boolean(),
-		body: z.string(),
-		createdAt: z.iso.datetime(),
-		readAt: z.iso.datetime().nullable(),
-		attachments: z.array(attachmentDto).max(maxAttachments)
-	})
-	.meta({ id: 'Message' });
-
-export const messagePage = z
-	.object({ items: z.array(messageDto), nextCursor: z.uuid().nullable() })
-	.meta({ id: 'MessagePage', description: 'Newest first; nextCursor fetches the older page.' });
-
-export const threadDto = z
-	.object({
-		id: z.uuid(),
-		commission: z.object({ id: z.uuid(), title: z.string(), status: z.string() }),
-		otherParty: z.object({ id: z.uuid().nullable(), name: z.string(), role: z.enum(['customer', 'tailor']) }),
-		lastMessage: z
-			.object({ preview: z.string(), at: z.iso.datetime(), mine: z.boolean(), hasAttachments: z.boolean() })
-			.nullable(),
-		unreadCount: z.number().int().min(0)
-	})
-	.meta({ id: 'Thread' });
-
-export const threadPage = z
-	.object({ items: z.array(threadDto), nextCursor: z.uuid().nullable() })
-	.meta({ id: 'ThreadPage', description: 'Unread conversations first, then by latest message.' });

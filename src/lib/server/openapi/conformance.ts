@@ -14,33 +14,85 @@ import type { PhotoView, PortfolioItemView } from '$lib/types/photos';
 import type { CommissionView } from '../commissions';
 import type { commissionResponse } from '../commissions/response-schemas';
 import type { HealthReport } from '../health';
+import type { list as listMessages, markRead, post as postMessage, threadsFor } from '../messages';
+import type { markedResponse, messageDto, messagePage, threadPage } from '../messages/response-schemas';
 import type { healthReportSchema } from '../health/schemas';
 import type { photoResponse, portfolioItemResponse } from '../photos/response-schemas';
 import type { Place } from '../places/gazetteer';
 import type { placeResponse } from '../places/schemas';
 import type { PresentedProfile } from '../profiles';
 import type { profileResponse } from '../profiles/response-schemas';
+import type { accept, QuoteJson } from '../quotes';
+import type { acceptResponse, quoteListResponse, quoteResponse } from '../quotes/response-schemas';
 import type { onboardingJson, ownWorkroomJson, publicWorkroomJson } from '../workrooms/api';
 import type { onboardingResponse, ownWorkroomResponse, publicWorkroomResponse } from '../workrooms/response-schemas';
 
 /** A value as it reads after `JSON.stringify` and `JSON.parse`. */
 type Json<T> = T extends Date ? string : T extends object ? { -readonly [K in keyof T]: Json<T[K]> } : T;
 
-type Fits<Built, Schema extends z.ZodType> = [Json<Built>] extends [z.output<Schema>] ? true : false;
+/**
+ * Keys the builder writes that the schema does not name, at any depth (`never` when there are none). Assignability
+ * alone lets an extra key through, yet the document's objects refuse additional properties.
+ */
+type ExtraKeys<B, S, Path extends string = ''> = B extends readonly (infer BI)[]
+	? NonNullable<S> extends readonly (infer SI)[]
+		? ExtraKeys<BI, SI, `${Path}[]`>
+		: never
+	: B extends object
+		? Matching<B, NonNullable<S>> extends infer SO
+			? SO extends object
+				? string extends keyof SO
+					? never
+					: {
+							[K in keyof B & string]: K extends keyof SO ? ExtraKeys<B[K], SO[K], `${Path}.${K}`> : `${Path}.${K}`;
+						}[keyof B & string]
+				: never
+			: never
+		: never;
+
+/** The members of a union schema type that the built value fits (all of them when it fits none alone). */
+type Matching<B, S> = [S extends unknown ? (B extends S ? S : never) : never] extends [never]
+	? S
+	: S extends unknown
+		? B extends S
+			? S
+			: never
+		: never;
+
+type Fits<Built, Schema extends z.ZodType> = [Json<Built>] extends [z.output<Schema>]
+	? [ExtraKeys<Json<Built>, z.output<Schema>>] extends [never]
+		? true
+		: false
+	: false;
 type Assert<T extends true> = T;
 
-/** `commissionJson` in routes/api/v1/commissions: the view without `viewer`, measurements as `{ unit, values }`. */
-type CommissionAnswer = CommissionView extends infer View
-	? View extends { measurements: infer M }
-		? Omit<View, 'viewer' | 'measurements'> & {
-				measurements: M extends { unit: infer U; values: infer V } ? { unit: U; values: V } : null;
-			}
-		: Omit<View, 'viewer'>
-	: never;
+/**
+ * `commissionJson` in routes/api/v1/commissions: the view without `viewer`, measurements as `{ unit, values }`
+ * (for the owner and the awarded tailor), for the viewers named.
+ */
+type CommissionAnswer<V extends CommissionView['viewer'] = CommissionView['viewer']> =
+	Extract<CommissionView, { viewer: V }> extends infer View
+		? View extends { measurements: infer M }
+			? Omit<View, 'viewer' | 'measurements'> & {
+					measurements: M extends { unit: infer U; values: infer V } ? { unit: U; values: V } : null;
+				}
+			: Omit<View, 'viewer'>
+		: never;
+
+type Has<T, K extends PropertyKey> = K extends keyof T ? true : false;
 
 export type Conformance = [
 	Assert<Fits<HealthReport, typeof healthReportSchema>>,
 	Assert<Fits<CommissionAnswer, typeof commissionResponse>>,
+	Assert<Fits<CommissionAnswer<'awarded'>, typeof commissionResponse>>,
+	Assert<Has<CommissionAnswer<'awarded'>, 'measurements'>>,
+	Assert<Fits<QuoteJson, typeof quoteResponse>>,
+	Assert<Fits<{ items: QuoteJson[] }, typeof quoteListResponse>>,
+	Assert<Fits<Awaited<ReturnType<typeof accept>>, typeof acceptResponse>>,
+	Assert<Fits<Awaited<ReturnType<typeof threadsFor>>, typeof threadPage>>,
+	Assert<Fits<Awaited<ReturnType<typeof listMessages>>, typeof messagePage>>,
+	Assert<Fits<Awaited<ReturnType<typeof postMessage>>, typeof messageDto>>,
+	Assert<Fits<{ marked: Awaited<ReturnType<typeof markRead>> }, typeof markedResponse>>,
 	Assert<Fits<PhotoView, typeof photoResponse>>,
 	Assert<Fits<PortfolioItemView, typeof portfolioItemResponse>>,
 	Assert<Fits<PresentedProfile, typeof profileResponse>>,

@@ -3,8 +3,10 @@ import { buildDocument, type Area, type OpenApiDocument } from './registry';
 import { docsView } from './view';
 import { commissionsArea } from './paths/commissions';
 import { draftingArea } from './paths/drafting';
+import { messagesArea } from './paths/messages';
 import { placesArea } from './paths/places';
 import { profilesArea } from './paths/profiles';
+import { quotesArea } from './paths/quotes';
 import { serviceArea } from './paths/service';
 import { workroomsArea } from './paths/workrooms';
 
@@ -15,6 +17,8 @@ export { apiErrorSchema, access, errors, jsonBody, jsonRequest, uuidPath } from 
 /** Every area of `/api/v1`, in the order /api/docs shows them. Add a new area's module here. */
 export const areas: readonly Area[] = [
 	commissionsArea,
+	quotesArea,
+	messagesArea,
 	workroomsArea,
 	profilesArea,
 	draftingArea,

@@ -1,5 +1,4 @@
 import { and, eq, ne } from 'drizzle-orm';
-import { z } from 'zod';
 import { formatDate } from '$lib/format';
 import * as accounts from '../accounts';
 import * as audit from '../audit';
@@ -12,79 +11,14 @@ import * as payouts from '../payouts';
 import { noteCommissionChanged } from '../search-outbox';
 import { acceptedMail, anotherAcceptedMail, declinedMail } from './decision-mails';
 import { QuoteError } from './errors';
+import type { AcceptResponse } from './response-schemas';
+import { declineReasonMax } from './schemas';
 
 /** Who decides: the signed-in person, with the request's address for the audit log. */
 export type DecidingActor = { id: string; role: 'customer' | 'tailor' | 'admin'; ip?: string | null };
 
-export const declineReasonMax = 500;
 /** What the other quotes say when the customer accepts one: they were declined by the acceptance, not by hand. */
 export const anotherQuoteAccepted = 'another quote was accepted';
-
-/** `POST /api/v1/quotes/{id}/decline`: an optional reason the tailor is shown. */
-export const declineRequestSchema = z
-	.object({
-		reason: z.string().trim().max(declineReasonMax, `Keep the reason to ${declineReasonMax} characters.`).optional()
-	})
-	.strict();
-export type DeclineRequest = z.infer<typeof declineRequestSchema>;
-
-/** `POST /api/v1/quotes/{id}/accept` takes no fields; a body, if sent, must be an empty object. */
-export const acceptRequestSchema = z.object({}).strict();
-
-/** A quote after a decision, as the API answers it. */
-export const decidedQuoteSchema = z.object({
-	id: z.string().uuid(),
-	commissionId: z.string().uuid(),
-	tailorId: z.string().uuid(),
-	status: z.enum(['sent', 'accepted', 'declined', 'withdrawn', 'lapsed']),
-	priceMinor: z.number().int(),
-	currency: z.string().length(3),
-	deliveryDate: z.string(),
-	fittings: z.number().int(),
-	fabricIncluded: z.boolean(),
-	message: z.string(),
-	validUntil: z.string(),
-	declineReason: z.string().nullable(),
-	decidedAt: z.string().nullable(),
-	createdAt: z.string()
-});
-export type DecidedQuote = z.infer<typeof decidedQuoteSchema>;
-
-/** `POST /api/v1/quotes/{id}/accept` → 201: the order the acceptance made. */
-export const acceptResponseSchema = z.object({
-	orderId: z.string().uuid(),
-	status: z.literal('awaiting_payment'),
-	commissionId: z.string().uuid(),
-	quoteId: z.string().uuid(),
-	tailorId: z.string().uuid(),
-	priceMinor: z.number().int(),
-	platformFeeMinor: z.number().int(),
-	tailorPayoutMinor: z.number().int(),
-	platformFeeBasisPoints: z.number().int(),
-	currency: z.string().length(3),
-	dueDate: z.string(),
-	declinedQuoteIds: z.array(z.string().uuid())
-});
-export type AcceptResponse = z.infer<typeof acceptResponseSchema>;
-
-export function decidedQuoteJson(row: Quote): DecidedQuote {
-	return {
-		id: row.id,
-		commissionId: row.commissionId,
-		tailorId: row.tailorId,
-		status: row.status,
-		priceMinor: row.priceMinor,
-		currency: row.currency,
-		deliveryDate: row.deliveryDate,
-		fittings: row.fittingsIncluded,
-		fabricIncluded: row.fabricIncluded,
-		message: row.message,
-		validUntil: row.validUntil.toISOString(),
-		declineReason: row.status === 'declined' ? row.declineReason : null,
-		decidedAt: row.decidedAt?.toISOString() ?? null,
-		createdAt: row.createdAt.toISOString()
-	};
-}
 
 const noSuchQuote = () => new QuoteError('not_found', 'There is no such quote.');
 

@@ -22,5 +22,6 @@ export {
 } from './warnings';
 export * from './errors';
 export * from './decide';
+export { acceptResponse, quoteListResponse, quoteResponse, type AcceptResponse } from './response-schemas';
 export * from './compare';
 export { fitMethod, formatKm } from './fit';

@@ -66,25 +66,19 @@ export const quotePatch = quoteCreate
 	.refine((body) => Object.keys(body).length > 0, 'Send at least one field to change.');
 export type QuotePatch = z.output<typeof quotePatch>;
 
-/** What a quote's answer looks like (for the OpenAPI document). */
-export const quoteJsonSchema = z.object({
-	id: z.uuid(),
-	commissionId: z.uuid(),
-	tailorId: z.uuid(),
-	priceMinor: z.number().int(),
-	currency: z.string(),
-	deliveryDate: z.string(),
-	fittings: z.number().int(),
-	fabricIncluded: z.boolean(),
-	message: z.string(),
-	validUntil: z.string(),
-	status: z.enum(['sent', 'accepted', 'declined', 'withdrawn', 'lapsed']),
-	declineReason: z.string(),
-	decidedAt: z.string().nullable(),
-	createdAt: z.string(),
-	updatedAt: z.string(),
-	warnings: z.array(z.object({ code: z.string(), message: z.string() }))
-});
+/** The longest reason a customer may give for declining a quote. */
+export const declineReasonMax = 500;
+
+/** `POST /api/v1/quotes/{id}/decline`: an optional reason the tailor is shown. */
+export const declineRequestSchema = z
+	.object({
+		reason: z.string().trim().max(declineReasonMax, `Keep the reason to ${declineReasonMax} characters.`).optional()
+	})
+	.strict();
+export type DeclineRequest = z.infer<typeof declineRequestSchema>;
+
+/** `POST /api/v1/quotes/{id}/accept` takes no fields; a body, if sent, must be an empty object. */
+export const acceptRequestSchema = z.object({}).strict();
 
 const checkbox = z
 	.union([z.literal('on'), z.literal('true'), z.literal('')])

@@ -47,7 +47,7 @@ const paths: Paths = {
 			summary: 'Read a commission',
 			...access(
 				'signedIn',
-				'The owner sees everything, measurements included; a tailor sees an open commission (or one they quoted on) with its size band and a fabric estimate, never the measurements. Drafts are the owner’s alone.'
+				'The owner sees everything, measurements included; the tailor whose quote was accepted sees the frozen measurements too, beside a fabric estimate. Any other tailor sees an open commission (or one they quoted on) with its size band and a fabric estimate, never the measurements. Drafts are the owner’s alone.'
 			),
 			requestParams: id,
 			responses: { '200': answer, ...errors(401, 404) }

@@ -5,7 +5,7 @@ import * as quotes from '$lib/server/quotes';
 import { decidingActor, hasBody, refusedDecision } from '../decide.server';
 import type { RequestHandler } from './$types';
 
-/** The commission's owner declines a live quote, optionally saying why; the tailor is mailed. */
+/** The commission's owner declines a live quote, optionally saying why; the tailor is mailed. Answers the quote. */
 export const POST: RequestHandler = async ({ params, request, locals, getClientAddress }) => {
 	const user = requireRole('customer');
 	let body: quotes.DeclineRequest = {};
@@ -20,7 +20,7 @@ export const POST: RequestHandler = async ({ params, request, locals, getClientA
 			actor: decidingActor(user, getClientAddress()),
 			reason: body.reason
 		});
-		return json(quotes.decidedQuoteJson(row));
+		return json(quotes.quoteJson(row));
 	} catch (error) {
 		return refusedDecision(error);
 	}
