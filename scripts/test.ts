@@ -56,6 +56,18 @@ function run(command: string, args: string[], env: Record<string, string> = {}) 
 	});
 }
 
+/** Like `run`, but holds the output back and prints it in one piece when done, for work run beside other work. */
+function runHeld(command: string, args: string[]) {
+	return new Promise<{ code: number; output: string }>((resolve) => {
+		const child = spawn(command, args, { cwd: root, stdio: ['ignore', 'pipe', 'pipe'], env: process.env });
+		const chunks: Buffer[] = [];
+		child.stdout.on('data', (chunk: Buffer) => chunks.push(chunk));
+		child.stderr.on('data', (chunk: Buffer) => chunks.push(chunk));
+		child.once('error', () => resolve({ code: 1, output: Buffer.concat(chunks).toString() }));
+		child.once('exit', (code) => resolve({ code: code ?? 1, output: Buffer.concat(chunks).toString() }));
+	});
+}
+
 function readJson<T>(file: string): T | null {
 	try {
 		return JSON.parse(readFileSync(file, 'utf8')) as T;
@@ -134,14 +146,20 @@ async function main() {
 		['lint', 'lint:eslint'],
 		['architecture', 'check:architecture']
 	];
-	for (const [suite, script] of only.length ? [] : staticChecks) {
-		const code = await run('npm', ['run', '--silent', script]);
-		tallies.push({ suite, passed: code === 0 ? 1 : 0, failed: code === 0 ? 0 : 1 });
+	// The static checks are single-threaded: on two cores they run beside the unit tests and the build.
+	async function staticLane() {
+		for (const [suite, script] of only.length ? [] : staticChecks) {
+			const { code, output } = await runHeld('npm', ['run', '--silent', script]);
+			process.stdout.write(`[tackline] ${suite}:\n${output}`);
+			tallies.push({ suite, passed: code === 0 ? 1 : 0, failed: code === 0 ? 0 : 1 });
+		}
 	}
+	async function unitAndBuildLane() {
+		if (!only.length || vitestOnly.length) await vitestSuite('unit', 'unit', env);
+		await buildIfNeeded({ force: true, devTools: true });
+	}
+	await Promise.all([staticLane(), unitAndBuildLane()]);
 
-	if (!only.length || vitestOnly.length) await vitestSuite('unit', 'unit', env);
-
-	await buildIfNeeded({ force: true, devTools: true });
 	if (!only.length || vitestOnly.length) await vitestSuite('integration', 'integration', env);
 	if (only.length && !browserOnly.length) return;
 
