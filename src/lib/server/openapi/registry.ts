@@ -35,8 +35,8 @@ export function buildDocument(areas: readonly Area[], { version }: { version: st
 			info: {
 				title: 'Tackline API',
 				version,
-				summary: 'Commission made-to-measure clothes from local tailors.',
 				description: [
+					'Commission made-to-measure clothes from local tailors.',
 					'JSON over HTTPS. Money is in integer minor units beside an ISO 4217 currency code; lengths are in the unit',
 					'the request or profile names (`cm` or `in`). Every answer with a status of 400 or more has the body',
 					'`{ "error": { "code", "message", "issues" } }`. Requests are limited per client address (429 with',
