@@ -7,11 +7,11 @@ import { Ajv2020 } from 'ajv/dist/2020.js';
 import Stripe from 'stripe';
 import addFormats from 'ajv-formats';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createCommission, createUser, createWorkroom, type Person } from '../factories';
+import { createCommission, createMeasurementProfile, createUser, createWorkroom, type Person } from '../factories';
 import { solid } from '../factories/images';
 import { awardQuote, createQuotingWorkroom, insertQuote } from '../factories/quotes';
 import { openThread } from '../../src/lib/server/messages/threads';
-import { noteCommissionChanged, noteWorkroomChanged } from '../../src/lib/server/search-outbox';
+import { searchOutbox } from '../../src/lib/server/db/schema';
 import { testDb } from './db';
 import { baseUrl, newClient, signIn, type Client } from './http';
 import { stripeStandin } from './stripe';
@@ -326,10 +326,31 @@ describe('real answers fit the documented schemas', () => {
 		// A spot of its own, far from the demo city, so the lists hold what this test made.
 		const spot = { lat: 44.61, lng: -0.92 };
 		const workroom = await createWorkroom(db, { profile: { lat: spot.lat, lng: spot.lng, serviceRadiusKm: 30 } });
-		await noteWorkroomChanged(db, workroom.id);
-		const made = await createCommission(db, { status: 'open', approxLat: spot.lat + 0.02, approxLng: spot.lng });
-		await noteCommissionChanged(db, made.id);
+		// Noted for the search sync as a workroom change is; the publishing below asks for the run.
+		await db.insert(searchOutbox).values({ kind: 'workroom', entityId: workroom.id });
 		const tailor = await signedIn(workroom);
+		// Published through the API, as a customer would: that asks the sync job to run, and one run drains every note.
+		const person = await createUser(db, { role: 'customer' });
+		const profile = await createMeasurementProfile(db, {
+			ownerId: person.id,
+			unit: 'cm',
+			valuesMm: { waist_girth: 740, hip_girth: 1000, waist_to_hip: 205, waist_to_floor: 1040 }
+		});
+		const customer = await signedIn(person);
+		const created = await customer.json('POST', '/api/v1/commissions', {
+			garment: 'straight-skirt',
+			title: 'A bottle-green linen skirt',
+			styleNotes: 'Just below the knee, with a back vent.',
+			measurementProfileId: profile.id,
+			fabricSource: 'tailor_sources',
+			budget: { minMinor: 9000, maxMinor: 14000, currency: 'EUR' },
+			dateNeeded: new Date(Date.now() + 60 * 86_400_000).toISOString().slice(0, 10),
+			location: { lat: spot.lat + 0.02, lng: spot.lng, name: 'Testbury', country: 'FR' },
+			handover: 'pickup'
+		});
+		expect(created.status).toBe(201);
+		const made = (await created.json()) as { id: string };
+		expect((await customer.json('POST', `/api/v1/commissions/${made.id}/publish`)).status).toBe(200);
 		const anonymous = newClient();
 
 		// The sync job fills the index in the background.
@@ -364,7 +385,6 @@ describe('real answers fit the documented schemas', () => {
 
 		await expectDocumented(await anonymous.get('/api/v1/tailors?near=north'), 'GET', '/api/v1/tailors');
 		await expectDocumented(await tailor.json('GET', '/api/v1/commissions?sort=oldest'), 'GET', '/api/v1/commissions');
-		const customer = await signedIn('customer');
 		await expectDocumented(await customer.json('GET', '/api/v1/commissions'), 'GET', '/api/v1/commissions');
 	});
 
