@@ -4,14 +4,17 @@
  */
 import { Validator } from '@seriousme/openapi-schema-validator';
 import { Ajv2020 } from 'ajv/dist/2020.js';
+import Stripe from 'stripe';
 import addFormats from 'ajv-formats';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createCommission, createUser, createWorkroom, type Person } from '../factories';
+import { createCommission, createMeasurementProfile, createUser, createWorkroom, type Person } from '../factories';
 import { solid } from '../factories/images';
-import { createQuotingWorkroom, insertQuote } from '../factories/quotes';
+import { awardQuote, createQuotingWorkroom, insertQuote } from '../factories/quotes';
 import { openThread } from '../../src/lib/server/messages/threads';
+import { searchOutbox } from '../../src/lib/server/db/schema';
 import { testDb } from './db';
 import { baseUrl, newClient, signIn, type Client } from './http';
+import { stripeStandin } from './stripe';
 
 const { db, pool } = testDb();
 afterAll(() => pool.end());
@@ -319,6 +322,132 @@ describe('real answers fit the documented schemas', () => {
 		);
 	});
 
+	it('search near me: a tailor’s open commissions and the workrooms near a point', async () => {
+		// A spot of its own, far from the demo city, so the lists hold what this test made.
+		const spot = { lat: 44.61, lng: -0.92 };
+		const workroom = await createWorkroom(db, { profile: { lat: spot.lat, lng: spot.lng, serviceRadiusKm: 30 } });
+		// Noted for the search sync as a workroom change is; the publishing below asks for the run.
+		await db.insert(searchOutbox).values({ kind: 'workroom', entityId: workroom.id });
+		const tailor = await signedIn(workroom);
+		// Published through the API, as a customer would: that asks the sync job to run, and one run drains every note.
+		const person = await createUser(db, { role: 'customer' });
+		const profile = await createMeasurementProfile(db, {
+			ownerId: person.id,
+			unit: 'cm',
+			valuesMm: { waist_girth: 740, hip_girth: 1000, waist_to_hip: 205, waist_to_floor: 1040 }
+		});
+		const customer = await signedIn(person);
+		const created = await customer.json('POST', '/api/v1/commissions', {
+			garment: 'straight-skirt',
+			title: 'A bottle-green linen skirt',
+			styleNotes: 'Just below the knee, with a back vent.',
+			measurementProfileId: profile.id,
+			fabricSource: 'tailor_sources',
+			budget: { minMinor: 9000, maxMinor: 14000, currency: 'EUR' },
+			dateNeeded: new Date(Date.now() + 60 * 86_400_000).toISOString().slice(0, 10),
+			location: { lat: spot.lat + 0.02, lng: spot.lng, name: 'Testbury', country: 'FR' },
+			handover: 'pickup'
+		});
+		expect(created.status).toBe(201);
+		const made = (await created.json()) as { id: string };
+		expect((await customer.json('POST', `/api/v1/commissions/${made.id}/publish`)).status).toBe(200);
+		const anonymous = newClient();
+
+		// The sync job fills the index in the background.
+		const found = async (read: () => Promise<Response>, id: string) => {
+			const until = Date.now() + 20_000;
+			for (;;) {
+				const response = await read();
+				const body = (await response.clone().json()) as { items?: { id: string }[] };
+				if (body.items?.some((item) => item.id === id) || Date.now() > until) return response;
+				await new Promise((resolve) => setTimeout(resolve, 250));
+			}
+		};
+		const commissions = await found(() => tailor.json('GET', '/api/v1/commissions?limit=5'), made.id);
+		expect(commissions.status).toBe(200);
+		expect(commissions.headers.get('x-search-source')).toMatch(/^(index|database)$/);
+		const page = (await expectDocumented(commissions, 'GET', '/api/v1/commissions')) as {
+			items: { id: string; photo: unknown; sizeBand: unknown[] }[];
+			near: { lat: number; lng: number };
+		};
+		expect(page.items.map((item) => item.id)).toContain(made.id);
+		expect(page.near.lat).toBeCloseTo(spot.lat, 1);
+
+		const tailors = await found(
+			() => anonymous.get(`/api/v1/tailors?near=${spot.lat},${spot.lng}&radiusKm=10`),
+			workroom.id
+		);
+		expect(tailors.status).toBe(200);
+		const list = (await expectDocumented(tailors, 'GET', '/api/v1/tailors')) as {
+			items: { id: string; servesYou: boolean }[];
+		};
+		expect(list.items.find((item) => item.id === workroom.id)).toMatchObject({ servesYou: true });
+
+		await expectDocumented(await anonymous.get('/api/v1/tailors?near=north'), 'GET', '/api/v1/tailors');
+		await expectDocumented(await tailor.json('GET', '/api/v1/commissions?sort=oldest'), 'GET', '/api/v1/commissions');
+		await expectDocumented(await customer.json('GET', '/api/v1/commissions'), 'GET', '/api/v1/commissions');
+	});
+
+	it('orders: read by either party, checkout by the customer, and the processor’s events', async () => {
+		const customer = await createUser(db, { role: 'customer' });
+		const tailorRoom = await createWorkroom(db);
+		const made = await createCommission(db, { customerId: customer.id, status: 'open' });
+		const quote = await insertQuote(db, { commissionId: made.id, tailorId: tailorRoom.id, priceMinor: 31_500 });
+		const { orderId } = await awardQuote(db, { commissionId: made.id, quoteId: quote.id, customerId: customer.id });
+		const owner = await signedIn(customer);
+		const tailor = await signedIn(tailorRoom);
+
+		const read = (await expectDocumented(
+			await owner.json('GET', `/api/v1/orders/${orderId}`),
+			'GET',
+			'/api/v1/orders/{id}'
+		)) as { status: string; priceMinor: number; money: Record<string, number> };
+		expect(read).toMatchObject({ status: 'awaiting_payment', priceMinor: 31_500, money: { chargedMinor: 0 } });
+		await expectDocumented(await tailor.json('GET', `/api/v1/orders/${orderId}`), 'GET', '/api/v1/orders/{id}');
+
+		const started = await owner.json('POST', `/api/v1/orders/${orderId}/checkout`);
+		expect(started.status).toBe(201);
+		const checkout = (await expectDocumented(started, 'POST', '/api/v1/orders/{id}/checkout')) as { url: string };
+		expect(checkout.url).toMatch(/^https?:\/\//);
+		const refused = await tailor.json('POST', `/api/v1/orders/${orderId}/checkout`);
+		expect(refused.status).toBe(403);
+		await expectDocumented(refused, 'POST', '/api/v1/orders/{id}/checkout');
+		const stranger = await signedIn('customer');
+		const hidden = await stranger.json('GET', `/api/v1/orders/${orderId}`);
+		expect(hidden.status).toBe(404);
+		await expectDocumented(hidden, 'GET', '/api/v1/orders/{id}');
+
+		const forged = await fetch(`${baseUrl}/api/v1/webhooks/stripe`, {
+			method: 'POST',
+			headers: { 'content-type': 'application/json', 'stripe-signature': `t=${Math.floor(Date.now() / 1000)},v1=00` },
+			body: JSON.stringify({ id: 'evt_forged', object: 'event', type: 'checkout.session.completed', data: {} })
+		});
+		expect(forged.status).toBe(400);
+		await expectDocumented(forged, 'POST', '/api/v1/webhooks/stripe');
+		// A signed event of a type the site does not use is acknowledged and changes nothing.
+		const payload = JSON.stringify({
+			id: `evt_unused_${orderId.slice(0, 8)}`,
+			object: 'event',
+			type: 'customer.created',
+			created: Math.floor(Date.now() / 1000),
+			data: { object: { id: 'cus_local', object: 'customer' } }
+		});
+		const secret = stripeStandin().env.STRIPE_WEBHOOK_SECRET;
+		const signed = await fetch(`${baseUrl}/api/v1/webhooks/stripe`, {
+			method: 'POST',
+			headers: {
+				'content-type': 'application/json',
+				'stripe-signature': Stripe.webhooks.generateTestHeaderString({ payload, secret })
+			},
+			body: payload
+		});
+		expect(signed.status).toBe(200);
+		expect(await expectDocumented(signed, 'POST', '/api/v1/webhooks/stripe')).toEqual({
+			received: true,
+			outcome: 'ignored'
+		});
+	});
+
 	it('errors: 400, 401, 403, 404 and 415 carry the documented error body', async () => {
 		const anonymous = newClient();
 		const bad = await anonymous.json('POST', '/api/v1/drafts', { garment: 'ball-gown', unit: 'furlong' });
@@ -360,7 +489,9 @@ describe('GET /api/docs', () => {
 			'Commissions',
 			'Quotes',
 			'Messages',
+			'Orders and payment',
 			'Workrooms',
+			'Search',
 			'Measurement profiles',
 			'Drafting',
 			'Places',

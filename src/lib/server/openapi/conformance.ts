@@ -21,9 +21,18 @@ import type { photoResponse, portfolioItemResponse } from '../photos/response-sc
 import type { Place } from '../places/gazetteer';
 import type { placeResponse } from '../places/schemas';
 import type { PresentedProfile } from '../profiles';
+import type { EventOutcome, OrderView, startCheckout } from '../payments';
+import type { checkoutResponse, orderResponse, webhookResponse } from '../payments/response-schemas';
 import type { profileResponse } from '../profiles/response-schemas';
 import type { accept, QuoteJson } from '../quotes';
 import type { acceptResponse, quoteListResponse, quoteResponse } from '../quotes/response-schemas';
+import type { browseForTailor, commissionItem, nearbyWorkrooms, workroomItem } from '../search';
+import type {
+	nearbyCommissionPage,
+	nearbyCommissionResponse,
+	nearbyWorkroomPage,
+	nearbyWorkroomResponse
+} from '../search/response-schemas';
 import type { onboardingJson, ownWorkroomJson, publicWorkroomJson } from '../workrooms/api';
 import type { onboardingResponse, ownWorkroomResponse, publicWorkroomResponse } from '../workrooms/response-schemas';
 
@@ -79,6 +88,9 @@ type CommissionAnswer<V extends CommissionView['viewer'] = CommissionView['viewe
 			: Omit<View, 'viewer'>
 		: never;
 
+/** What a successful `browseForTailor` gives the route. */
+type Browsed = Extract<Awaited<ReturnType<typeof browseForTailor>>, { ok: true }>;
+
 type Has<T, K extends PropertyKey> = K extends keyof T ? true : false;
 
 export type Conformance = [
@@ -89,6 +101,31 @@ export type Conformance = [
 	Assert<Fits<QuoteJson, typeof quoteResponse>>,
 	Assert<Fits<{ items: QuoteJson[] }, typeof quoteListResponse>>,
 	Assert<Fits<Awaited<ReturnType<typeof accept>>, typeof acceptResponse>>,
+	Assert<Fits<OrderView, typeof orderResponse>>,
+	Assert<Fits<{ url: Awaited<ReturnType<typeof startCheckout>>['url'] }, typeof checkoutResponse>>,
+	Assert<Fits<{ received: true; outcome: EventOutcome }, typeof webhookResponse>>,
+	Assert<Fits<ReturnType<typeof commissionItem>, typeof nearbyCommissionResponse>>,
+	Assert<
+		Fits<
+			{
+				items: ReturnType<typeof commissionItem>[];
+				nextCursor: Browsed['nextCursor'];
+				near: Browsed['origin']['near'];
+				radiusKm: Browsed['origin']['radiusKm'];
+			},
+			typeof nearbyCommissionPage
+		>
+	>,
+	Assert<Fits<ReturnType<typeof workroomItem>, typeof nearbyWorkroomResponse>>,
+	Assert<
+		Fits<
+			{
+				items: ReturnType<typeof workroomItem>[];
+				nextCursor: Awaited<ReturnType<typeof nearbyWorkrooms>>['nextCursor'];
+			},
+			typeof nearbyWorkroomPage
+		>
+	>,
 	Assert<Fits<Awaited<ReturnType<typeof threadsFor>>, typeof threadPage>>,
 	Assert<Fits<Awaited<ReturnType<typeof listMessages>>, typeof messagePage>>,
 	Assert<Fits<Awaited<ReturnType<typeof postMessage>>, typeof messageDto>>,

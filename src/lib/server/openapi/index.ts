@@ -4,9 +4,11 @@ import { docsView } from './view';
 import { commissionsArea } from './paths/commissions';
 import { draftingArea } from './paths/drafting';
 import { messagesArea } from './paths/messages';
+import { paymentsArea } from './paths/payments';
 import { placesArea } from './paths/places';
 import { profilesArea } from './paths/profiles';
 import { quotesArea } from './paths/quotes';
+import { searchArea } from './paths/search';
 import { serviceArea } from './paths/service';
 import { workroomsArea } from './paths/workrooms';
 
@@ -18,8 +20,10 @@ export { apiErrorSchema, access, errors, jsonBody, jsonRequest, uuidPath } from 
 export const areas: readonly Area[] = [
 	commissionsArea,
 	quotesArea,
+	paymentsArea,
 	messagesArea,
 	workroomsArea,
+	searchArea,
 	profilesArea,
 	draftingArea,
 	placesArea,

@@ -1,5 +1,6 @@
 import type { Executor } from '../db';
 import { forPayment, isParty } from '../orders/payment';
+import type { OrderStatus } from '../db/schema';
 import { PaymentError } from './errors';
 import { lastFailure, moneyOf, type OrderMoney } from './ledger';
 
@@ -7,6 +8,7 @@ export { startCheckout, returnPath, type PayingActor } from './checkout';
 export { handleEvent, stateOf, syncFromSession, syncOrder, type EventOutcome, type PaymentState } from './events';
 export { PaymentError, errorStatus, type PaymentErrorCode } from './errors';
 export { moneyOf, type OrderMoney } from './ledger';
+export * as schemas from './schemas';
 
 /** `GET /api/v1/orders/{id}`: the order with its money as the ledger has it. */
 export type OrderView = {
@@ -14,7 +16,7 @@ export type OrderView = {
 	commissionId: string;
 	customerId: string;
 	tailorId: string;
-	status: string;
+	status: OrderStatus;
 	priceMinor: number;
 	platformFeeMinor: number;
 	tailorPayoutMinor: number;

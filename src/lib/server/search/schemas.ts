@@ -60,12 +60,14 @@ const isoDate = z.iso.date('Give a date as YYYY-MM-DD.');
 /** Query parameters of `GET /api/v1/commissions` (a tailor's open commissions near them). */
 export const nearbyCommissionsQuery = z
 	.object({
-		near: nearParam.optional(),
-		radiusKm: radiusKm.optional(),
+		near: nearParam.optional().meta({ description: 'LAT,LNG to search around; the workroom’s place when left out.' }),
+		radiusKm: radiusKm
+			.optional()
+			.meta({ description: 'How far to reach, in km; the workroom’s service radius when left out.' }),
 		garment: z.enum([...garmentIds, 'other'], { error: 'Choose a garment from the list.' }).optional(),
-		budgetMin: amountMinor.optional(),
-		budgetMax: amountMinor.optional(),
-		dateNeededBefore: isoDate.optional(),
+		budgetMin: amountMinor.optional().meta({ description: 'Only budgets reaching at least this, in minor units.' }),
+		budgetMax: amountMinor.optional().meta({ description: 'Only budgets starting at most at this, in minor units.' }),
+		dateNeededBefore: isoDate.optional().meta({ description: 'Only commissions needed by this day (YYYY-MM-DD).' }),
 		fabricSource: z
 			.enum(['customer_supplies', 'tailor_sources'], { error: 'Fabric is customer_supplies or tailor_sources.' })
 			.optional(),
@@ -90,8 +92,8 @@ export type NearbyCommissionsQuery = z.output<typeof nearbyCommissionsQuery>;
 
 /** Query parameters of `GET /api/v1/tailors` (workrooms near a point). */
 export const nearbyWorkroomsQuery = z.object({
-	near: nearParam,
-	radiusKm: radiusKm.default(25),
+	near: nearParam.meta({ description: 'LAT,LNG to search around.' }),
+	radiusKm: radiusKm.default(25).meta({ description: 'How far to reach, in km (25 when left out).' }),
 	garment: z.enum(garmentIds, { error: 'Choose a garment from the list.' }).optional(),
 	q: words.optional(),
 	cursor: cursor.refine((key) => 'distanceM' in key, 'This cursor belongs to a list in another order.').optional(),

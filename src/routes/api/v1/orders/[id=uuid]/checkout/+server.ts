@@ -1,13 +1,9 @@
 import { json } from '@sveltejs/kit';
-import { z } from 'zod';
 import { requireUser } from '$lib/server/auth/guard';
 import { parseJsonBody } from '$lib/server/http/respond';
 import * as payments from '$lib/server/payments';
 import { refusedPayment } from '../refused.server';
 import type { RequestHandler } from './$types';
-
-/** Takes no fields; a body, if sent, must be an empty object. */
-const checkoutRequest = z.object({}).strict();
 
 function hasBody(request: Request) {
 	const length = request.headers.get('content-length');
@@ -21,7 +17,7 @@ function hasBody(request: Request) {
 export const POST: RequestHandler = async ({ params, request, locals, getClientAddress }) => {
 	const user = requireUser();
 	if (hasBody(request)) {
-		const parsed = await parseJsonBody(request, checkoutRequest);
+		const parsed = await parseJsonBody(request, payments.schemas.checkoutRequest);
 		if (!parsed.ok) return parsed.response;
 	}
 	try {
