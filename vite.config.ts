@@ -6,6 +6,9 @@ import { defineConfig } from 'vitest/config';
 // machine running the local stand-ins; production images build without TACKLINE_DEV_TOOLS.
 const devTools = process.env.TACKLINE_DEV_TOOLS === '1' || process.env.NODE_ENV === 'development';
 
+/** Files that stop or slow the shared mail stand-in: they run alone, after the others. */
+const serialIntegrationFiles = ['tests/integration/mail-queue.spec.ts', 'tests/integration/health.spec.ts'];
+
 export default defineConfig({
 	plugins: [tailwindcss(), sveltekit()],
 	build: { rolldownOptions: { checks: { pluginTimings: false } } },
@@ -28,7 +31,21 @@ export default defineConfig({
 					name: 'integration',
 					environment: 'node',
 					include: ['tests/integration/**/*.spec.ts', 'src/**/*.db.spec.ts'],
-					// Each file gets its own database copy and server (tests/integration/setup.ts).
+					exclude: serialIntegrationFiles,
+					// Each file gets its own database copy, server and stand-ins (tests/integration/setup.ts), so
+					// files run side by side; most of their time is spent waiting, not computing.
+					setupFiles: ['tests/integration/setup.ts'],
+					maxWorkers: 3,
+					testTimeout: 30_000,
+					hookTimeout: 60_000
+				}
+			},
+			{
+				extends: './vite.config.ts',
+				test: {
+					name: 'integration-serial',
+					environment: 'node',
+					include: serialIntegrationFiles,
 					setupFiles: ['tests/integration/setup.ts'],
 					fileParallelism: false,
 					testTimeout: 30_000,

@@ -160,7 +160,10 @@ async function main() {
 	}
 	await Promise.all([staticLane(), unitAndBuildLane()]);
 
-	if (!only.length || vitestOnly.length) await vitestSuite('integration', 'integration', env);
+	if (!only.length || vitestOnly.length) {
+		await vitestSuite('integration', 'integration', env);
+		await vitestSuite('integration, serial', 'integration-serial', env);
+	}
 	if (only.length && !browserOnly.length) return;
 
 	const browserDatabase = await copyDatabase(database.url, 'browser');

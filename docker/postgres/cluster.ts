@@ -88,7 +88,10 @@ export function initCluster(bin: string, cluster: Cluster) {
 
 function serverOptions(cluster: Cluster) {
 	const base = `-p ${cluster.port} -c listen_addresses=127.0.0.1 -c unix_socket_directories=''`;
-	return cluster.throwaway ? `${base} -c fsync=off -c full_page_writes=off -c synchronous_commit=off` : base;
+	// Test runs hold a server, a job queue and a test pool per integration file, several files at once.
+	return cluster.throwaway
+		? `${base} -c fsync=off -c full_page_writes=off -c synchronous_commit=off -c max_connections=400`
+		: base;
 }
 
 export function isRunning(bin: string, cluster: Cluster) {

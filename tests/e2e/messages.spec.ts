@@ -23,7 +23,7 @@ test('a customer and a tailor see each other’s messages arrive live, without r
 	await live(tailor.getByText('Live', { exact: true })).toBeVisible();
 
 	await customer.goto('/messages');
-	await customer.getByRole('link', { name: /Obi Cut & Stitch/ }).click();
+	await customer.getByRole('link', { name: /Obi Cut & Stitch.*Concert tunic for my son/s }).click();
 	await live(customer.getByText('Live', { exact: true })).toBeVisible();
 
 	const question = `Shall I use horn buttons? ${Date.now()} https://example.com/buttons`;

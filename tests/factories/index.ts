@@ -100,9 +100,9 @@ export async function createWorkroom(
 					hourlyRateMinor: 2800,
 					rateCurrency: 'EUR',
 					onboardedAt: new Date(),
-					// Payouts set up, as a quote must have before it can be accepted (a local id, unknown to Stripe).
-					payoutStatus: 'enabled' as const,
-					payoutAccountId: `acct_local_${slug}`
+					// Payouts set up, as a quote must have before it can be accepted. No account at the processor:
+					// tests that move money to the workroom onboard one through the stand-in.
+					payoutStatus: 'enabled' as const
 				}),
 		...options.profile,
 		userId: tailor.id,
