@@ -18,6 +18,18 @@ export type StripeEvent = StripeObject & {
 	account?: string;
 };
 
+/** The parameters a customer may be created or updated with. */
+const customerParams = [
+	'email',
+	'name',
+	'description',
+	'phone',
+	'metadata',
+	'address',
+	'preferred_locales',
+	'shipping'
+];
+
 export class StripeApiError extends Error {
 	constructor(
 		readonly status: number,
@@ -591,16 +603,7 @@ export class StripeStore {
 	// ---------- customers ----------
 
 	createCustomer(params: FormObject) {
-		checkParams(params, [
-			'email',
-			'name',
-			'description',
-			'phone',
-			'metadata',
-			'address',
-			'preferred_locales',
-			'shipping'
-		]);
+		checkParams(params, customerParams);
 		const customer: StripeObject = {
 			id: newId('cus', 14),
 			object: 'customer',
@@ -631,16 +634,7 @@ export class StripeStore {
 		return this.get('customer', 'customer', id);
 	}
 	updateCustomer(id: string, params: FormObject) {
-		checkParams(params, [
-			'email',
-			'name',
-			'description',
-			'phone',
-			'metadata',
-			'address',
-			'preferred_locales',
-			'shipping'
-		]);
+		checkParams(params, customerParams);
 		const c = this.get('customer', 'customer', id);
 		if (c.deleted) throw missing('customer', id);
 		for (const key of ['email', 'name', 'description', 'phone'])
