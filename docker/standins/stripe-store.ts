@@ -18,6 +18,18 @@ export type StripeEvent = StripeObject & {
 	account?: string;
 };
 
+/** The parameters a customer may be created or updated with. */
+const customerParams = [
+	'email',
+	'name',
+	'description',
+	'phone',
+	'metadata',
+	'address',
+	'preferred_locales',
+	'shipping'
+];
+
 export class StripeApiError extends Error {
 	constructor(
 		readonly status: number,
@@ -389,6 +401,23 @@ export class StripeStore {
 	}
 
 	/** A list page, newest first, with `limit`, `starting_after` and `ending_before`. */
+	/**
+	 * A list filtered by equality on each of `fields` the request names (`?customer=cus_…` keeps objects whose
+	 * `customer` is that id); `also` narrows further and `extra` names more accepted parameters.
+	 */
+	listMatching(
+		object: string,
+		params: FormObject,
+		url: string,
+		fields: string[],
+		{ also = () => true, extra = [] }: { also?: (o: StripeObject) => boolean; extra?: string[] } = {}
+	) {
+		const wanted = fields.map((field) => [field, str(params, field)] as const).filter(([, value]) => value);
+		return this.list(object, params, url, (o) => also(o) && wanted.every(([field, value]) => o[field] === value), [
+			...fields,
+			...extra
+		]);
+	}
 	list(object: string, params: FormObject, url: string, filter: (o: StripeObject) => boolean, extra: string[] = []) {
 		checkParams(params, ['limit', 'starting_after', 'ending_before', 'created', ...extra]);
 		const limit = int(params, 'limit') ?? 10;
@@ -556,19 +585,15 @@ export class StripeStore {
 	}
 	listBalanceTransactions(params: FormObject, account: string | null) {
 		const owner = account ?? PLATFORM;
-		const source = str(params, 'source');
-		const type = str(params, 'type');
-		const currency = str(params, 'currency');
-		return this.list(
+		return this.listMatching(
 			'balance_transaction',
 			params,
 			'/v1/balance_transactions',
-			(b) =>
-				this.btOwner.get(b.id) === owner &&
-				(!source || b.source === source) &&
-				(!type || b.type === type) &&
-				(!currency || b.currency === currency),
-			['source', 'type', 'currency', 'payout']
+			['source', 'type', 'currency'],
+			{
+				also: (b) => this.btOwner.get(b.id) === owner,
+				extra: ['payout']
+			}
 		);
 	}
 	balanceTransaction(id: string) {
@@ -578,16 +603,7 @@ export class StripeStore {
 	// ---------- customers ----------
 
 	createCustomer(params: FormObject) {
-		checkParams(params, [
-			'email',
-			'name',
-			'description',
-			'phone',
-			'metadata',
-			'address',
-			'preferred_locales',
-			'shipping'
-		]);
+		checkParams(params, customerParams);
 		const customer: StripeObject = {
 			id: newId('cus', 14),
 			object: 'customer',
@@ -618,16 +634,7 @@ export class StripeStore {
 		return this.get('customer', 'customer', id);
 	}
 	updateCustomer(id: string, params: FormObject) {
-		checkParams(params, [
-			'email',
-			'name',
-			'description',
-			'phone',
-			'metadata',
-			'address',
-			'preferred_locales',
-			'shipping'
-		]);
+		checkParams(params, customerParams);
 		const c = this.get('customer', 'customer', id);
 		if (c.deleted) throw missing('customer', id);
 		for (const key of ['email', 'name', 'description', 'phone'])
@@ -1063,16 +1070,14 @@ export class StripeStore {
 		return s;
 	}
 	listCheckoutSessions(params: FormObject) {
-		const pi = str(params, 'payment_intent');
-		const customer = str(params, 'customer');
-		const status = str(params, 'status');
-		return this.list(
+		return this.listMatching(
 			'checkout.session',
 			params,
 			'/v1/checkout/sessions',
-			(s) =>
-				(!pi || s.payment_intent === pi) && (!customer || s.customer === customer) && (!status || s.status === status),
-			['payment_intent', 'customer', 'status', 'customer_details']
+			['payment_intent', 'customer', 'status'],
+			{
+				extra: ['customer_details']
+			}
 		);
 	}
 	sessionLineItems(id: string, params: FormObject) {
@@ -1276,28 +1281,13 @@ export class StripeStore {
 		return this.get('payment_intent', 'payment_intent', id);
 	}
 	listPaymentIntents(params: FormObject) {
-		const customer = str(params, 'customer');
-		return this.list('payment_intent', params, '/v1/payment_intents', (p) => !customer || p.customer === customer, [
-			'customer'
-		]);
+		return this.listMatching('payment_intent', params, '/v1/payment_intents', ['customer']);
 	}
 	charge(id: string) {
 		return this.get('charge', 'charge', id);
 	}
 	listCharges(params: FormObject) {
-		const pi = str(params, 'payment_intent');
-		const group = str(params, 'transfer_group');
-		const customer = str(params, 'customer');
-		return this.list(
-			'charge',
-			params,
-			'/v1/charges',
-			(c) =>
-				(!pi || c.payment_intent === pi) &&
-				(!group || c.transfer_group === group) &&
-				(!customer || c.customer === customer),
-			['payment_intent', 'transfer_group', 'customer']
-		);
+		return this.listMatching('charge', params, '/v1/charges', ['payment_intent', 'transfer_group', 'customer']);
 	}
 
 	// ---------- Transfers and reversals ----------
@@ -1400,15 +1390,7 @@ export class StripeStore {
 		return t;
 	}
 	listTransfers(params: FormObject) {
-		const destination = str(params, 'destination');
-		const group = str(params, 'transfer_group');
-		return this.list(
-			'transfer',
-			params,
-			'/v1/transfers',
-			(t) => (!destination || t.destination === destination) && (!group || t.transfer_group === group),
-			['destination', 'transfer_group']
-		);
+		return this.listMatching('transfer', params, '/v1/transfers', ['destination', 'transfer_group']);
 	}
 	createReversal(transferId: string, params: FormObject) {
 		checkParams(params, ['amount', 'metadata', 'description', 'refund_application_fee']);
@@ -1580,14 +1562,6 @@ export class StripeStore {
 		return r;
 	}
 	listRefunds(params: FormObject) {
-		const charge = str(params, 'charge');
-		const pi = str(params, 'payment_intent');
-		return this.list(
-			'refund',
-			params,
-			'/v1/refunds',
-			(r) => (!charge || r.charge === charge) && (!pi || r.payment_intent === pi),
-			['charge', 'payment_intent']
-		);
+		return this.listMatching('refund', params, '/v1/refunds', ['charge', 'payment_intent']);
 	}
 }

@@ -170,6 +170,28 @@ export async function createMeasurementProfile(
 	return { id: row.id, label };
 }
 
+/** Body measurements enough for the skirts and trousers the tests commission, in millimetres. */
+export const customerMeasurementsMm = {
+	waist_girth: 740,
+	hip_girth: 1000,
+	waist_to_hip: 205,
+	waist_to_floor: 1040,
+	body_rise: 275,
+	thigh_girth: 580,
+	inside_leg: 760
+};
+
+/** A customer with one measurement profile, "Me" in centimetres, ready to commission with. */
+export async function createCustomerWithProfile(
+	db: Executor,
+	options: PersonOptions & { valuesMm?: Record<string, number> } = {}
+): Promise<{ person: Person; profileId: string }> {
+	const { valuesMm = customerMeasurementsMm, ...personOptions } = options;
+	const person = await createUser(db, personOptions);
+	const profile = await createMeasurementProfile(db, { ownerId: person.id, label: 'Me', unit: 'cm', valuesMm });
+	return { person, profileId: profile.id };
+}
+
 /** A portfolio item with one photo row for a workroom, as the portfolio area stores it (no stored image). */
 export async function createPortfolioPhoto(db: Executor, { tailorId, altText }: { tailorId: string; altText: string }) {
 	const [item] = await db

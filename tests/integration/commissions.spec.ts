@@ -1,10 +1,10 @@
 import PgBoss from 'pg-boss';
 import { and, eq } from 'drizzle-orm';
 import { afterAll, describe, expect, it } from 'vitest';
-import { auditEvent, commission, measurementProfile, quote } from '../../src/lib/server/db/schema';
-import { createCommission, createUser, createWorkroom, type Person } from '../factories';
+import { auditEvent, commission, quote } from '../../src/lib/server/db/schema';
+import { createCommission, createCustomerWithProfile, createUser, createWorkroom } from '../factories';
 import { testDb } from './db';
-import { baseUrl, newClient, signIn, type Client } from './http';
+import { callJson, newClient, signedIn, signIn } from './http';
 import { settledMailTo, waitForMail } from './inbox';
 import { eventually } from './mail';
 
@@ -15,55 +15,9 @@ function later(days: number) {
 	return new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
 }
 
-/** JSON calls with the client's session cookie. */
-async function api(client: Client, method: string, path: string, body?: unknown) {
-	const cookie = [...client.jar].map(([name, value]) => `${name}=${value}`).join('; ');
-	const response = await fetch(baseUrl + path, {
-		method,
-		headers: {
-			origin: baseUrl,
-			'x-forwarded-for': client.address,
-			...(cookie ? { cookie } : {}),
-			...(body === undefined ? {} : { 'content-type': 'application/json' })
-		},
-		body: body === undefined ? undefined : JSON.stringify(body)
-	});
-	const text = await response.text();
-	return {
-		status: response.status,
-		// Read loosely: each test asserts the shape it relies on.
-		// eslint-disable-next-line @typescript-eslint/no-explicit-any
-		body: (text ? JSON.parse(text) : null) as Record<string, any>
-	};
-}
-
-async function signedIn(person: Person) {
-	const client = newClient();
-	const response = await signIn(client, person.email, person.password);
-	expect(response.status).toBe(303);
-	return client;
-}
-
 async function customerWithProfile() {
-	const person = await createUser(db, { name: 'Rosalind Pemberton-Hale' });
-	const [profile] = await db
-		.insert(measurementProfile)
-		.values({
-			ownerId: person.id,
-			label: 'Me',
-			unit: 'cm',
-			valuesMm: {
-				waist_girth: 740,
-				hip_girth: 1000,
-				waist_to_hip: 205,
-				waist_to_floor: 1040,
-				body_rise: 275,
-				thigh_girth: 580,
-				inside_leg: 760
-			}
-		})
-		.returning({ id: measurementProfile.id });
-	return { person, profileId: profile.id, client: await signedIn(person) };
+	const { person, profileId } = await createCustomerWithProfile(db, { name: 'Rosalind Pemberton-Hale' });
+	return { person, profileId, client: await signedIn(person) };
 }
 
 function fullBody(profileId: string) {
@@ -83,9 +37,9 @@ function fullBody(profileId: string) {
 
 async function postedCommission() {
 	const owner = await customerWithProfile();
-	const created = await api(owner.client, 'POST', '/api/v1/commissions', fullBody(owner.profileId));
+	const created = await callJson(owner.client, 'POST', '/api/v1/commissions', fullBody(owner.profileId));
 	expect(created.status).toBe(201);
-	const published = await api(owner.client, 'POST', `/api/v1/commissions/${created.body.id}/publish`);
+	const published = await callJson(owner.client, 'POST', `/api/v1/commissions/${created.body.id}/publish`);
 	expect(published.status).toBe(200);
 	return { ...owner, id: created.body.id as string, published: published.body };
 }
@@ -93,7 +47,7 @@ async function postedCommission() {
 describe('posting a commission', () => {
 	it('goes from a profile to a draft to an open commission tailors can see', async () => {
 		const owner = await customerWithProfile();
-		const created = await api(owner.client, 'POST', '/api/v1/commissions', fullBody(owner.profileId));
+		const created = await callJson(owner.client, 'POST', '/api/v1/commissions', fullBody(owner.profileId));
 		expect(created.status).toBe(201);
 		expect(created.body).toMatchObject({
 			status: 'draft',
@@ -101,7 +55,7 @@ describe('posting a commission', () => {
 			garment: 'straight-skirt'
 		});
 
-		const published = await api(owner.client, 'POST', `/api/v1/commissions/${created.body.id}/publish`);
+		const published = await callJson(owner.client, 'POST', `/api/v1/commissions/${created.body.id}/publish`);
 		expect(published.status).toBe(200);
 		// A skirt's band uses waist and hip, sized by 4 cm designations (EN 13402-3): a 74 cm waist is in the
 		// band of designation 76 (74–78), a 100 cm hip in that of 100 (98–102).
@@ -116,7 +70,7 @@ describe('posting a commission', () => {
 		const days = (Date.parse(published.body.expiresAt) - Date.parse(published.body.publishedAt)) / 86_400_000;
 		expect(days).toBe(30);
 
-		const again = await api(owner.client, 'POST', `/api/v1/commissions/${created.body.id}/publish`);
+		const again = await callJson(owner.client, 'POST', `/api/v1/commissions/${created.body.id}/publish`);
 		expect(again.body.publishedAt).toBe(published.body.publishedAt);
 
 		const tailor = await signedIn(await createWorkroom(db));
@@ -138,9 +92,9 @@ describe('posting a commission', () => {
 
 	it('refuses to publish an incomplete draft and names what is missing', async () => {
 		const owner = await customerWithProfile();
-		const created = await api(owner.client, 'POST', '/api/v1/commissions', { garment: 'tunic', title: 'A tunic' });
+		const created = await callJson(owner.client, 'POST', '/api/v1/commissions', { garment: 'tunic', title: 'A tunic' });
 		expect(created.status).toBe(201);
-		const refused = await api(owner.client, 'POST', `/api/v1/commissions/${created.body.id}/publish`);
+		const refused = await callJson(owner.client, 'POST', `/api/v1/commissions/${created.body.id}/publish`);
 		expect(refused.status).toBe(422);
 		const paths = (refused.body.error.issues as { path: string }[]).map((i) => i.path);
 		expect(paths).toEqual(expect.arrayContaining(['measurementProfileId', 'budget', 'dateNeeded', 'location']));
@@ -149,18 +103,18 @@ describe('posting a commission', () => {
 	it('refuses a budget upside down, a past date and someone else’s profile, each with its own message', async () => {
 		const owner = await customerWithProfile();
 		const stranger = await customerWithProfile();
-		const upsideDown = await api(owner.client, 'POST', '/api/v1/commissions', {
+		const upsideDown = await callJson(owner.client, 'POST', '/api/v1/commissions', {
 			...fullBody(owner.profileId),
 			budget: { minMinor: 500, maxMinor: 100, currency: 'EUR' }
 		});
 		expect(upsideDown.status).toBe(400);
-		const past = await api(owner.client, 'POST', '/api/v1/commissions', {
+		const past = await callJson(owner.client, 'POST', '/api/v1/commissions', {
 			...fullBody(owner.profileId),
 			dateNeeded: '2020-01-01'
 		});
 		expect(past.status).toBe(400);
 		expect(past.body.error.issues).toEqual([{ path: 'dateNeeded', message: 'Choose a date after today.' }]);
-		const theirs = await api(owner.client, 'POST', '/api/v1/commissions', fullBody(stranger.profileId));
+		const theirs = await callJson(owner.client, 'POST', '/api/v1/commissions', fullBody(stranger.profileId));
 		expect(theirs.body.error.issues[0].path).toBe('measurementProfileId');
 	});
 
@@ -198,7 +152,7 @@ describe('posting a commission', () => {
 
 	it('keeps what was typed when a step is refused', async () => {
 		const owner = await customerWithProfile();
-		const created = await api(owner.client, 'POST', '/api/v1/commissions', { garment: 'tunic', title: 'A tunic' });
+		const created = await callJson(owner.client, 'POST', '/api/v1/commissions', { garment: 'tunic', title: 'A tunic' });
 		const response = await owner.client.post(`/commissions/${created.body.id}/edit/budget`, {
 			currency: 'EUR',
 			budgetMin: '300',
@@ -227,10 +181,10 @@ describe('changing and ending a commission', () => {
 			validUntil: new Date(Date.now() + 10 * 86_400_000)
 		});
 		const change = { budget: { minMinor: 10000, maxMinor: 16000, currency: 'EUR' }, title: 'Charcoal flannel skirt' };
-		const edited = await api(posted.client, 'PATCH', `/api/v1/commissions/${posted.id}`, change);
+		const edited = await callJson(posted.client, 'PATCH', `/api/v1/commissions/${posted.id}`, change);
 		expect(edited.status).toBe(200);
 		expect(edited.body).toMatchObject({ status: 'open', title: 'Charcoal flannel skirt' });
-		await api(posted.client, 'PATCH', `/api/v1/commissions/${posted.id}`, change);
+		await callJson(posted.client, 'PATCH', `/api/v1/commissions/${posted.id}`, change);
 
 		const mail = await waitForMail(tailor.email, {
 			subject: 'A commission you quoted on has changed: Charcoal flannel skirt'
@@ -240,14 +194,16 @@ describe('changing and ending a commission', () => {
 		expect(mail.text).not.toContain('Needed by');
 		expect((await settledMailTo(tailor.email)).length).toBe(1);
 
-		const garmentChange = await api(posted.client, 'PATCH', `/api/v1/commissions/${posted.id}`, { garment: 'tunic' });
+		const garmentChange = await callJson(posted.client, 'PATCH', `/api/v1/commissions/${posted.id}`, {
+			garment: 'tunic'
+		});
 		expect(garmentChange.status).toBe(400);
 	});
 
 	it('cancels an open commission once, however often it is asked', async () => {
 		const posted = await postedCommission();
-		const first = await api(posted.client, 'POST', `/api/v1/commissions/${posted.id}/cancel`);
-		const second = await api(posted.client, 'POST', `/api/v1/commissions/${posted.id}/cancel`);
+		const first = await callJson(posted.client, 'POST', `/api/v1/commissions/${posted.id}/cancel`);
+		const second = await callJson(posted.client, 'POST', `/api/v1/commissions/${posted.id}/cancel`);
 		expect([first.status, first.body.status, second.status, second.body.status]).toEqual([
 			200,
 			'cancelled',
@@ -259,7 +215,7 @@ describe('changing and ending a commission', () => {
 			.from(auditEvent)
 			.where(and(eq(auditEvent.subjectId, posted.id), eq(auditEvent.action, 'commission.cancelled')));
 		expect(events).toHaveLength(1);
-		const publishAgain = await api(posted.client, 'POST', `/api/v1/commissions/${posted.id}/publish`);
+		const publishAgain = await callJson(posted.client, 'POST', `/api/v1/commissions/${posted.id}/publish`);
 		expect(publishAgain.status).toBe(409);
 	});
 
@@ -302,14 +258,14 @@ describe('changing and ending a commission', () => {
 describe('who sees what', () => {
 	it('gives the owner the measurements and nobody else', async () => {
 		const posted = await postedCommission();
-		const mine = await api(posted.client, 'GET', `/api/v1/commissions/${posted.id}`);
+		const mine = await callJson(posted.client, 'GET', `/api/v1/commissions/${posted.id}`);
 		expect(mine.body.measurements).toEqual({
 			unit: 'cm',
 			values: expect.objectContaining({ waist_girth: 74, hip_girth: 100 })
 		});
 
 		const tailor = await signedIn(await createWorkroom(db));
-		const seen = await api(tailor, 'GET', `/api/v1/commissions/${posted.id}`);
+		const seen = await callJson(tailor, 'GET', `/api/v1/commissions/${posted.id}`);
 		expect(seen.status).toBe(200);
 		expect(seen.body).not.toHaveProperty('measurements');
 		expect(JSON.stringify(seen.body)).not.toMatch(/waist_girth"?:\s*7/);
@@ -320,27 +276,38 @@ describe('who sees what', () => {
 		expect(Math.abs(seen.body.location.lng - 3.20891)).toBeLessThan(0.015);
 
 		const admin = await signedIn(await createUser(db, { role: 'admin' }));
-		expect(await api(admin, 'GET', `/api/v1/commissions/${posted.id}`)).not.toHaveProperty('body.measurements');
+		expect(await callJson(admin, 'GET', `/api/v1/commissions/${posted.id}`)).not.toHaveProperty('body.measurements');
 		const otherCustomer = await signedIn(await createUser(db));
-		expect((await api(otherCustomer, 'GET', `/api/v1/commissions/${posted.id}`)).status).toBe(404);
-		expect((await api(newClient(), 'GET', `/api/v1/commissions/${posted.id}`)).status).toBe(401);
+		expect((await callJson(otherCustomer, 'GET', `/api/v1/commissions/${posted.id}`)).status).toBe(404);
+		expect((await callJson(newClient(), 'GET', `/api/v1/commissions/${posted.id}`)).status).toBe(401);
 	});
 
 	it('keeps drafts to their owner and commissions to customers', async () => {
 		const owner = await customerWithProfile();
-		const draft = await api(owner.client, 'POST', '/api/v1/commissions', { garment: 'tunic', title: 'Secret draft' });
+		const draft = await callJson(owner.client, 'POST', '/api/v1/commissions', {
+			garment: 'tunic',
+			title: 'Secret draft'
+		});
 		const tailorPerson = await createWorkroom(db);
 		const tailor = await signedIn(tailorPerson);
-		expect((await api(tailor, 'GET', `/api/v1/commissions/${draft.body.id}`)).status).toBe(404);
+		expect((await callJson(tailor, 'GET', `/api/v1/commissions/${draft.body.id}`)).status).toBe(404);
 		expect((await tailor.get(`/commissions/${draft.body.id}`)).status).toBe(404);
-		expect((await api(tailor, 'POST', '/api/v1/commissions', { garment: 'tunic', title: 'Mine' })).status).toBe(403);
-		expect((await api(tailor, 'PATCH', `/api/v1/commissions/${draft.body.id}`, { title: 'Taken' })).status).toBe(403);
+		expect((await callJson(tailor, 'POST', '/api/v1/commissions', { garment: 'tunic', title: 'Mine' })).status).toBe(
+			403
+		);
+		expect((await callJson(tailor, 'PATCH', `/api/v1/commissions/${draft.body.id}`, { title: 'Taken' })).status).toBe(
+			403
+		);
 		const other = await signedIn(await createUser(db));
-		expect((await api(other, 'PATCH', `/api/v1/commissions/${draft.body.id}`, { title: 'Taken' })).status).toBe(404);
-		expect((await api(other, 'POST', `/api/v1/commissions/${draft.body.id}/cancel`)).status).toBe(404);
+		expect((await callJson(other, 'PATCH', `/api/v1/commissions/${draft.body.id}`, { title: 'Taken' })).status).toBe(
+			404
+		);
+		expect((await callJson(other, 'POST', `/api/v1/commissions/${draft.body.id}/cancel`)).status).toBe(404);
 		const suspended = await createUser(db, { suspended: true });
 		const client = newClient();
 		await signIn(client, suspended.email, suspended.password);
-		expect((await api(client, 'POST', '/api/v1/commissions', { garment: 'tunic', title: 'Mine' })).status).toBe(401);
+		expect((await callJson(client, 'POST', '/api/v1/commissions', { garment: 'tunic', title: 'Mine' })).status).toBe(
+			401
+		);
 	});
 });

@@ -5,8 +5,7 @@
  * over the live stream.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { measurementProfile } from '../../src/lib/server/db/schema';
-import { createUser, createWorkroom } from '../factories';
+import { createCustomerWithProfile, createWorkroom } from '../factories';
 import { completeOnboarding } from '../factories/quotes';
 import { testDb } from './db';
 import { openEvents } from './events';
@@ -46,16 +45,10 @@ async function eventuallyListed(client: Client, path: string, id: string, timeou
 }
 
 beforeAll(async () => {
-	const person = await createUser(db, { name: 'Ysolde Carvath' });
-	const [profile] = await db
-		.insert(measurementProfile)
-		.values({
-			ownerId: person.id,
-			label: 'Me',
-			unit: 'cm',
-			valuesMm: { waist_girth: 720, hip_girth: 980, waist_to_hip: 200, waist_to_knee: 580, waist_to_floor: 1020 }
-		})
-		.returning({ id: measurementProfile.id });
+	const { person, profileId } = await createCustomerWithProfile(db, {
+		name: 'Ysolde Carvath',
+		valuesMm: { waist_girth: 720, hip_girth: 980, waist_to_hip: 200, waist_to_knee: 580, waist_to_floor: 1020 }
+	});
 	const nearRoom = await quotingTailor(tailorPlaces.near, 'Lantern Row Workroom');
 	const farRoom = await quotingTailor(tailorPlaces.far, 'Far Fold Workroom');
 	nearTailorId = nearRoom.id;
@@ -65,7 +58,7 @@ beforeAll(async () => {
 		garment: 'straight-skirt',
 		title: 'Navy wool skirt for winter',
 		styleNotes: 'Knee length, a kick pleat at the back.',
-		measurementProfileId: profile.id,
+		measurementProfileId: profileId,
 		fabricSource: 'tailor_sources',
 		budget: { minMinor: 9000, maxMinor: 16000, currency: 'EUR' },
 		dateNeeded: inDays(75),

@@ -5,10 +5,9 @@
  */
 import { Meilisearch } from 'meilisearch';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { measurementProfile } from '../../src/lib/server/db/schema';
-import { createUser, createWorkroom, type Person } from '../factories';
+import { createCustomerWithProfile, createWorkroom } from '../factories';
 import { testDb } from './db';
-import { baseUrl, newClient, signIn, type Client } from './http';
+import { baseUrl, signedIn, type Client } from './http';
 import { searchStandin } from './search';
 
 const { db, pool } = testDb();
@@ -38,37 +37,14 @@ async function api(client: Client | null, method: string, path: string, body?: u
 	};
 }
 
-async function signedIn(person: Person) {
-	const client = newClient();
-	expect((await signIn(client, person.email, person.password)).status).toBe(303);
-	return client;
-}
-
 let customer: Client;
 let profileId: string;
 let nearTailor: Client;
 let farTailor: Client;
 
 beforeAll(async () => {
-	const person = await createUser(db, { name: 'Morwenna Tregear' });
-	const [profile] = await db
-		.insert(measurementProfile)
-		.values({
-			ownerId: person.id,
-			label: 'Me',
-			unit: 'cm',
-			valuesMm: {
-				waist_girth: 740,
-				hip_girth: 1000,
-				waist_to_hip: 205,
-				waist_to_floor: 1040,
-				body_rise: 275,
-				thigh_girth: 580,
-				inside_leg: 760
-			}
-		})
-		.returning({ id: measurementProfile.id });
-	profileId = profile.id;
+	const { person, profileId: id } = await createCustomerWithProfile(db, { name: 'Morwenna Tregear' });
+	profileId = id;
 	customer = await signedIn(person);
 	const [nearby, distant] = await Promise.all([
 		createWorkroom(db, { profile: { lat: near3km.lat, lng: near3km.lng, serviceRadiusKm: 25 } }),

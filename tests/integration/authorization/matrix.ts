@@ -50,6 +50,61 @@ export function customerPage(owner: Outcome, otherCustomer: Outcome): Expectatio
 	};
 }
 
+/** The same answer for every actor: public things, or things nobody may do. */
+export function everyone(status: number): Expectations {
+	return {
+		anonymous: status,
+		owner: status,
+		otherCustomer: status,
+		tailor: status,
+		tailorOnboarding: status,
+		admin: status,
+		suspended: status
+	};
+}
+
+/** A tailor-only JSON endpoint, whether or not the tailor has finished setting up. */
+export function tailorApi(ok: number): Expectations {
+	return {
+		anonymous: 401,
+		owner: 403,
+		otherCustomer: 403,
+		tailor: ok,
+		tailorOnboarding: ok,
+		admin: 403,
+		suspended: 401
+	};
+}
+
+/** A tailor-only page or form action, whether or not the tailor has finished setting up. */
+export function tailorPage(ok: Outcome): Expectations {
+	return {
+		anonymous: signInRedirect,
+		owner: 403,
+		otherCustomer: 403,
+		tailor: ok,
+		tailorOnboarding: ok,
+		admin: 403,
+		suspended: suspendedRedirect
+	};
+}
+
+/**
+ * A JSON read for the parties to a quote (the owner and the tailor who quoted) and admins; to other customers
+ * and to tailors taking no part it does not exist.
+ */
+export function partiesApi(): Expectations {
+	return {
+		anonymous: 401,
+		owner: 200,
+		otherCustomer: 404,
+		tailor: 200,
+		tailorOnboarding: 404,
+		admin: 200,
+		suspended: 401
+	};
+}
+
 const statusOf = (outcome: Outcome) => (typeof outcome === 'number' ? outcome : outcome.status);
 const escape = (text: string) => text.replace(/[.*+?^${}()|[\]\\/]/g, '\\$&');
 /** Whole tokens only: `91.4` must not be found inside `191.45`. */

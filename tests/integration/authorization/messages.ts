@@ -9,7 +9,7 @@ import * as messages from '../../../src/lib/server/messages';
 import { createCommission } from '../../factories';
 import { solid } from '../../factories/images';
 import { baseUrl, type Client } from '../http';
-import { signInRedirect, suspendedRedirect, type Expectations, type Row, type World } from './matrix';
+import { signInRedirect, suspendedRedirect, tailorPage, type Expectations, type Row, type World } from './matrix';
 
 /** The owner's surname (actors.ts): the tailor sees "Wenna P.". */
 const surname = 'Polglase';
@@ -140,15 +140,7 @@ export const messageRows: Row<Thread>[] = [
 		name: 'GET /messages/ask/{commissionId}',
 		arrange: (world) => openCommission(world),
 		send: (client, { commissionId }) => client.get(`/messages/ask/${commissionId}`),
-		expect: {
-			anonymous: signInRedirect,
-			owner: 403,
-			otherCustomer: 403,
-			tailor: 200,
-			tailorOnboarding: 200,
-			admin: 403,
-			suspended: suspendedRedirect
-		}
+		expect: tailorPage(200)
 	},
 	{
 		name: 'POST /messages/ask/{commissionId}?/ask',

@@ -7,7 +7,7 @@ import { expect } from 'vitest';
 import { quote } from '../../../src/lib/server/db/schema';
 import { createCommission } from '../../factories';
 import { completeOnboarding, createQuote } from '../../factories/quotes';
-import { signInRedirect, suspendedRedirect, type Expectations, type Row, type World } from './matrix';
+import { partiesApi, signInRedirect, suspendedRedirect, type Expectations, type Row, type World } from './matrix';
 
 type Arranged = { commissionId: string; quoteId: string | null; secrets: string[]; before: unknown };
 
@@ -119,15 +119,7 @@ export const quoteRows: Row<Arranged>[] = [
 		name: `GET ${api}/quotes/{id}`,
 		arrange: (world) => arrange(world, { quoted: true }),
 		send: (client, { quoteId }) => client.json('GET', `${api}/quotes/${quoteId}`),
-		expect: {
-			anonymous: 401,
-			owner: 200,
-			otherCustomer: 404,
-			tailor: 200,
-			tailorOnboarding: 404,
-			admin: 200,
-			suspended: 401
-		}
+		expect: partiesApi()
 	},
 	{
 		name: `PATCH ${api}/quotes/{id}`,

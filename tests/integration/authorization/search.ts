@@ -5,7 +5,7 @@
 import { eq } from 'drizzle-orm';
 import { commissionMeasurements } from '../../../src/lib/server/db/schema';
 import { createCommission } from '../../factories';
-import { signInRedirect, suspendedRedirect, type Expectations, type Row, type World } from './matrix';
+import { everyone, tailorApi, tailorPage, type Row, type World } from './matrix';
 
 type Listed = { id: string; secrets: string[] };
 
@@ -20,36 +20,6 @@ async function openNearby({ db, cast }: World): Promise<Listed> {
 	return { id: made.id, secrets: ['741.37', '1003.19', '74.137', '100.319'] };
 }
 
-const tailorsOnly = (ok: number): Expectations => ({
-	anonymous: 401,
-	owner: 403,
-	otherCustomer: 403,
-	tailor: ok,
-	tailorOnboarding: ok,
-	admin: 403,
-	suspended: 401
-});
-
-const tailorPage = (ok: number): Expectations => ({
-	anonymous: signInRedirect,
-	owner: 403,
-	otherCustomer: 403,
-	tailor: ok,
-	tailorOnboarding: ok,
-	admin: 403,
-	suspended: suspendedRedirect
-});
-
-const everyone = (status: number): Expectations => ({
-	anonymous: status,
-	owner: status,
-	otherCustomer: status,
-	tailor: status,
-	tailorOnboarding: status,
-	admin: status,
-	suspended: status
-});
-
 // The factory places workrooms and commissions in Merrowgate's Old Quay.
 const merrowgate = '46.85,3.21';
 
@@ -58,13 +28,13 @@ export const searchRows: Row<Listed>[] = [
 		name: 'GET /api/v1/commissions (near me)',
 		arrange: openNearby,
 		send: (client) => client.json('GET', `/api/v1/commissions?near=${merrowgate}&radiusKm=5`),
-		expect: tailorsOnly(200)
+		expect: tailorApi(200)
 	},
 	{
 		name: 'GET /api/v1/commissions with a bad radius',
 		arrange: openNearby,
 		send: (client) => client.json('GET', `/api/v1/commissions?near=${merrowgate}&radiusKm=-3`),
-		expect: tailorsOnly(400)
+		expect: tailorApi(400)
 	},
 	{
 		name: 'GET /api/v1/tailors (near a point)',

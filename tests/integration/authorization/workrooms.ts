@@ -4,7 +4,7 @@
  */
 import { randomUUID } from 'node:crypto';
 import { createWorkroom } from '../../factories';
-import { signInRedirect, suspendedRedirect, type Expectations, type Row, type World } from './matrix';
+import { everyone, signInRedirect, suspendedRedirect, tailorApi, type Row, type World } from './matrix';
 
 type Workroom = { id: string; slug: string; secrets: string[] };
 
@@ -19,27 +19,6 @@ async function workroom({ db }: World, { onboarded = true } = {}): Promise<Workr
 	});
 	return { id: tailor.id, slug: tailor.slug, secrets: [String(exact.lat), String(exact.lng), String(hourlyRateMinor)] };
 }
-
-const everyone = (status: number): Expectations => ({
-	anonymous: status,
-	owner: status,
-	otherCustomer: status,
-	tailor: status,
-	tailorOnboarding: status,
-	admin: status,
-	suspended: status
-});
-
-/** The signed-in tailor's own workroom: tailors only, whether or not they have finished setting up. */
-const tailorsOwn = (ok: number): Expectations => ({
-	anonymous: 401,
-	owner: 403,
-	otherCustomer: 403,
-	tailor: ok,
-	tailorOnboarding: ok,
-	admin: 403,
-	suspended: 401
-});
 
 const replacement = () => ({
 	name: `Gull Yard ${randomUUID().slice(0, 8)}`,
@@ -57,13 +36,13 @@ export const workroomRows: Row<Workroom>[] = [
 		name: 'PUT /api/v1/workroom',
 		arrange: (world) => workroom(world),
 		send: (client) => client.json('PUT', '/api/v1/workroom', replacement()),
-		expect: tailorsOwn(200)
+		expect: tailorApi(200)
 	},
 	{
 		name: 'POST /api/v1/workroom/portfolio',
 		arrange: (world) => workroom(world),
 		send: (client) => client.json('POST', '/api/v1/workroom/portfolio', { caption: 'Linen trousers' }),
-		expect: tailorsOwn(201)
+		expect: tailorApi(201)
 	},
 	{
 		name: 'GET /api/v1/tailors/{id} (onboarded)',
@@ -87,12 +66,12 @@ export const workroomRows: Row<Workroom>[] = [
 		name: 'GET /workroom/setup/rates',
 		arrange: (world) => workroom(world),
 		send: (client) => client.get('/workroom/setup/rates'),
-		expect: { ...tailorsOwn(200), anonymous: signInRedirect, suspended: suspendedRedirect }
+		expect: { ...tailorApi(200), anonymous: signInRedirect, suspended: suspendedRedirect }
 	},
 	{
 		name: 'GET /workroom/portfolio',
 		arrange: (world) => workroom(world),
 		send: (client) => client.get('/workroom/portfolio'),
-		expect: { ...tailorsOwn(200), anonymous: signInRedirect, suspended: suspendedRedirect }
+		expect: { ...tailorApi(200), anonymous: signInRedirect, suspended: suspendedRedirect }
 	}
 ];

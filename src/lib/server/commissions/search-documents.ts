@@ -58,15 +58,8 @@ const documentColumns = {
 
 const listable = and(eq(commission.status, 'open'), isNotNull(commission.approxLat), isNotNull(commission.approxLng));
 
-type DocumentRow = {
-	id: string;
-	title: string;
-	styleNotes: string;
-	garment: string;
-	fabricSource: FabricSource;
-	budgetMinMinor: number | null;
-	budgetMaxMinor: number | null;
-	currency: string;
+/** A row as read by `documentColumns`: the document's plain fields, with the date, time and place unconverted. */
+type DocumentRow = Omit<CommissionSearchDocument, 'dateNeededDay' | 'publishedAtMs' | '_geo'> & {
 	dateNeeded: string | null;
 	publishedAt: Date | null;
 	lat: number | null;

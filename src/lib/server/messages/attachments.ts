@@ -2,7 +2,7 @@ import { eq } from 'drizzle-orm';
 import type { PhotoVariant } from '$lib/types/photos';
 import type { Executor } from '../db';
 import { message, messageAttachment } from '../db/schema';
-import { readPhoto } from '../photos';
+import { openVariant } from '../photos';
 import { sideOf, threadFacts } from './access';
 
 /**
@@ -23,8 +23,5 @@ export async function openAttachment(
 	if (!row) return null;
 	const facts = await threadFacts(db, row.threadId);
 	if (!facts || !sideOf(facts, viewer)) return null;
-	const key = variant === 'thumb' ? (row.thumbKey ?? row.key) : row.key;
-	const object = await readPhoto(key);
-	if (!object) return null;
-	return { ...object, etag: `"${key.split('/')[1]}-${variant}"` };
+	return openVariant(row, variant);
 }

@@ -15,7 +15,7 @@ export {
 } from './process';
 export { defaultUrlSeconds, deletePhoto, readPhoto, signedUrl, storePhoto, type PhotoKeys } from './store';
 export { PhotoRuleBroken, type PhotoRuleCode } from './errors';
-export { openForViewer } from './serving';
+export { openForViewer, openVariant, photoResponse, type OpenedPhoto } from './serving';
 export * as commissionPhotos from './commission-photos';
 export * as portfolio from './portfolio';
 export { storeUpload, type StoredPhoto, type Upload } from './stored';

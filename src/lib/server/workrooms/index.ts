@@ -1,9 +1,10 @@
-import { and, arrayContains, eq, isNotNull, isNull, like, or, sql, type SQL } from 'drizzle-orm';
+import { and, arrayContains, eq, like, or, sql, type SQL } from 'drizzle-orm';
 import type { GarmentId } from '$lib/drafting';
 import type { DirectoryEntry, OnboardingStatus, OwnWorkroom, PublicWorkroom, WorkroomRates } from '$lib/types/workroom';
 import * as audit from '../audit';
 import type { Executor } from '../db';
 import { tailorProfile, user, type NewTailorProfile } from '../db/schema';
+import { cardColumns, listed, reviewsOf, toCards } from './cards';
 import { resolveLocation, type WorkroomPlace } from './location';
 import { statusOf, type OnboardingFacts } from './onboarding';
 import { portfolio } from '../photos';
@@ -214,14 +215,7 @@ export async function canQuote(db: Executor, { tailorId }: { tailorId: string })
 	return (await onboardingStatus(db, { tailorId })).complete;
 }
 
-/** Workrooms anyone may see: onboarded, and their tailor not suspended. */
-const listed = and(isNotNull(tailorProfile.onboardedAt), isNull(user.suspendedAt), eq(user.role, 'tailor'));
-
 const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-
-function reviewsOf(row: { ratingCount: number; ratingAverageHundredths: number }) {
-	return { count: row.ratingCount, averageHundredths: row.ratingCount > 0 ? row.ratingAverageHundredths : null };
-}
 
 /** The public view of an onboarded workroom by slug or tailor id: its town, never its coordinates. */
 export async function getPublic(db: Executor, { slugOrId }: { slugOrId: string }): Promise<PublicWorkroom | null> {
@@ -289,34 +283,15 @@ export async function listDirectory(
 		);
 	}
 	const rows = await db
-		.select({
-			id: tailorProfile.userId,
-			slug: tailorProfile.slug,
-			name: tailorProfile.shopName,
-			town: tailorProfile.city,
-			district: tailorProfile.district,
-			specialties: tailorProfile.specialties,
-			acceptingWork: tailorProfile.acceptingWork,
-			ratingCount: tailorProfile.ratingCount,
-			ratingAverageHundredths: tailorProfile.ratingAverageHundredths
-		})
+		.select({ ...cardColumns, acceptingWork: tailorProfile.acceptingWork })
 		.from(tailorProfile)
 		.innerJoin(user, eq(user.id, tailorProfile.userId))
 		.where(and(...filters))
 		.orderBy(sql`lower(${tailorProfile.shopName})`, tailorProfile.userId)
 		.limit(limit + 1);
 	const page = rows.slice(0, limit);
-	const covers = await portfolio.coverPhotoIds(
-		db,
-		page.map((row) => row.id)
-	);
 	return {
-		items: page.map(({ ratingCount, ratingAverageHundredths, ...row }) => ({
-			...row,
-			specialties: row.specialties as GarmentId[],
-			coverPhotoId: covers.get(row.id) ?? null,
-			reviews: reviewsOf({ ratingCount, ratingAverageHundredths })
-		})),
+		items: await toCards(db, page),
 		next: rows.length > limit ? (page.at(-1)?.slug ?? null) : null
 	};
 }

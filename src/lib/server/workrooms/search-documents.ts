@@ -1,10 +1,10 @@
-import { and, asc, eq, gt, inArray, isNotNull, isNull, sql, type SQL } from 'drizzle-orm';
+import { and, asc, eq, gt, inArray, sql, type SQL } from 'drizzle-orm';
 import type { GarmentId } from '$lib/drafting';
 import { boundingBox } from '$lib/geo/distance';
 import type { LatLng } from '$lib/geo/coarsen';
 import type { Executor } from '../db';
 import { tailorProfile, user } from '../db/schema';
-import { portfolio } from '../photos';
+import { cardColumns, findable, toCards } from './cards';
 
 /** What the search index holds for a workroom taking work: name, words, specialties and its coarse point. */
 export type WorkroomSearchDocument = {
@@ -17,14 +17,6 @@ export type WorkroomSearchDocument = {
 };
 
 export type NearbyWorkroomFilters = { specialty?: GarmentId; q?: string };
-
-/** Onboarded, taking work, and their tailor not suspended: the workrooms a customer may find. */
-const findable = and(
-	isNotNull(tailorProfile.onboardedAt),
-	eq(tailorProfile.acceptingWork, true),
-	isNull(user.suspendedAt),
-	eq(user.role, 'tailor')
-);
 
 const documentColumns = {
 	id: tailorProfile.userId,
@@ -147,33 +139,9 @@ export type WorkroomCard = {
 export async function cardsByIds(db: Executor, ids: string[]): Promise<Map<string, WorkroomCard>> {
 	if (ids.length === 0) return new Map();
 	const rows = await db
-		.select({
-			id: tailorProfile.userId,
-			slug: tailorProfile.slug,
-			name: tailorProfile.shopName,
-			town: tailorProfile.city,
-			district: tailorProfile.district,
-			specialties: tailorProfile.specialties,
-			serviceRadiusKm: tailorProfile.serviceRadiusKm,
-			ratingCount: tailorProfile.ratingCount,
-			ratingAverageHundredths: tailorProfile.ratingAverageHundredths
-		})
+		.select({ ...cardColumns, serviceRadiusKm: tailorProfile.serviceRadiusKm })
 		.from(tailorProfile)
 		.innerJoin(user, eq(user.id, tailorProfile.userId))
 		.where(and(findable, inArray(tailorProfile.userId, ids)));
-	const covers = await portfolio.coverPhotoIds(
-		db,
-		rows.map((row) => row.id)
-	);
-	return new Map(
-		rows.map(({ ratingCount, ratingAverageHundredths, specialties, ...row }) => [
-			row.id,
-			{
-				...row,
-				specialties: specialties as GarmentId[],
-				coverPhotoId: covers.get(row.id) ?? null,
-				reviews: { count: ratingCount, averageHundredths: ratingCount > 0 ? ratingAverageHundredths : null }
-			}
-		])
-	);
+	return new Map((await toCards(db, rows)).map((card) => [card.id, card]));
 }

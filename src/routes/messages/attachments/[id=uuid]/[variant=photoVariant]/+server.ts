@@ -1,6 +1,7 @@
 import { error } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/auth/guard';
 import * as messages from '$lib/server/messages';
+import { photoResponse } from '$lib/server/photos';
 import type { RequestHandler } from './$types';
 
 const notFound = { message: 'There is no such photo.', code: 'not_found' };
@@ -14,15 +15,5 @@ export const GET: RequestHandler = async ({ params, locals, request }) => {
 		viewer
 	});
 	if (!photo) error(404, notFound);
-	const headers = {
-		'content-type': 'image/webp',
-		'cache-control': 'private, max-age=600',
-		etag: photo.etag,
-		vary: 'cookie'
-	};
-	if (request.headers.get('if-none-match') === photo.etag) {
-		await photo.body.cancel();
-		return new Response(null, { status: 304, headers });
-	}
-	return new Response(photo.body, { headers: { ...headers, 'content-length': String(photo.size) } });
+	return photoResponse(photo, request);
 };
