@@ -11,7 +11,7 @@ export async function signInWithPassword(page: Page, email: string, password: st
 	await form.getByLabel('Password').fill(password);
 	await form.getByRole('button', { name: 'Sign in' }).click();
 	// Checking the password hash takes a moment on a busy machine.
-	await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'), { timeout: 30_000 });
+	await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'), { timeout: 30_000, waitUntil: 'commit' });
 }
 
 /** The path of the newest confirmation link mailed to `email`, read from the mail stand-in's API. */

@@ -55,7 +55,10 @@ for (const width of [390, 1280]) {
 		await expect(photos.first()).toContainText('80 × 120 px');
 
 		await page.getByLabel('Describe photo 1').fill('Sketch of the neckline');
+		// Reload only once the description is stored (a reload would otherwise cut the request short).
+		const saved = page.waitForResponse((r) => r.request().method() === 'POST' && r.url().includes('/altText'));
 		await photos.first().getByRole('button', { name: 'Save' }).click();
+		expect((await saved).ok()).toBe(true);
 		await page.reload();
 		await expect(page.getByLabel('Describe photo 1')).toHaveValue('Sketch of the neckline');
 		await expect(photos.first().getByRole('img', { name: 'Sketch of the neckline' })).toBeVisible();
