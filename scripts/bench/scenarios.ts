@@ -38,8 +38,8 @@ export const scenarios: Scenario[] = [
 	{ name: 'POST /api/v1/drafts', target: 'app', path: '/api/v1/drafts', method: 'POST', body: trousersDraft },
 	{ name: 'unknown /api/v1 path (404)', target: 'app', path: '/api/v1/no-such-thing', status: 404 },
 	{ name: 'customer: commissions page', target: 'app', path: '/commissions', as: 'customer' },
-	{ name: 'tailor: workroom browse page', target: 'app', path: '/workroom', as: 'tailor' },
-	{ name: 'search API', target: 'app', path: '/api/v1/search?q=linen', optional: true }
+	{ name: 'tailor: workroom home (near you)', target: 'app', path: '/workroom', as: 'tailor' },
+	{ name: 'tailor: search API', target: 'app', path: '/api/v1/commissions?q=linen', as: 'tailor' }
 ];
 
 /** Demo accounts from scripts/demo/people.ts. */
