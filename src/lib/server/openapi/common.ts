@@ -90,3 +90,21 @@ export function access(
 			: `Needs a signed-in session; ${who.map((r) => roleNames[r]).join(' and ')} only.`;
 	return { security: sessionSecurity, description: `${sentence} ${description}` };
 }
+
+/** A photo upload: one image as the multipart field `file`, with optional alt text. */
+export function photoUpload(altTextDescription: string) {
+	return {
+		required: true,
+		content: {
+			'multipart/form-data': {
+				schema: z.object({
+					file: z.string().meta({
+						description: 'The image (JPEG, PNG or WebP; up to 15 MB). Its content decides, never its name.',
+						override: { type: 'string', contentMediaType: 'application/octet-stream' }
+					}),
+					altText: z.string().optional().meta({ description: altTextDescription })
+				})
+			}
+		}
+	};
+}

@@ -1,9 +1,8 @@
-import { z } from 'zod';
 import { altTextBody, orderBody } from '../../photos/api';
 import { apiCreate, apiPatch } from '../../commissions/schemas';
 import { commissionResponse } from '../../commissions/response-schemas';
 import { photoListResponse, photoResponse } from '../../photos/response-schemas';
-import { access, errors, jsonBody, jsonRequest, uuidPath, type Paths } from '../common';
+import { access, errors, jsonBody, jsonRequest, uuidPath, type Paths, photoUpload } from '../common';
 import type { Area } from '../registry';
 
 const tags = ['Commissions'];
@@ -11,20 +10,7 @@ const id = uuidPath('id');
 const photo = uuidPath('id', 'photoId');
 const answer = jsonBody(commissionResponse, 'The commission as the caller may see it.');
 
-const upload = {
-	required: true,
-	content: {
-		'multipart/form-data': {
-			schema: z.object({
-				file: z.string().meta({
-					description: 'The image (JPEG, PNG or WebP; up to 15 MB). Its content decides, never its name.',
-					override: { type: 'string', contentMediaType: 'application/octet-stream' }
-				}),
-				altText: z.string().optional().meta({ description: 'What the photo shows, for people who cannot see it.' })
-			})
-		}
-	}
-};
+const upload = photoUpload('What the photo shows, for people who cannot see it.');
 
 const paths: Paths = {
 	'/api/v1/commissions': {

@@ -1,4 +1,3 @@
-import { z } from 'zod';
 import { altTextBody, orderBody, portfolioItemBody } from '../../photos/api';
 import {
 	photoResponse,
@@ -8,7 +7,7 @@ import {
 } from '../../photos/response-schemas';
 import { workroomReplace } from '../../workrooms/schemas';
 import { publicWorkroomResponse, workroomAnswer } from '../../workrooms/response-schemas';
-import { access, errors, jsonBody, jsonRequest, uuidPath, type Paths } from '../common';
+import { access, errors, jsonBody, jsonRequest, uuidPath, type Paths, photoUpload } from '../common';
 import type { Area } from '../registry';
 
 const tags = ['Workrooms'];
@@ -16,20 +15,7 @@ const tailorOnly = (description: string) => access(['tailor'], description);
 const item = uuidPath('itemId');
 const itemPhoto = uuidPath('itemId', 'photoId');
 
-const upload = {
-	required: true,
-	content: {
-		'multipart/form-data': {
-			schema: z.object({
-				file: z.string().meta({
-					description: 'The image (JPEG, PNG or WebP; up to 15 MB). Its content decides, never its name.',
-					override: { type: 'string', contentMediaType: 'application/octet-stream' }
-				}),
-				altText: z.string().optional().meta({ description: 'What the photo shows.' })
-			})
-		}
-	}
-};
+const upload = photoUpload('What the photo shows.');
 
 const paths: Paths = {
 	'/api/v1/workroom': {
