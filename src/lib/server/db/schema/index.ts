@@ -12,3 +12,4 @@ export * from './reviews';
 export * from './audit';
 export * from './places';
 export * from './search';
+export * from './notifications';

@@ -6,6 +6,8 @@ import { commission } from './commissions';
 import { quote } from './quotes';
 import { tailorProfile } from './tailors';
 
+export const deliveryMethod = pgEnum('delivery_method', ['pickup', 'courier']);
+
 export const orderStatus = pgEnum('order_status', [
 	'awaiting_payment',
 	'funded',
@@ -55,6 +57,25 @@ export const order = pgTable(
 		deliveredAt: instant('delivered_at'),
 		releasedAt: instant('released_at'),
 		autoReleaseAt: instant('auto_release_at'),
+		/** The materials advance agreed in the quote (0 when none): at most 30 % of the price. */
+		advanceMinor: integer('advance_minor').notNull().default(0),
+		/** When the customer approved the fabric the tailor showed, which releases the advance. */
+		fabricApprovedAt: instant('fabric_approved_at'),
+		workStartedAt: instant('work_started_at'),
+		readyAt: instant('ready_at'),
+		deliveryMethod: deliveryMethod('delivery_method'),
+		/** The courier's tracking reference, when sent by courier. */
+		trackingReference: text('tracking_reference'),
+		deliveryNote: text('delivery_note').notNull().default(''),
+		/** An open alteration request pauses the automatic release until the tailor delivers again. */
+		alterationRequestedAt: instant('alteration_requested_at'),
+		alterationNote: text('alteration_note').notNull().default(''),
+		/** When release was asked for (confirmation or the automatic clock); the transfer may still be retrying. */
+		releaseRequestedAt: instant('release_requested_at'),
+		/** When a refund was asked for (cancellation after payment); the refund may still be retrying. */
+		refundRequestedAt: instant('refund_requested_at'),
+		cancelledAt: instant('cancelled_at'),
+		cancelReason: text('cancel_reason').notNull().default(''),
 		createdAt: createdAt(),
 		updatedAt: updatedAt()
 	},
@@ -68,10 +89,19 @@ export const order = pgTable(
 		check('order_price_positive', sql`${t.priceMinor} > 0`),
 		check('order_fee_nonnegative', sql`${t.platformFeeMinor} >= 0`),
 		check('order_payout_nonnegative', sql`${t.tailorPayoutMinor} >= 0`),
-		check('order_split_adds_up', sql`${t.platformFeeMinor} + ${t.tailorPayoutMinor} = ${t.priceMinor}`)
+		check('order_split_adds_up', sql`${t.platformFeeMinor} + ${t.tailorPayoutMinor} = ${t.priceMinor}`),
+		check(
+			'order_advance_within_limit',
+			sql`${t.advanceMinor} >= 0 and ${t.advanceMinor}::bigint * 10 <= ${t.priceMinor}::bigint * 3 and ${t.advanceMinor} <= ${t.tailorPayoutMinor}`
+		),
+		check(
+			'order_courier_tracked',
+			sql`${t.deliveryMethod} is distinct from 'courier' or ${t.trackingReference} is not null`
+		)
 	]
 );
 export type Order = typeof order.$inferSelect;
+export type DeliveryMethod = (typeof deliveryMethod.enumValues)[number];
 export type NewOrder = typeof order.$inferInsert;
 export type OrderStatus = (typeof orderStatus.enumValues)[number];
 
@@ -96,6 +126,11 @@ export const progressStep = pgTable(
 		kind: progressStepKind('kind').notNull(),
 		note: text('note').notNull().default(''),
 		photoKey: text('photo_key'),
+		photoThumbKey: text('photo_thumb_key'),
+		photoWidth: integer('photo_width'),
+		photoHeight: integer('photo_height'),
+		photoAlt: text('photo_alt').notNull().default(''),
+		postedById: uuid('posted_by_id').references(() => user.id, { onDelete: 'set null' }),
 		recordedAt: instant('recorded_at').notNull().defaultNow()
 	},
 	(t) => [index('progress_step_order_idx').on(t.orderId, t.recordedAt)]
@@ -121,10 +156,20 @@ export const fitting = pgTable(
 		address: text('address').notNull().default(''),
 		status: fittingStatus('status').notNull().default('proposed'),
 		notes: text('notes').notNull().default(''),
+		/** The IANA zone the slot was offered in (the workroom's); each person sees it in their own zone. */
+		timeZone: text('time_zone').notNull().default('UTC'),
+		bookedAt: instant('booked_at'),
+		/** When the day-before reminder went out, so it goes once. */
+		remindedAt: instant('reminded_at'),
+		cancelledById: uuid('cancelled_by_id').references(() => user.id, { onDelete: 'set null' }),
+		cancelReason: text('cancel_reason').notNull().default(''),
 		createdAt: createdAt(),
 		updatedAt: updatedAt()
 	},
 	(t) => [
+		index('fitting_reminder_due_idx')
+			.on(t.startsAt)
+			.where(sql`${t.status} = 'confirmed' and ${t.remindedAt} is null`),
 		index('fitting_order_idx').on(t.orderId, t.startsAt),
 		check('fitting_ends_after_start', sql`${t.endsAt} > ${t.startsAt}`)
 	]

@@ -35,6 +35,8 @@ export const quote = pgTable(
 		fabricIncluded: boolean('fabric_included').notNull(),
 		message: text('message').notNull().default(''),
 		validUntil: instant('valid_until').notNull(),
+		/** An advance for materials, released when the customer approves the fabric; only when the tailor sources it. */
+		advanceMinor: integer('advance_minor').notNull().default(0),
 		status: quoteStatus('status').notNull().default('sent'),
 		/** When it left `sent`: accepted, declined, withdrawn or lapsed. */
 		decidedAt: instant('decided_at'),
@@ -56,7 +58,11 @@ export const quote = pgTable(
 			.where(sql`${t.status} = 'sent'`),
 		check('quote_currency_iso', sql`${t.currency} ~ '^[A-Z]{3}$'`),
 		check('quote_price_positive', sql`${t.priceMinor} > 0`),
-		check('quote_fittings_nonnegative', sql`${t.fittingsIncluded} >= 0`)
+		check('quote_fittings_nonnegative', sql`${t.fittingsIncluded} >= 0`),
+		check(
+			'quote_advance_within_limit',
+			sql`${t.advanceMinor} >= 0 and ${t.advanceMinor}::bigint * 10 <= ${t.priceMinor}::bigint * 3 and (${t.advanceMinor} = 0 or ${t.fabricIncluded})`
+		)
 	]
 );
 export type Quote = typeof quote.$inferSelect;
