@@ -5,7 +5,7 @@ import { noteRelayAnswered, noteRelayFailed } from './relay';
 import type { Mail } from './types';
 
 export { relayStatus, type RelayStatus } from './relay';
-export type { Mail } from './types';
+export type { Mail, MailAttachment } from './types';
 export { discardDeadLetter, listDeadLetters, resendDeadLetter, type DeadLetter } from './dead-letters';
 
 /**
@@ -19,7 +19,14 @@ export async function queue(db: Executor, mail: Mail) {
 /** The mail queue's worker: one attempt at the relay. A throw is retried with back-off, then dead-lettered. */
 export async function deliver(mail: Mail) {
 	try {
-		await mailer().sendMail({ from: mailFrom(), to: mail.to, subject: mail.subject, text: mail.text, html: mail.html });
+		await mailer().sendMail({
+			from: mailFrom(),
+			to: mail.to,
+			subject: mail.subject,
+			text: mail.text,
+			html: mail.html,
+			attachments: mail.attachments
+		});
 	} catch (error) {
 		noteRelayFailed(error);
 		throw error;

@@ -3,6 +3,7 @@ import { publicOrigin } from '../auth/origin';
 import type { Executor } from '../db';
 import { notification, type NotificationEvent } from '../db/schema';
 import * as mail from '../mail';
+import type { MailAttachment } from '../mail';
 
 export type { NotificationEvent } from '../db/schema';
 
@@ -16,6 +17,8 @@ export type Notice = {
 	body: string;
 	/** A path inside Tackline (`/orders/…`). */
 	href: string;
+	/** Files for the mail only (a fitting's `.ics`). */
+	attachments?: MailAttachment[];
 };
 
 /**
@@ -36,6 +39,7 @@ export async function notify(tx: Executor, notice: Notice): Promise<void> {
 	await mail.queue(tx, {
 		to: person.email,
 		subject: notice.title,
-		text: `Hello${person.name ? ` ${person.name}` : ''},\n\n${notice.body}\n\n${link}\n\n— Tackline`
+		text: `Hello${person.name ? ` ${person.name}` : ''},\n\n${notice.body}\n\n${link}\n\n— Tackline`,
+		attachments: notice.attachments
 	});
 }
