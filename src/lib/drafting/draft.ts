@@ -1,5 +1,5 @@
 import { checkMeasurements, isChildBody, type Finding } from './checks';
-import { defaultFabricSpec, estimateFabric, type FabricSpec } from './fabric';
+import { defaultFabricSpec, estimateFabric, type FabricSpec, type LiningLayout } from './fabric';
 import { boundingBox } from './geometry';
 import { nestFabricEstimate, type NestBudget } from './marker/index';
 import type { GarmentId, MeasurementCode, Measurements } from './measurements';
@@ -46,6 +46,25 @@ export interface FabricOut {
 	roundingAdded: number;
 	notes: string[];
 	/** The real outlines were nested on the cloth (else their boxes were packed). */
+	nested: boolean;
+	/** A lined garment's lining, laid apart on lining as wide as the cloth; null when unlined. */
+	lining: LiningOut | null;
+}
+
+/** The lining's own layout: what to buy and the picture, like the cloth's. */
+export interface LiningOut {
+	/** The lining's pieces, in words. */
+	pieces: string;
+	/** False when a lining piece is wider than the lining (then there is no layout). */
+	fits: boolean;
+	width: number;
+	folded: boolean;
+	length: number;
+	lengthRounded: number;
+	buyUnit: BuyUnit;
+	lengthDisplay: string;
+	efficiency: number;
+	svg: string;
 	nested: boolean;
 }
 
@@ -109,6 +128,23 @@ function pieceOut(piece: DraftPiece, unit: Unit): PieceOut {
 	};
 }
 
+function liningOut(lining: LiningLayout, widthMm: number, unit: Unit): LiningOut {
+	const e = lining.estimate;
+	return {
+		pieces: lining.names,
+		fits: e !== null,
+		width: toUnitValue(widthMm, unit),
+		folded: e?.folded ?? false,
+		length: e ? toUnitValue(e.lengthMm, unit) : 0,
+		lengthRounded: e?.rounded.value ?? 0,
+		buyUnit: e?.rounded.buyUnit ?? (unit === 'in' ? 'yd' : 'm'),
+		lengthDisplay: e?.rounded.display ?? '',
+		efficiency: e ? Math.round(e.efficiency * 1000) / 1000 : 0,
+		svg: e ? layoutSvg(e, unit, 'lining') : '',
+		nested: Boolean(e?.nested)
+	};
+}
+
 /** The drafting core: checks, options, template, fabric layout and size band, all from millimetres. */
 export function draftGarmentMm(input: DraftInputMm): DraftResponse {
 	return draftWithPieces(input).response;
@@ -155,7 +191,8 @@ export function draftWithPieces(input: DraftInputMm): { response: DraftResponse;
 		shrinkagePercent: estimate.shrinkagePercent,
 		roundingAdded: toUnitValue(estimate.rounded.mm - estimate.lengthMm, unit),
 		notes: estimate.notes,
-		nested: Boolean(estimate.nested)
+		nested: Boolean(estimate.nested),
+		lining: estimate.lining ? liningOut(estimate.lining, estimate.widthMm, unit) : null
 	};
 	const response: DraftResponse = {
 		...base,

@@ -62,7 +62,31 @@ export interface FabricEstimate {
 	notes: string[];
 	/** Set when the pieces' real outlines were nested (see marker/): what the boxes alone would take. */
 	nested?: { boxLengthMm: number; areaBoundMm: number };
+	/** The pieces cut in lining, laid apart on their own cloth (absent for an unlined garment). */
+	lining?: LiningLayout;
 }
+
+/** A lined garment's lining: its pieces laid on lining as wide as the cloth, plain (any way up end for end). */
+export interface LiningLayout {
+	/** The lining pieces' names, lower case, for the note. */
+	names: string;
+	unit: Unit;
+	/** Null when a lining piece is wider than the lining. */
+	estimate: FabricEstimate | null;
+}
+
+/** The lining's own cloth: as wide as the garment cloth, no nap or repeat (a lining has neither). */
+export const liningSpecOf = (spec: FabricSpec): FabricSpec => ({ ...spec, directional: false, repeatMm: 0 });
+
+/** The note beside the layout giving the lining's length to buy. */
+export function liningNote(lining: LiningLayout, widthMm: number): string {
+	const width = formatLength(widthMm, lining.unit, { withUnit: true });
+	return lining.estimate
+		? `Lining (${lining.names}): ${lining.estimate.rounded.display} of ${width} lining, laid apart from the cloth; see the lining layout.`
+		: `Lining (${lining.names}): too wide for ${width} lining; choose a wider lining.`;
+}
+
+export const isLiningNote = (note: string) => note.startsWith('Lining (');
 
 interface LayItem {
 	piece: DraftPiece;
@@ -186,14 +210,15 @@ export function estimateFabric(
 		spec,
 		unit
 	);
-	const laid = estimateCloth(lining, { ...spec, directional: false, repeatMm: 0 }, unit);
-	const names = lining.map((p) => p.label.toLowerCase()).join(', ');
-	const width = formatLength(spec.widthMm, unit, { withUnit: true });
-	const note = laid.estimate
-		? `Lining (${names}): ${laid.estimate.rounded.display} of ${width} lining, laid apart from the cloth; not in the layout above.`
-		: `Lining (${names}): too wide for ${width} lining; choose a wider lining.`;
+	const laid = estimateCloth(lining, liningSpecOf(spec), unit);
+	const layout: LiningLayout = {
+		names: lining.map((p) => p.label.toLowerCase()).join(', '),
+		unit,
+		estimate: laid.estimate
+	};
+	const note = liningNote(layout, spec.widthMm);
 	return {
-		estimate: main.estimate && { ...main.estimate, notes: [...main.estimate.notes, note] },
+		estimate: main.estimate && { ...main.estimate, notes: [...main.estimate.notes, note], lining: layout },
 		warnings: [...main.warnings, ...laid.warnings.map((w) => ({ ...w, message: `Lining: ${w.message}` }))]
 	};
 }

@@ -55,6 +55,14 @@ export type FabricCost =
 	| { supply: 'customer' }
 	| { supply: 'tailor'; pricePerUnitMinor: number; per: 'yd' | 'm'; length: number; lengthUnit?: 'yd' | 'm' };
 
+/** Lining cloth the tailor buys for a lined garment: its own length (from the lining marker) and price. */
+export interface LiningCost {
+	pricePerUnitMinor: number;
+	per: 'yd' | 'm';
+	length: number;
+	lengthUnit?: 'yd' | 'm';
+}
+
 export interface PricedItem {
 	label: string;
 	amountMinor: number;
@@ -63,6 +71,8 @@ export interface PricedItem {
 export interface QuoteInput {
 	currency: string;
 	fabric: FabricCost;
+	/** Only for a lined garment; an unlined one has no lining line. */
+	lining?: LiningCost;
 	labourHours: number;
 	hourlyRateMinor: number;
 	notions?: PricedItem[];
@@ -86,24 +96,30 @@ export interface QuoteEstimate {
 
 const metresPerYardThousandths = 914.4;
 
-function fabricLine(fabric: FabricCost): QuoteLine {
-	if (fabric.supply === 'customer') return { id: 'fabric', label: 'Fabric (customer supplies)', amountMinor: 0 };
-	const from = fabric.lengthUnit ?? fabric.per;
+/** Length × price per unit, the length first converted to the price's unit (to thousandths). */
+function clothLine(id: string, name: string, cloth: LiningCost): QuoteLine {
+	const from = cloth.lengthUnit ?? cloth.per;
 	// Lengths to thousandths of the price unit: 1 yd = 0.9144 m exactly.
 	const thousandths =
-		from === fabric.per
-			? Math.round(fabric.length * 1000)
+		from === cloth.per
+			? Math.round(cloth.length * 1000)
 			: from === 'yd'
-				? Math.round(fabric.length * metresPerYardThousandths)
-				: Math.round((fabric.length * 1000 * 1000) / metresPerYardThousandths);
-	const amountMinor = mulDivRound(fabric.pricePerUnitMinor, thousandths, 1000);
-	return { id: 'fabric', label: `Fabric, ${thousandths / 1000} ${fabric.per}`, amountMinor };
+				? Math.round(cloth.length * metresPerYardThousandths)
+				: Math.round((cloth.length * 1000 * 1000) / metresPerYardThousandths);
+	const amountMinor = mulDivRound(cloth.pricePerUnitMinor, thousandths, 1000);
+	return { id, label: `${name}, ${thousandths / 1000} ${cloth.per}`, amountMinor };
+}
+
+function fabricLine(fabric: FabricCost): QuoteLine {
+	if (fabric.supply === 'customer') return { id: 'fabric', label: 'Fabric (customer supplies)', amountMinor: 0 };
+	return clothLine('fabric', 'Fabric', fabric);
 }
 
 export function estimateQuote(input: QuoteInput): QuoteEstimate {
 	const hundredths = Math.round(input.labourHours * 100);
 	const lines: QuoteLine[] = [
 		fabricLine(input.fabric),
+		...(input.lining ? [clothLine('lining', 'Lining', input.lining)] : []),
 		{
 			id: 'labour',
 			label: `Labour, ${hundredths / 100} h`,

@@ -96,7 +96,23 @@ export const draftResponseSchema = z
 				shrinkagePercent: z.number(),
 				roundingAdded: z.number(),
 				notes: z.array(z.string()),
-				nested: z.boolean()
+				nested: z.boolean(),
+				lining: z
+					.object({
+						pieces: z.string().meta({ description: 'The pieces cut in lining, in words.' }),
+						fits: z.boolean().meta({ description: 'False when a lining piece is wider than the lining.' }),
+						width: z.number(),
+						folded: z.boolean(),
+						length: z.number(),
+						lengthRounded: z.number(),
+						buyUnit: z.enum(['yd', 'm']),
+						lengthDisplay: z.string(),
+						efficiency: z.number(),
+						svg: z.string(),
+						nested: z.boolean()
+					})
+					.nullable()
+					.meta({ description: 'A lined garment’s lining, laid apart on lining as wide as the cloth; null when unlined.' })
 			})
 			.nullable(),
 		sizeBand: sizeBandSchema.nullable(),

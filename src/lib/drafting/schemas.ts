@@ -157,6 +157,16 @@ export const quoteRequestSchema = z
 				})
 				.strict()
 		]),
+		lining: z
+			.object({
+				pricePerUnitMinor: minor,
+				per: z.enum(['yd', 'm']),
+				length: z.number().positive().max(100),
+				lengthUnit: z.enum(['yd', 'm']).optional()
+			})
+			.strict()
+			.optional()
+			.meta({ description: 'Lining cloth for a lined garment: the lining layout’s length and its price.' }),
 		labourHours: z.number().min(0).max(1000).optional(),
 		hourlyRateMinor: minor,
 		notions: z.array(pricedItem).max(50).default([]),

@@ -278,7 +278,7 @@ function nestedPlacement(p: FabricEstimate['placements'][number], size: number):
 }
 
 /** The cloth with every piece placed, fold on the left when folded, length marks every yard or metre. */
-export function layoutSvg(estimate: FabricEstimate, unit: Unit): string {
+export function layoutSvg(estimate: FabricEstimate, unit: Unit, cloth: 'cloth' | 'lining' = 'cloth'): string {
 	const width = estimate.layWidthMm;
 	const length = estimate.packedMm;
 	const size = Math.max(width, length) / 40;
@@ -317,7 +317,7 @@ export function layoutSvg(estimate: FabricEstimate, unit: Unit): string {
 				text({ x: width + size * 0.9, y: length / 2 }, 'selvedges', size * 0.8, { rotate: 90, colour: '#5d6170' })
 			]
 		: [text({ x: -size * 0.9, y: length / 2 }, 'selvedge', size * 0.8, { rotate: -90, colour: '#5d6170' })];
-	const title = `Layout on ${formatLength(estimate.widthMm, unit, { withUnit: true })} cloth${estimate.folded ? ', folded' : ''}: ${estimate.rounded.display}`;
+	const title = `${cloth === 'lining' ? 'Lining layout' : 'Layout'} on ${formatLength(estimate.widthMm, unit, { withUnit: true })} ${cloth}${estimate.folded ? ', folded' : ''}: ${estimate.rounded.display}`;
 	return [
 		`<svg xmlns="http://www.w3.org/2000/svg" viewBox="${n(-margin)} ${n(-size)} ${n(width + 2 * margin + size * 2)} ${n(length + size * 3)}" role="img" font-family="Poppins, ui-sans-serif, sans-serif">`,
 		`<title>${escapeXml(title)}</title>`,

@@ -13,8 +13,13 @@ export type WorkingInput = {
 	fabricPricePerMetreMinor: number;
 	labourHours: number;
 	hourlyRateMinor: number;
-	/** Whole percent added to the fabric's cost when the workroom sources it. */
+	/** Whole percent added to the cost of the cloth the workroom buys (the fabric when it sources it, the lining). */
 	markupPercent: number;
+	/**
+	 * A lined garment's lining, from the lining layout: the workroom buys it (a trimming, whoever brings the
+	 * fabric). Left out for an unlined garment, which then has no lining line.
+	 */
+	lining?: { metres: number; pricePerMetreMinor: number };
 };
 
 export type WorkingLine = QuoteLine & { detail: string };
@@ -48,30 +53,47 @@ export function quoteWorking(input: WorkingInput): Working {
 	const rate = Math.round(clean(input.hourlyRateMinor));
 	const markup = Math.round(clean(input.markupPercent));
 	const sourced = input.tailorSourcesFabric;
+	const lining = input.lining && {
+		metres: clean(input.lining.metres),
+		perMetre: Math.round(clean(input.lining.pricePerMetreMinor))
+	};
 	const base = estimateQuote({
 		currency: input.currency,
 		fabric: sourced
 			? { supply: 'tailor', pricePerUnitMinor: perMetre, per: 'm', length: metres }
 			: { supply: 'customer' },
+		...(lining ? { lining: { pricePerUnitMinor: lining.perMetre, per: 'm' as const, length: lining.metres } } : {}),
 		labourHours: hours,
 		hourlyRateMinor: rate
 	});
 	const fabric = base.lines.find((line) => line.id === 'fabric')!;
+	const liningLine = base.lines.find((line) => line.id === 'lining');
 	const labour = base.lines.find((line) => line.id === 'labour')!;
-	const markupMinor = sourced ? percentOf(fabric.amountMinor, markup) : 0;
+	const bought = (sourced ? fabric.amountMinor : 0) + (liningLine?.amountMinor ?? 0);
+	const markupMinor = sourced || liningLine ? percentOf(bought, markup) : 0;
+	const markupOf = [sourced ? 'fabric' : '', liningLine ? 'lining' : ''].filter(Boolean).join(' and ');
 	const lines: WorkingLine[] = [
 		{
 			...fabric,
 			label: sourced ? 'Fabric' : 'Fabric (the customer brings it)',
 			detail: sourced ? `${metres} m × ${money(perMetre, input.currency)}` : 'Not charged'
 		},
-		...(sourced
+		...(liningLine && lining
+			? [
+					{
+						...liningLine,
+						label: 'Lining',
+						detail: `${lining.metres} m × ${money(lining.perMetre, input.currency)}`
+					}
+				]
+			: []),
+		...(sourced || liningLine
 			? [
 					{
 						id: 'markup',
-						label: 'Mark-up on fabric',
+						label: `Mark-up on ${markupOf}`,
 						amountMinor: markupMinor,
-						detail: `${markup} % of ${money(fabric.amountMinor, input.currency)}`
+						detail: `${markup} % of ${money(bought, input.currency)}`
 					}
 				]
 			: []),

@@ -1,5 +1,12 @@
-import type { FabricEstimate, FabricPlacement, FabricSpec } from '../fabric';
-import { boundingBox, mirrorX, translate, type Point } from '../geometry';
+import {
+	isLiningNote,
+	liningNote,
+	liningSpecOf,
+	type FabricEstimate,
+	type FabricPlacement,
+	type FabricSpec
+} from '../fabric';
+import { boundingBox, translate, type Point } from '../geometry';
 import type { DraftPiece } from '../pieces';
 import { formatFabricLength, roundUpFabric } from '../units';
 import { nestMarker, type MarkerItem } from './nest';
@@ -15,20 +22,38 @@ export interface NestBudget {
 /** What the draft API allows the marker, well inside the compute pool's 5 s. */
 export const draftNestBudget: NestBudget = { budgetMs: 2000 };
 
-/** A cut-on-fold piece opened out about its fold edge (the outline's least x). */
-function openedOut(outline: readonly Point[]): Point[] {
-	const fold = boundingBox(outline).x;
-	const whole = union([toPath(outline), toPath(mirrorX(outline, fold))]);
+/** The outline of a placement as the boxes laid it, corner at the origin: two halves joined when opened out. */
+function laidOutline(p: FabricPlacement): Point[] {
+	if (!p.unfolded) return [...p.shapes[0]];
+	const whole = union(p.shapes.map((s) => toPath(s)));
 	return toPoints(whole.reduce((a, b) => (b.length > a.length ? b : a)));
 }
 
-const quarterTurned = (outline: readonly Point[], p: FabricPlacement): Point[] => {
-	const box = boundingBox(outline);
-	const turned = Math.abs(p.w - box.height) < 1e-6 && Math.abs(p.h - box.width) < 1e-6 && box.width !== box.height;
-	return turned ? outline.map((q) => ({ x: -q.y, y: q.x })) : [...outline];
-};
+const near = (a: number, b: number) => Math.abs(a - b) < 1e-6;
 
-/** The marker's items: the same cuts, in the same number, as the boxes the rectangle estimate laid. */
+/**
+ * The grainline on the outline as laid: the piece's own when the piece lies as drafted (moved with it), else
+ * — a band cut across the cloth or in two — the cloth's lengthwise grain through the middle of the piece.
+ */
+function laidGrainline(piece: DraftPiece, p: FabricPlacement, outline: readonly Point[]): [Point, Point] {
+	const drafted = boundingBox(piece.outline);
+	const laid = boundingBox(outline);
+	const width = p.unfolded ? 2 * drafted.width : drafted.width;
+	if (near(laid.width, width) && near(laid.height, drafted.height)) {
+		const dx = (p.unfolded ? drafted.width : 0) - drafted.x;
+		return translate(piece.grainline, dx, -drafted.y) as [Point, Point];
+	}
+	const x = laid.x + laid.width / 2;
+	return [
+		{ x, y: laid.y + laid.height * 0.2 },
+		{ x, y: laid.y + laid.height * 0.8 }
+	];
+}
+
+/**
+ * The marker's items: the same cuts, in the same number and the same shapes (a band cut across or in two
+ * as the boxes chose), as the boxes the rectangle estimate laid.
+ */
 export function markerItems(estimate: FabricEstimate, pieces: readonly DraftPiece[], spec: FabricSpec) {
 	const byId = new Map(pieces.map((p) => [p.id, p]));
 	const groups = new Map<string, { item: MarkerItem; yields: number; unfolded: boolean }>();
@@ -43,7 +68,7 @@ export function markerItems(estimate: FabricEstimate, pieces: readonly DraftPiec
 		}
 		const piece = byId.get(p.pieceId);
 		if (!piece) return null;
-		const outline = quarterTurned(p.unfolded ? openedOut(piece.outline) : piece.outline, p);
+		const outline = laidOutline(p);
 		groups.set(key, {
 			yields: p.yields / copies,
 			unfolded: p.unfolded,
@@ -51,7 +76,7 @@ export function markerItems(estimate: FabricEstimate, pieces: readonly DraftPiec
 				id: piece.id,
 				label: piece.label,
 				outline,
-				grainline: piece.grainline,
+				grainline: laidGrainline(piece, p, outline),
 				quantity: copies,
 				rotation: spec.directional ? 'none' : '180',
 				onFold: estimate.folded && piece.cut.onFold,
@@ -62,11 +87,38 @@ export function markerItems(estimate: FabricEstimate, pieces: readonly DraftPiec
 	return [...groups.values()];
 }
 
+/** Of the draft's time allowance, the share the cloth marker gets when there is a lining to nest as well. */
+const clothShareWhenLined = 0.65;
+
 /**
- * The fabric estimate with the real outlines nested in place of their boxes, when that is shorter.
+ * The fabric estimate with the real outlines nested in place of their boxes, when that is shorter; a lined
+ * garment's lining is nested as its own marker on the lining width, and its note gives the nested length.
  * The rectangle estimate is kept as it is when nesting does not finish within its budget.
  */
 export function nestFabricEstimate(
+	estimate: FabricEstimate,
+	pieces: readonly DraftPiece[],
+	spec: FabricSpec,
+	budget: NestBudget
+): FabricEstimate {
+	const lining = estimate.lining;
+	if (!lining?.estimate) return nestCloth(estimate, pieces, spec, budget);
+	const started = performance.now();
+	const cloth = nestCloth(estimate, pieces, spec, { ...budget, budgetMs: budget.budgetMs * clothShareWhenLined });
+	const left = Math.max(budget.budgetMs - (performance.now() - started), budget.budgetMs * (1 - clothShareWhenLined));
+	const liningPieces = pieces.filter((p) => p.cut.cloth === 'lining');
+	const nestedLining = {
+		...lining,
+		estimate: nestCloth(lining.estimate, liningPieces, liningSpecOf(spec), { ...budget, budgetMs: left })
+	};
+	return {
+		...cloth,
+		notes: cloth.notes.map((n) => (isLiningNote(n) ? liningNote(nestedLining, spec.widthMm) : n)),
+		lining: nestedLining
+	};
+}
+
+function nestCloth(
 	estimate: FabricEstimate,
 	pieces: readonly DraftPiece[],
 	spec: FabricSpec,

@@ -1,0 +1,110 @@
+/**
+ * npm run bench:marker — the marker (real outlines nested) against the rectangle layout, per garment, on
+ * 115 cm cloth folded and open, plain and with nap: marker cloth used, rectangle cloth used, the area bound
+ * (no marker can be shorter), and the time the marker took (mean of three runs after one, no budget).
+ * Targets: the marker uses more of the cloth than the rectangles on every garment, is never shorter than
+ * the area bound, and takes at most 2 s a garment. Lined garments also show their lining marker.
+ *
+ *   npm run bench:marker [-- --garment waistcoat] [-- --width 150]
+ */
+import { performance } from 'node:perf_hooks';
+import {
+	estimateFabric,
+	garments,
+	getTemplate,
+	resolveOptions,
+	toMm,
+	type FabricEstimate,
+	type FabricSpec
+} from '../src/lib/drafting/index';
+import { nestFabricEstimate } from '../src/lib/drafting/marker/index';
+
+/** Bust, waist and hip: the EN 13402-3 pictogram body 88-72-96; the rest mid-range adult values. */
+const bodyCm = {
+	neck_girth: 35,
+	bust_girth: 88,
+	under_bust_girth: 73,
+	waist_girth: 72,
+	hip_girth: 96,
+	thigh_girth: 56,
+	upper_arm_girth: 28,
+	shoulder_width: 38,
+	nape_to_waist: 41,
+	shoulder_to_bust_point: 25,
+	bust_point_span: 18,
+	waist_to_hip: 20.6,
+	waist_to_floor: 104,
+	inside_leg: 78,
+	arm_length: 58,
+	stature: 168
+};
+
+const args = process.argv.slice(2);
+const argOf = (name: string) => {
+	const i = args.indexOf(`--${name}`);
+	return i >= 0 ? args[i + 1] : undefined;
+};
+const only = argOf('garment');
+const widthCm = Number(argOf('width') ?? 115);
+
+const pct = (x: number) => `${(x * 100).toFixed(1)} %`;
+const cm = (mm: number) => `${(mm / 10).toFixed(1)}`;
+
+const rows: string[][] = [
+	['garment', 'cloth', 'rect cm', 'marker cm', 'bound cm', 'rect used', 'marker used', 'time', 'verdict']
+];
+let failures = 0;
+
+function row(garment: string, cloth: string, boxes: FabricEstimate, nested: FabricEstimate, ms: number) {
+	const bound = nested.nested?.areaBoundMm;
+	const wins = nested.efficiency > boxes.efficiency + 1e-9;
+	const sound = bound === undefined || nested.packedMm >= bound - 1e-6;
+	const fast = ms <= 2000;
+	const verdict = [wins ? 'better' : 'NOT BETTER', sound ? '' : 'BELOW BOUND', fast ? '' : 'SLOW']
+		.filter(Boolean)
+		.join(' ');
+	if (!wins || !sound || !fast) failures++;
+	rows.push([
+		garment,
+		cloth,
+		cm(boxes.packedMm),
+		nested.nested ? cm(nested.packedMm) : 'boxes kept',
+		bound !== undefined ? cm(bound) : '—',
+		pct(boxes.efficiency),
+		pct(nested.efficiency),
+		`${ms.toFixed(0)} ms`,
+		verdict
+	]);
+}
+
+for (const garment of garments) {
+	if (only && garment.id !== only) continue;
+	const template = getTemplate(garment.id);
+	const bodyMm = Object.fromEntries(Object.entries(bodyCm).map(([code, v]) => [code, toMm(v, 'cm')]));
+	const pieces = template.draft(bodyMm, resolveOptions(template, {}, bodyMm, 'cm').options).pieces;
+	for (const folded of [true, false]) {
+		for (const directional of [false, true]) {
+			const spec: FabricSpec = { widthMm: widthCm * 10, folded, directional, shrinkagePercent: 0, repeatMm: 0 };
+			const boxes = estimateFabric(pieces, spec, 'cm').estimate!;
+			const runs = [0, 1, 2, 3].map(() => {
+				const start = performance.now();
+				const nested = nestFabricEstimate(boxes, pieces, spec, { budgetMs: Infinity });
+				return { ms: performance.now() - start, nested };
+			});
+			const ms = runs.slice(1).reduce((sum, r) => sum + r.ms, 0) / 3;
+			const { nested } = runs[0];
+			const cloth = `${boxes.folded ? 'folded' : 'open'}${directional ? ', nap' : ''}`;
+			row(garment.id, cloth, boxes, nested, ms);
+			if (boxes.lining?.estimate && nested.lining?.estimate && !directional)
+				row(`${garment.id} lining`, boxes.lining.estimate.folded ? "folded" : "open", boxes.lining.estimate, nested.lining.estimate, ms);
+		}
+	}
+}
+
+const widths = rows[0].map((_, col) => Math.max(...rows.map((r) => r[col].length)));
+console.log(`Marker vs rectangles on ${widthCm} cm cloth, Node ${process.version} (time: whole garment, lining included)\n`);
+for (const [i, r] of rows.entries()) {
+	console.log(r.map((cell, col) => cell.padEnd(widths[col])).join('  '));
+	if (i === 0) console.log(widths.map((w) => '─'.repeat(w)).join('  '));
+}
+console.log(failures ? `\n${failures} row(s) miss a target.` : '\nEvery row meets the targets.');
