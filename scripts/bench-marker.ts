@@ -56,9 +56,10 @@ const rows: string[][] = [
 let failures = 0;
 
 function row(garment: string, cloth: string, boxes: FabricEstimate, nested: FabricEstimate, ms: number) {
-	const bound = nested.nested?.areaBoundMm;
+	// Σ cut area ÷ lay width: the cloth used, over the rectangles' length, is exactly that area.
+	const bound = nested.nested?.areaBoundMm ?? boxes.efficiency * boxes.packedMm;
 	const wins = nested.efficiency > boxes.efficiency + 1e-9;
-	const sound = bound === undefined || nested.packedMm >= bound - 1e-6;
+	const sound = nested.packedMm >= bound - 1e-6;
 	const fast = ms <= 2000;
 	const verdict = [wins ? 'better' : 'NOT BETTER', sound ? '' : 'BELOW BOUND', fast ? '' : 'SLOW']
 		.filter(Boolean)
@@ -69,7 +70,7 @@ function row(garment: string, cloth: string, boxes: FabricEstimate, nested: Fabr
 		cloth,
 		cm(boxes.packedMm),
 		nested.nested ? cm(nested.packedMm) : 'boxes kept',
-		bound !== undefined ? cm(bound) : '—',
+		cm(bound),
 		pct(boxes.efficiency),
 		pct(nested.efficiency),
 		`${ms.toFixed(0)} ms`,
@@ -96,13 +97,21 @@ for (const garment of garments) {
 			const cloth = `${boxes.folded ? 'folded' : 'open'}${directional ? ', nap' : ''}`;
 			row(garment.id, cloth, boxes, nested, ms);
 			if (boxes.lining?.estimate && nested.lining?.estimate && !directional)
-				row(`${garment.id} lining`, boxes.lining.estimate.folded ? "folded" : "open", boxes.lining.estimate, nested.lining.estimate, ms);
+				row(
+					`${garment.id} lining`,
+					boxes.lining.estimate.folded ? 'folded' : 'open',
+					boxes.lining.estimate,
+					nested.lining.estimate,
+					ms
+				);
 		}
 	}
 }
 
 const widths = rows[0].map((_, col) => Math.max(...rows.map((r) => r[col].length)));
-console.log(`Marker vs rectangles on ${widthCm} cm cloth, Node ${process.version} (time: whole garment, lining included)\n`);
+console.log(
+	`Marker vs rectangles on ${widthCm} cm cloth, Node ${process.version} (time: whole garment, lining included)\n`
+);
 for (const [i, r] of rows.entries()) {
 	console.log(r.map((cell, col) => cell.padEnd(widths[col])).join('  '));
 	if (i === 0) console.log(widths.map((w) => '─'.repeat(w)).join('  '));

@@ -60,6 +60,10 @@ export interface MarkerResult {
 
 export const defaultGapMm = 2;
 export const flatteningToleranceMm = 1;
+/** Orderings tried at most: the fixed ones, then swaps of the best so far. */
+export const defaultOrderings = 60;
+/** Swaps tried in a row without a shorter marker before the search stops. */
+const patience = 16;
 
 interface Unit {
 	item: number;
@@ -92,12 +96,19 @@ function noFit(context: Context, fixed: Variant, moving: Variant): Paths64 {
 	return nfp;
 }
 
+/** Per variant: the positions it may not take among the first `upTo` placed pieces. */
+type Blocked = Map<Variant, { upTo: number; blocked: Paths64 }>;
+
 const stepUp = (y: number, step: number) => Math.ceil(y / step - 1e-9) * step;
 
 /** Lowest, then leftmost, free reference positions for one variant among the placed pieces. */
-function candidates(context: Context, placed: Placed[], unit: Unit, variant: Variant): Point[] {
+function candidates(context: Context, placed: Placed[], unit: Unit, variant: Variant, seen: Blocked): Point[] {
 	const { width, margin, yStep, yLimit } = context;
-	const blocked = union(placed.flatMap((p) => translate(noFit(context, p.variant, variant), p.x, p.y)));
+	// Copies of one item share their variants, so the region they may not take grows by the pieces placed since.
+	const known = seen.get(variant);
+	const fresh = placed.slice(known?.upTo ?? 0).flatMap((p) => translate(noFit(context, p.variant, variant), p.x, p.y));
+	const blocked = known && !fresh.length ? known.blocked : union([...(known?.blocked ?? []), ...fresh]);
+	seen.set(variant, { upTo: placed.length, blocked });
 	const top = -margin;
 	if (unit.onFold) {
 		if (variant.width > width) return [];
@@ -135,29 +146,44 @@ function candidates(context: Context, placed: Placed[], unit: Unit, variant: Var
 }
 
 /**
- * Bottom-left: the lower far end wins (or, in the second pass, the lower near end, which fills gaps
- * first), then the position nearer the fold or the left selvedge.
+ * How a copy's place is chosen among the free ones: bottom-left by the far end ('far': the lower far end
+ * wins), by the near end ('near': fills gaps first), or the place that lengthens the marker least, then the
+ * lowest ('least'); ties go to the position nearer the fold or the left selvedge.
  */
-function better(byNearEnd: boolean, c: Point, variant: Variant, best: Placed): boolean {
-	const key = byNearEnd ? c.y : c.y + variant.height;
-	const bestKey = byNearEnd ? best.y : best.y + best.variant.height;
+type Rule = 'far' | 'near' | 'least';
+const rules: readonly Rule[] = ['far', 'near', 'least'];
+
+function better(rule: Rule, c: Point, variant: Variant, best: Placed, reach: number): boolean {
+	if (rule === 'least') {
+		const grows = Math.max(reach, c.y + variant.height);
+		const bestGrows = Math.max(reach, best.y + best.variant.height);
+		if (grows !== bestGrows) return grows < bestGrows;
+		if (c.y !== best.y) return c.y < best.y;
+		return c.x < best.x;
+	}
+	const key = rule === 'near' ? c.y : c.y + variant.height;
+	const bestKey = rule === 'near' ? best.y : best.y + best.variant.height;
 	return key < bestKey || (key === bestKey && c.x < best.x);
 }
 
-function placeAll(context: Context, units: Unit[], byNearEnd: boolean, overdue: () => boolean): Placed[] | null {
+function placeAll(context: Context, units: Unit[], rule: Rule, overdue: () => boolean): Placed[] | null {
 	const placed: Placed[] = [];
+	// How far down the cloth the grown shapes placed so far reach.
+	let reach = 0;
+	const seen: Blocked = new Map();
 	for (const unit of units) {
 		if (overdue()) return null;
 		let best: Placed | null = null;
 		for (const variant of unit.variants) {
-			for (const c of candidates(context, placed, unit, variant)) {
-				if (!best || better(byNearEnd, c, variant, best)) {
+			for (const c of candidates(context, placed, unit, variant, seen)) {
+				if (!best || better(rule, c, variant, best, reach)) {
 					best = { unit, variant, x: c.x, y: c.y };
 				}
 			}
 		}
 		if (!best) return null;
 		placed.push(best);
+		reach = Math.max(reach, best.y + best.variant.height);
 	}
 	return placed;
 }
@@ -180,11 +206,16 @@ function markerLength(placed: Placed[]): number {
 
 type Order = (a: Unit, b: Unit) => number;
 const biggest = (u: Unit) => Math.max(...u.variants.map((v) => v.width * v.height));
+const tallest = (u: Unit) => Math.max(...u.variants.map((v) => v.height));
+const widest = (u: Unit) => Math.max(...u.variants.map((v) => v.width));
 const orders: Order[] = [
+	// As given: the marker's items come in the order the rectangle layout laid them.
+	() => 0,
 	(a, b) => Number(b.onFold) - Number(a.onFold) || b.area - a.area,
 	(a, b) => b.area - a.area,
-	(a, b) => Math.max(...b.variants.map((v) => v.height)) - Math.max(...a.variants.map((v) => v.height)),
-	(a, b) => biggest(b) - biggest(a)
+	(a, b) => tallest(b) - tallest(a),
+	(a, b) => biggest(b) - biggest(a),
+	(a, b) => widest(b) - widest(a)
 ];
 
 /** A fixed pseudo-random sequence (a linear congruential generator), so results repeat run to run. */
@@ -221,33 +252,37 @@ export function nestMarker(items: readonly MarkerItem[], options: MarkerOptions)
 		yLimit: units.reduce((sum, u) => sum + Math.max(...u.variants.map((v) => Math.max(v.width, v.height))), 0) * 2,
 		nfps: new Map()
 	};
-	const maxAttempts = options.orderings ?? 12;
+	const maxAttempts = options.orderings ?? defaultOrderings;
 	const budget = options.budgetMs ?? Infinity;
 	const overdue = () => now() - started > budget;
 	let best: Placed[] | null = null;
 	let bestLength = Infinity;
-	let bestAttempt = { order: units, byNearEnd: false };
+	let bestAttempt: { order: Unit[]; rule: Rule } = { order: units, rule: 'far' };
 	let tried = 0;
+	let sinceBetter = 0;
+	const fixed = orders.length * rules.length;
 	const perturb = swaps(units.length);
-	while (tried < maxAttempts && (tried === 0 || !overdue())) {
+	while (tried < maxAttempts && (tried === 0 || !overdue()) && (tried < fixed || sinceBetter < patience)) {
 		let attempt: typeof bestAttempt;
-		if (tried < 2 * orders.length) {
-			attempt = { order: [...units].sort(orders[tried >> 1]), byNearEnd: tried % 2 === 1 };
+		if (tried < fixed) {
+			attempt = { order: [...units].sort(orders[Math.floor(tried / rules.length)]), rule: rules[tried % rules.length] };
 		} else {
 			const order = [...bestAttempt.order];
 			const [i, j] = perturb.next().value as [number, number];
 			// The fold pieces stay where the ordering put them; everything else may swap.
 			if (order[i].onFold === order[j].onFold) [order[i], order[j]] = [order[j], order[i]];
-			attempt = { order, byNearEnd: bestAttempt.byNearEnd };
+			attempt = { order, rule: bestAttempt.rule };
+			sinceBetter++;
 		}
 		tried++;
-		const placed = placeAll(context, attempt.order, attempt.byNearEnd, overdue);
+		const placed = placeAll(context, attempt.order, attempt.rule, overdue);
 		if (placed) {
 			const length = markerLength(placed);
 			if (length < bestLength - 1e-6) {
 				best = placed;
 				bestLength = length;
 				bestAttempt = attempt;
+				sinceBetter = 0;
 			}
 		}
 	}
