@@ -57,6 +57,48 @@ describe('estimateQuote', () => {
 		expect(quote.lines[0].amountMinor).toBe(1829); // 10.00 × 1.8288 m = 18.288
 	});
 
+	it('prices a lined garment’s lining as its own line: lining length × lining price', () => {
+		// Cost-plus pricing, cloth and lining each bought by length (common practice); worked by hand:
+		// 2.0 m × 18.00 = 36.00 of cloth; 1.1 m × 7.50 = 8.25 of lining; 8 h × 30.00 = 240.00.
+		const quote = estimateQuote({
+			currency: 'GBP',
+			fabric: { supply: 'tailor', pricePerUnitMinor: 1800, per: 'm', length: 2 },
+			lining: { pricePerUnitMinor: 750, per: 'm', length: 1.1 },
+			labourHours: 8,
+			hourlyRateMinor: 3000
+		});
+		expect(quote.lines.map((l) => [l.id, l.amountMinor])).toEqual([
+			['fabric', 3600],
+			['lining', 825],
+			['labour', 24000]
+		]);
+		expect(quote.lines[1].label).toBe('Lining, 1.1 m');
+		expect(quote.totalMinor).toBe(28425);
+	});
+
+	it('converts a lining length in yards to a per-metre price exactly (1 yd = 0.9144 m)', () => {
+		const quote = estimateQuote({
+			currency: 'EUR',
+			fabric: { supply: 'customer' },
+			lining: { pricePerUnitMinor: 1000, per: 'm', length: 1.25, lengthUnit: 'yd' },
+			labourHours: 0,
+			hourlyRateMinor: 0
+		});
+		// 1.25 yd = 1.143 m; × 10.00 = 11.43.
+		expect(quote.lines.find((l) => l.id === 'lining')!.amountMinor).toBe(1143);
+		expect(quote.totalMinor).toBe(1143);
+	});
+
+	it('has no lining line for an unlined garment', () => {
+		const quote = estimateQuote({
+			currency: 'USD',
+			fabric: { supply: 'tailor', pricePerUnitMinor: 1299, per: 'yd', length: 2.625 },
+			labourHours: 8,
+			hourlyRateMinor: 3500
+		});
+		expect(quote.lines.map((l) => l.id)).toEqual(['fabric', 'labour']);
+	});
+
 	it('always totals the integer lines exactly (property)', () => {
 		fc.assert(
 			fc.property(
