@@ -112,7 +112,9 @@ export const draftResponseSchema = z
 						nested: z.boolean()
 					})
 					.nullable()
-					.meta({ description: 'A lined garment’s lining, laid apart on lining as wide as the cloth; null when unlined.' })
+					.meta({
+						description: 'A lined garment’s lining, laid apart on lining as wide as the cloth; null when unlined.'
+					})
 			})
 			.nullable(),
 		sizeBand: sizeBandSchema.nullable(),

@@ -30,12 +30,27 @@ const referenceBodyMm: Measurements = {
 	arm_length: 580
 };
 
-/** The fabric a garment of this size band takes, at the default width, as the reader's unit writes it. */
-export function fabricEstimateForBand(garmentType: string, band: readonly SizeBandRange[], unit: Unit) {
+/** The draft's cloth and lining layouts for the middle of the size band, at the default width. */
+function bandFabric(garmentType: string, band: readonly SizeBandRange[], unit: Unit) {
 	if (!garments.some((g) => g.id === garmentType) || band.length === 0) return null;
 	const body: Measurements = { ...referenceBodyMm };
 	for (const d of band) (body as Record<string, number>)[d.dimension] = Math.round((d.lowerMm + d.upperMm) / 2);
-	const draft = draftGarmentMm({ garment: garmentType as GarmentId, unit, bodyMm: body, unitConfirmed: true });
-	if (!draft.fabric) return null;
-	return { length: draft.fabric.lengthDisplay, width: draft.fabric.width, unit, folded: draft.fabric.folded };
+	return draftGarmentMm({ garment: garmentType as GarmentId, unit, bodyMm: body, unitConfirmed: true }).fabric;
+}
+
+/** The fabric a garment of this size band takes, at the default width, as the reader's unit writes it. */
+export function fabricEstimateForBand(garmentType: string, band: readonly SizeBandRange[], unit: Unit) {
+	const fabric = bandFabric(garmentType, band, unit);
+	if (!fabric) return null;
+	return { length: fabric.lengthDisplay, width: fabric.width, unit, folded: fabric.folded };
+}
+
+/**
+ * A lined garment's lining for the size band: its own layout on lining as wide as the cloth. Null for an
+ * unlined garment; `length` null when a lining piece is wider than the lining.
+ */
+export function liningEstimateForBand(garmentType: string, band: readonly SizeBandRange[], unit: Unit) {
+	const lining = bandFabric(garmentType, band, unit)?.lining;
+	if (!lining) return null;
+	return { length: lining.fits ? lining.lengthDisplay : null, pieces: lining.pieces, width: lining.width, unit };
 }

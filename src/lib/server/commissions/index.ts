@@ -17,7 +17,7 @@ export { missingForPublish, missingMeasurements, stepOfField, type StepId } from
 export { profilesOf, snapshotFor } from './profile-snapshot';
 export { CommissionError, errorStatus, type CommissionIssue } from './errors';
 export { leadTimeWarning, todayIn, typicalLeadDays } from './lead-times';
-export { fabricEstimateForBand } from './estimate';
+export { fabricEstimateForBand, liningEstimateForBand } from './estimate';
 export * as schemas from './schemas';
 export * as searchDocuments from './search-documents';
 export type { CommissionCard, CommissionSort, NearbyCommissionFilters } from './search-documents';

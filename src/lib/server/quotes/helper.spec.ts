@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { quoteWorking } from '$lib/quotes/working';
-import { fabricEstimateForBand } from '../commissions';
-import { prefill, startingFabricPricePerMetre } from './helper';
+import { fabricEstimateForBand, liningEstimateForBand } from '../commissions';
+import { prefill, startingFabricPricePerMetre, startingLiningPricePerMetre } from './helper';
 
 // Cost-plus pricing as small workrooms quote (common practice): cloth bought × its price, a mark-up on the
 // cloth for buying and handling it, and labour hours × the hourly rate. Expected figures are worked by hand.
@@ -152,5 +152,38 @@ describe('the helper pre-fill', () => {
 		expect(notes.some((n) => n.includes('the usual time for this garment'))).toBe(true);
 		// The usual lead time for trousers (common practice, see commissions/lead-times.ts).
 		expect(leadDays).toBe(21);
+	});
+
+	it('prices a lined waistcoat’s lining from its own layout, on a line of its own', () => {
+		const lining = liningEstimateForBand('waistcoat', band, 'cm');
+		expect(lining).not.toBeNull();
+		const metres = Number(/^(\d+(?:\.\d+)?) m$/.exec(lining!.length!)![1]);
+		const { input, working, notes } = prefill({
+			garmentType: 'waistcoat',
+			sizeBand: band,
+			fabricSource: 'customer_supplies',
+			currency: 'EUR',
+			rates,
+			leadTimes: {}
+		});
+		expect(input.lining).toEqual({ metres, pricePerMetreMinor: startingLiningPricePerMetre * 100 });
+		const line = working.lines.find((l) => l.id === 'lining')!;
+		// Lining metres × the lining price, rounded half up once (cost-plus pricing, common practice).
+		expect(line.amountMinor).toBe(Math.round(metres * startingLiningPricePerMetre * 100));
+		expect(notes.some((n) => n.startsWith(`Lining: ${lining!.length}`))).toBe(true);
+	});
+
+	it('has no lining for an unlined garment', () => {
+		expect(liningEstimateForBand('straight-skirt', band, 'cm')).toBeNull();
+		const { input, working } = prefill({
+			garmentType: 'straight-skirt',
+			sizeBand: band,
+			fabricSource: 'tailor_sources',
+			currency: 'EUR',
+			rates,
+			leadTimes: {}
+		});
+		expect(input.lining).toBeUndefined();
+		expect(working.lines.some((l) => l.id === 'lining')).toBe(false);
 	});
 });

@@ -2,7 +2,7 @@ import { garments, minorUnitExponent, type GarmentId } from '$lib/drafting';
 import type { SizeBandRange } from '$lib/format/size-band';
 import { quoteWorking, type Working, type WorkingInput } from '$lib/quotes/working';
 import type { WorkroomRates } from '$lib/types/workroom';
-import { fabricEstimateForBand, typicalLeadDays } from '../commissions';
+import { fabricEstimateForBand, liningEstimateForBand, typicalLeadDays } from '../commissions';
 import { commissionForQuoting } from '../commissions/for-quoting';
 import { sizeBandOf } from '../commissions/quotes-read';
 import type { Executor } from '../db';
@@ -15,6 +15,12 @@ import { latestQuoteOf } from './queries';
  * cloth sold by the metre (from memory). Only a starting figure; the tailor types what they pay.
  */
 export const startingFabricPricePerMetre = 25;
+
+/**
+ * A starting price per metre for lining (a viscose or acetate lining sold by the metre), in major units
+ * (from memory). Only a starting figure; the tailor types what they pay.
+ */
+export const startingLiningPricePerMetre = 8;
 
 export type HelperFacts = {
 	garmentType: string;
@@ -74,6 +80,14 @@ export function prefill(facts: HelperFacts): HelperPrefill {
 		);
 	else if (!rates) notes.push('Labour: enter your hourly rate.');
 
+	const lining = liningEstimateForBand(facts.garmentType, facts.sizeBand, 'cm');
+	const liningMetres = metresOf(lining?.length ?? undefined);
+	if (lining)
+		notes.push(
+			liningMetres !== null
+				? `Lining: ${lining.length} of ${lining.width} cm wide lining for the ${lining.pieces}, laid apart from the cloth; you buy it, whoever brings the cloth. The price is a starting figure per metre.`
+				: 'Lining: enter the length you would buy.'
+		);
 	const input: WorkingInput = {
 		currency: facts.currency,
 		tailorSourcesFabric: sourced,
@@ -81,7 +95,15 @@ export function prefill(facts: HelperFacts): HelperPrefill {
 		fabricPricePerMetreMinor: startingFabricPricePerMetre * 10 ** minorUnitExponent(facts.currency),
 		labourHours,
 		hourlyRateMinor,
-		markupPercent: rates?.fabricMarkupPercent ?? 0
+		markupPercent: rates?.fabricMarkupPercent ?? 0,
+		...(lining
+			? {
+					lining: {
+						metres: liningMetres ?? 0,
+						pricePerMetreMinor: startingLiningPricePerMetre * 10 ** minorUnitExponent(facts.currency)
+					}
+				}
+			: {})
 	};
 	if (sourced) notes.push('Fabric price: a starting figure per metre; change it to what the cloth costs you.');
 	const leadDays =

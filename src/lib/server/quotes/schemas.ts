@@ -142,5 +142,7 @@ export const quoteFormFields = [
 	'fabricPrice',
 	'labourHours',
 	'hourlyRate',
-	'markupPercent'
+	'markupPercent',
+	'liningMetres',
+	'liningPrice'
 ];

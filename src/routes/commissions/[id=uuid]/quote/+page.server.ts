@@ -28,7 +28,13 @@ function startingValues({ commission, latest, helper }: Context, now: Date): Rec
 		fabricPrice: amountInputValue(input.fabricPricePerMetreMinor, commission.currency),
 		labourHours: String(input.labourHours),
 		hourlyRate: input.hourlyRateMinor ? amountInputValue(input.hourlyRateMinor, commission.currency) : '',
-		markupPercent: String(input.markupPercent)
+		markupPercent: String(input.markupPercent),
+		...(input.lining
+			? {
+					liningMetres: String(input.lining.metres),
+					liningPrice: amountInputValue(input.lining.pricePerMetreMinor, commission.currency)
+				}
+			: {})
 	};
 	if (latest?.status === 'sent')
 		return {
@@ -87,6 +93,7 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 		capacity: workroom?.capacity ?? 1,
 		bookedDueDates,
 		helperNotes: helper.notes,
+		lined: helper.input.lining !== undefined,
 		values: startingValues(context, new Date()),
 		today: isoDay(new Date()),
 		confirmWithdraw: url.searchParams.has('withdraw') && latest?.status === 'sent',
@@ -185,7 +192,10 @@ export const actions: Actions = {
 				fabricPricePerMetreMinor: money(values.fabricPrice),
 				labourHours: Number(values.labourHours),
 				hourlyRateMinor: money(values.hourlyRate),
-				markupPercent: Number(values.markupPercent)
+				markupPercent: Number(values.markupPercent),
+				...(values.liningMetres
+					? { lining: { metres: Number(values.liningMetres), pricePerMetreMinor: money(values.liningPrice ?? '') } }
+					: {})
 			});
 			values.price = amountInputValue(working.totalMinor, commission.currency);
 		}
