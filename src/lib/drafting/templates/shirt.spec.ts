@@ -113,6 +113,7 @@ describe('shirt — seam allowances on every seamed edge (5/8 in default: Wikipe
 	});
 });
 
+// Sleeve head ease: modelistecreative.com (0–6 cm for a shirt); biceps ease: Threads, "Set-in sleeve solutions" (2021).
 describe('shirt — one-piece set-in sleeve drafted from the armhole', () => {
 	it('makes the sleeve head longer than the armhole by the sleeve head ease (default 3 cm: 0–6 cm for a shirt, modelistecreative.com)', () => {
 		for (const ease of [0, 30, 1.5 * inch]) {
@@ -155,6 +156,7 @@ function netOutlineOf(edges: NetEdge[]) {
 	return edges.flatMap((e) => e.points.slice(0, -1));
 }
 
+// A band or stand is cut to the seam it is sewn to (common practice).
 describe('shirt — collar and stand sewn to the neck', () => {
 	it('cuts the stand to the neck seam it is sewn to: back neck + front neck to the front edge', () => {
 		const { net, seam } = netOf();
@@ -191,12 +193,14 @@ describe('shirt — seams that are sewn together match (common practice)', () =>
 		const dartGap = Math.hypot(side[2].x - side[1].x, side[2].y - side[1].y);
 		expect(Math.abs(pathLength(side) - dartGap - len(net.back, 'side'))).toBeLessThan(1);
 	});
+	// The 1 in intake is from memory; B-cup blocks: modelistecreative.com; B band (14, 16]: EN 13402-3 via mobilefish.com.
 	it('the bust dart is 1 in for a B cup (bust − under bust 15 cm; EN 13402-3 B = (14, 16] cm) and grows with the cup (common practice)', () => {
 		expect(draftIn(shirt, 'cm', body).line('front.dart_intake')).toBeCloseTo(2.54, 9);
 		expect(draftIn(shirt, 'cm', { ...body, under_bust_girth: 69 }).line('front.dart_intake')).toBeGreaterThan(2.54);
 	});
 });
 
+// Datums after Aldrich's bodice block (the 6th-ed. chapter reference is from memory; REFERENCES verifies the 5th ed.).
 describe('shirt — datums from the nape (Aldrich, Metric Pattern Cutting for Women’s Wear, 6th ed., ch. 1 bodice block)', () => {
 	it('puts the waist line nape-to-waist below the nape and the hip line waist-to-hip below that', () => {
 		const draft = draftIn(shirt, 'cm', body);
@@ -215,6 +219,7 @@ describe('shirt — datums from the nape (Aldrich, Metric Pattern Cutting for Wo
 	});
 });
 
+// Hand passage 22 cm: from memory. Least ease at a short sleeve's end 1 in over the upper arm: from memory.
 describe('shirt — sleeve end and warnings', () => {
 	it('keeps a short sleeve’s underseam and warns when its end would bind the upper arm', () => {
 		const short = draftIn(shirt, 'cm', body, { sleeveLength: 25, sleeveOpening: 28 });

@@ -8,9 +8,14 @@ import type { BodyMm, GarmentTemplate, ResolvedOptions } from './types';
 
 /*
  * A shirt or blouse with set-in sleeves and a collar on a stand, after the blocks in Winifred Aldrich,
- * Metric Pattern Cutting for Women's Wear, 6th ed. (Wiley-Blackwell, 2015): chapter 1, the close-fitting
- * bodice block and the one-piece sleeve block, and the shirt collar with a separate stand from the collars
- * chapter. The book is not at hand; every figure below is from memory unless a source is named.
+ * Metric Pattern Cutting for Women's Wear, 6th ed. (Wiley-Blackwell, 2015; that edition is from memory, the
+ * 5th ed., Blackwell 2008, is the one a published tutorial cites): chapter 1, the close-fitting bodice block
+ * and the one-piece sleeve block, and the shirt collar with a separate stand from the collars chapter. The
+ * book is not at hand; every figure below is from memory unless a source is named. Sources named here:
+ * seam allowance 5/8 in (Wikipedia, "Seam allowance"); chest, waist and hip ease (Central Washington
+ * University course text, "Ch. 16 Ease in Clothing"; McCunn, How to Make Sewing Patterns); blocks drafted
+ * for a B cup (modelistecreative.com: "most basic blocks are drafted to a standard B or sometimes C cup")
+ * with EN 13402-3's cup bands (B = bust − under bust in (14, 16] cm, mobilefish.com's EN 13402 notes).
  *
  * Datums as the bodice block has them: the neck-point line at y = 0; the nape (centre back neck) the back neck
  * depth below it; scye depth, nape-to-waist and waist-to-hip lines squared down from the nape. Scye depth
@@ -24,6 +29,7 @@ import type { BodyMm, GarmentTemplate, ResolvedOptions } from './types';
  * Every edge is drafted on the seam line and the cutting line is the seam line moved out by its allowance.
  */
 
+/** Back neck depth below the neck-point line, shoulder slope and the scye drop for looser fits (from memory). */
 const backNeckDepth = 20;
 const shoulderDrop = inch(1.5);
 const scyeExtra = { fitted: 0, regular: 10, relaxed: 20 } as const;
@@ -38,11 +44,19 @@ const collarPointDrop = 15;
 const collarPointOut = 10;
 /** A shirt collar is made about ½ in over the neck (common practice: collar size = neck + ½ in). */
 export const collarEase = inch(0.5);
+/** The most a side seam is shaped in at the waist (from memory). */
 const maxSideShaping = 20;
+/**
+ * Bust dart: 1 in for the B cup the block is drafted for (from memory), the cup taken as the middle of
+ * EN 13402-3's B band, bust − under bust 15 cm in (14, 16] (mobilefish.com, EN 13402 notes); blocks are
+ * drafted for a B cup (modelistecreative.com). Where it sits on the side seam and how short of the bust
+ * point it stops: from memory.
+ */
 const baseDartIntake = inch(1);
 const baseCupDifference = 150;
 const dartBelowUnderarm = inch(2);
 const dartShortOfApex = inch(1);
+/** Button spacing down the front and buttonhole length for a 1–1.2 cm shirt button (common practice). */
 const buttonSpacing = 90;
 const buttonholeLength = 14;
 /** A hand passes through about 22 cm when slid in (from memory); a closed cuffless sleeve end needs that. */

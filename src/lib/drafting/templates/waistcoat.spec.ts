@@ -80,6 +80,7 @@ describe('waistcoat — ease from the cut pieces', () => {
 	});
 });
 
+// Seam allowance 5/8 in by default (Wikipedia, "Seam allowance"); a bagged-out edge is a seam (common practice).
 describe('waistcoat — bagged out: every edge carries the seam allowance', () => {
 	it('puts the seam allowance inside the cutting line all along every edge of every piece', () => {
 		const { net, seam } = netOf();
@@ -105,6 +106,7 @@ describe('waistcoat — bagged out: every edge carries the seam allowance', () =
 	});
 });
 
+// Pieces sewn together are cut to the same seam length (common practice).
 describe('waistcoat — facing and lining sewn together', () => {
 	it('cuts the facing to the front edges it is sewn to, neck point to front point', () => {
 		const { net } = netOf();
@@ -129,6 +131,7 @@ describe('waistcoat — facing and lining sewn together', () => {
 	});
 });
 
+// Welt depth 2 cm, mouth sizes and bag depths: from memory; a welt is cut to its mouth (common practice).
 describe('waistcoat — welt pockets marked and their welts cut to the mouth', () => {
 	it('marks two pocket mouths (lower and breast) inside the front, clear of the facing', () => {
 		const draft = draftIn(waistcoat, 'cm', body);
@@ -163,6 +166,7 @@ describe('waistcoat — welt pockets marked and their welts cut to the mouth', (
 	});
 });
 
+// The lining length is never below the trivial strip-packing area bound (theoremdep, "rvol(I) is a lower bound").
 describe('waistcoat — lining laid apart from the cloth', () => {
 	it('lays only the cloth pieces and gives the lining its own length in the notes', () => {
 		const draft = draftIn(waistcoat, 'cm', body);
@@ -185,6 +189,7 @@ describe('waistcoat — lining laid apart from the cloth', () => {
 	});
 });
 
+// Datums after Aldrich's menswear body block (edition and chapter from memory).
 describe('waistcoat — datums from the nape (Aldrich, Metric Pattern Cutting for Menswear, 5th ed., body block)', () => {
 	it('puts the waist line nape-to-waist below the nape', () => {
 		const draft = draftIn(waistcoat, 'cm', body);

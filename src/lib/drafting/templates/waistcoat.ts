@@ -10,8 +10,10 @@ import type { BodyMm, GarmentTemplate, ResolvedOptions } from './types';
 /*
  * A lined, single-breasted waistcoat with a V front, pointed front hem, two lower welt pockets and a breast
  * welt pocket, after the waistcoat block in Winifred Aldrich, Metric Pattern Cutting for Menswear, 5th ed.
- * (Wiley-Blackwell, 2011), the waistcoats chapter, which builds on the menswear body block of chapter 1. The
- * book is not at hand: the figures are from memory unless a source is named. Datums as the bodice block:
+ * (Wiley-Blackwell, 2011; edition and year from memory), the waistcoats chapter, which builds on the menswear
+ * body block of chapter 1. The book is not at hand: the figures are from memory unless a source is named.
+ * Sources named here: seam allowance 5/8 in (Wikipedia, "Seam allowance"); chest and waist ease (McCunn,
+ * How to Make Sewing Patterns; Central Washington University course text, "Ch. 16 Ease in Clothing"). Datums as the bodice block:
  * neck-point line at y = 0, nape the back neck depth below it, scye depth and nape-to-waist squared down
  * from the nape. A waistcoat armhole is dropped about 4 cm below a shirt's and its shoulder is narrowed about
  * 2.5 cm so that it sits inside a jacket (from memory). Shaping is at the side seams only (at most 2.5 cm
@@ -20,21 +22,28 @@ import type { BodyMm, GarmentTemplate, ResolvedOptions } from './types';
  * the usual practice for a waistcoat worn under a jacket.
  */
 
+/**
+ * Back neck depth, shoulder slope, the armhole dropped and the shoulder narrowed to sit inside a jacket, the
+ * scye drop for looser fits and the most a side seam is shaped in (all from memory).
+ */
 const backNeckDepth = 20;
 const shoulderDrop = inch(1.75);
 const armholeDrop = 40;
 const shoulderNarrowing = 25;
 const scyeExtra = { fitted: 0, regular: 10, relaxed: 20 } as const;
 const maxSideShaping = 25;
+/** Button extension beyond the centre front for a waistcoat button (common practice). */
 export const waistcoatExtension = 18;
 /** Front facing width along the front edges (common practice: 4–6 cm for a waistcoat). */
 export const waistcoatFacingWidth = 50;
 /** A welt is folded: finished depth 2 cm for lower and breast pockets (from memory). */
 export const weltDepth = 20;
+/** Breast pocket mouth, pocket bag depths and the bag's overlap above the mouth (from memory). */
 const breastMouth = 90;
 const lowerBagDepth = 130;
 const breastBagDepth = 110;
 const bagOverlap = 15;
+/** How far the front points drop below the side seam's hem (from memory). */
 const pointRise = 40;
 
 export interface WaistcoatFigures {
