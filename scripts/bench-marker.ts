@@ -5,7 +5,10 @@
  * Targets: the marker uses more of the cloth than the rectangles on every garment, is never shorter than
  * the area bound, and takes at most 2 s a garment. Lined garments also show their lining marker.
  *
- *   npm run bench:marker [-- --garment waistcoat] [-- --width 150]
+ *   npm run bench:marker [-- --garment waistcoat] [-- --width 150] [-- --gap 0] [-- --budget 2000]
+ *
+ * `--gap` sets the cutting gap between pieces (default the marker's own); the rectangles have none, so a
+ * run at 0 shows how much of a loss on an already tight rectangle layout is the gap alone.
  */
 import { performance } from 'node:perf_hooks';
 import {
@@ -17,7 +20,7 @@ import {
 	type FabricEstimate,
 	type FabricSpec
 } from '../src/lib/drafting/index';
-import { nestFabricEstimate } from '../src/lib/drafting/marker/index';
+import { defaultGapMm, nestFabricEstimate } from '../src/lib/drafting/marker/index';
 
 /** Bust, waist and hip: the EN 13402-3 pictogram body 88-72-96; the rest mid-range adult values. */
 const bodyCm = {
@@ -46,31 +49,42 @@ const argOf = (name: string) => {
 };
 const only = argOf('garment');
 const widthCm = Number(argOf('width') ?? 115);
+const gapMm = argOf('gap') === undefined ? undefined : Number(argOf('gap'));
+/** `--budget 2000`: the time the draft API allows (no new ordering after it); default none. */
+const budgetMs = argOf('budget') === undefined ? Infinity : Number(argOf('budget'));
 
 const pct = (x: number) => `${(x * 100).toFixed(1)} %`;
 const cm = (mm: number) => `${(mm / 10).toFixed(1)}`;
 
 const rows: string[][] = [
-	['garment', 'cloth', 'rect cm', 'marker cm', 'bound cm', 'rect used', 'marker used', 'time', 'verdict']
+	['garment', 'cloth', 'rect cm', 'marker cm', 'area bound', 'longest', 'rect used', 'marker used', 'time', 'verdict']
 ];
 let failures = 0;
 
 function row(garment: string, cloth: string, boxes: FabricEstimate, nested: FabricEstimate, ms: number) {
 	// Σ cut area ÷ lay width: the cloth used, over the rectangles' length, is exactly that area.
 	const bound = nested.nested?.areaBoundMm ?? boxes.efficiency * boxes.packedMm;
+	// No layout is shorter than its longest piece either (OPT ≥ max(A/W, h_max), the trivial strip-packing bound).
+	const tallest = Math.max(...boxes.placements.map((p) => p.h));
 	const wins = nested.efficiency > boxes.efficiency + 1e-9;
-	const sound = nested.packedMm >= bound - 1e-6;
+	const optimal = !wins && boxes.packedMm <= tallest + 1e-6;
+	const sound = nested.packedMm >= bound - 1e-6 && nested.packedMm >= tallest - 1e-6;
 	const fast = ms <= 2000;
-	const verdict = [wins ? 'better' : 'NOT BETTER', sound ? '' : 'BELOW BOUND', fast ? '' : 'SLOW']
+	const verdict = [
+		wins ? 'better' : optimal ? 'tied: rectangles at the longest piece' : 'NOT BETTER',
+		sound ? '' : 'BELOW BOUND',
+		fast ? '' : 'SLOW'
+	]
 		.filter(Boolean)
 		.join(' ');
-	if (!wins || !sound || !fast) failures++;
+	if ((!wins && !optimal) || !sound || !fast) failures++;
 	rows.push([
 		garment,
 		cloth,
 		cm(boxes.packedMm),
 		nested.nested ? cm(nested.packedMm) : 'boxes kept',
 		cm(bound),
+		cm(tallest),
 		pct(boxes.efficiency),
 		pct(nested.efficiency),
 		`${ms.toFixed(0)} ms`,
@@ -89,7 +103,7 @@ for (const garment of garments) {
 			const boxes = estimateFabric(pieces, spec, 'cm').estimate!;
 			const runs = [0, 1, 2, 3].map(() => {
 				const start = performance.now();
-				const nested = nestFabricEstimate(boxes, pieces, spec, { budgetMs: Infinity });
+				const nested = nestFabricEstimate(boxes, pieces, spec, { budgetMs, gapMm });
 				return { ms: performance.now() - start, nested };
 			});
 			const ms = runs.slice(1).reduce((sum, r) => sum + r.ms, 0) / 3;
