@@ -124,7 +124,8 @@ for (const garment of garments) {
 
 const widths = rows[0].map((_, col) => Math.max(...rows.map((r) => r[col].length)));
 console.log(
-	`Marker vs rectangles on ${widthCm} cm cloth, Node ${process.version} (time: whole garment, lining included)\n`
+	`Marker vs rectangles on ${widthCm} cm cloth, cutting gap ${gapMm ?? defaultGapMm} mm, budget ${budgetMs} ms, ` +
+		`Node ${process.version} (time: whole garment, lining included)\n`
 );
 for (const [i, r] of rows.entries()) {
 	console.log(r.map((cell, col) => cell.padEnd(widths[col])).join('  '));
