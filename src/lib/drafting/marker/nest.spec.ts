@@ -158,7 +158,8 @@ describe('marker: every garment', () => {
 		// Every cut the boxes made, copies laid head to tail included, is cut from the marker too.
 		const cuts = (e: typeof boxes) => e.placements.reduce((sum, p) => sum + p.yields, 0);
 		expect(cuts(nested)).toBe(cuts(boxes));
-	});
+		// Nesting on a busy machine: the first ordering computes every no-fit polygon.
+	}, 30_000);
 
 	it('halves the cloth for four skirt gores that interlock end for end (hand check)', () => {
 		// Gores 150 wide at the waist, 350 at the hem, 700 long. Boxes: three across 1150 cm cloth, one below: 1400.
