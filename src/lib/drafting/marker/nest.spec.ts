@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { defaultFabricSpec, estimateFabric, type FabricSpec } from '../fabric';
-import { distance, mirrorX, polygonArea, pt, type Point } from '../geometry';
+import { boundingBox, distance, mirrorX, polygonArea, pt, type Point } from '../geometry';
 import { packStrip } from '../layout';
 import type { DraftPiece } from '../pieces';
 import { templates } from '../templates/index';
@@ -135,31 +135,51 @@ describe('marker: every garment', () => {
 		[true, false].flatMap((folded) => [true, false].map((directional) => ({ garment, folded, directional })))
 	);
 
-	it.each(cases)('$garment, folded $folded, nap $directional: sound, and never worse than the boxes', (c) => {
-		const pieces = draftOf(c.garment);
-		const spec = clothSpec({ folded: c.folded, directional: c.directional });
+	it.each(cases)(
+		'$garment, folded $folded, nap $directional: sound, and never worse than the boxes',
+		(c) => {
+			const pieces = draftOf(c.garment);
+			const spec = clothSpec({ folded: c.folded, directional: c.directional });
+			const boxes = estimateFabric(pieces, spec, 'cm').estimate!;
+			const items = markerItems(boxes, pieces, spec)!.map((g) => g.item);
+			const marker = nestMarker(items, { width: boxes.layWidthMm, orderings: 2 })!;
+			expectSound(marker, 2);
+			for (const [i, it] of items.entries()) {
+				const placed = marker.placements.filter((p) => p.item === i);
+				expect(placed).toHaveLength(it.quantity);
+				if (it.onFold) expect(placed.every((p) => Math.abs(p.box.x) < 0.01)).toBe(true);
+				// Grain stays along the cloth: a nap allows no turn, plain cloth end for end only.
+				expect(placed.every((p) => (c.directional ? p.turn === 0 : p.turn === 0 || p.turn === 180))).toBe(true);
+				for (const p of placed) expect(p.grainline[0].x).toBeCloseTo(p.grainline[1].x, 6);
+			}
+			const nested = nestFabricEstimate(boxes, pieces, spec, { budgetMs: Infinity, orderings: 2 });
+			expect(nested.efficiency).toBeGreaterThanOrEqual(boxes.efficiency - 1e-12);
+			expect(nested.packedMm).toBeLessThanOrEqual(boxes.packedMm);
+			expect(nested.rounded.mm).toBeGreaterThanOrEqual(nested.lengthMm - 1e-6);
+			if (nested.nested) expect(nested.packedMm).toBeGreaterThanOrEqual(nested.nested.areaBoundMm - 1e-6);
+			// Every cut the boxes made, copies laid head to tail included, is cut from the marker too.
+			const cuts = (e: typeof boxes) => e.placements.reduce((sum, p) => sum + p.yields, 0);
+			expect(cuts(nested)).toBe(cuts(boxes));
+			// Nesting on a busy machine: the first ordering computes every no-fit polygon.
+		},
+		30_000
+	);
+
+	it('nests a band in the shape the boxes cut it (in two, each half plus its join), not as drafted', () => {
+		const pieces = draftOf('straight-skirt');
+		const spec = clothSpec();
 		const boxes = estimateFabric(pieces, spec, 'cm').estimate!;
-		const items = markerItems(boxes, pieces, spec)!.map((g) => g.item);
-		const marker = nestMarker(items, { width: boxes.layWidthMm, orderings: 2 })!;
-		expectSound(marker, 2);
-		for (const [i, it] of items.entries()) {
-			const placed = marker.placements.filter((p) => p.item === i);
-			expect(placed).toHaveLength(it.quantity);
-			if (it.onFold) expect(placed.every((p) => Math.abs(p.box.x) < 0.01)).toBe(true);
-			// Grain stays along the cloth: a nap allows no turn, plain cloth end for end only.
-			expect(placed.every((p) => (c.directional ? p.turn === 0 : p.turn === 0 || p.turn === 180))).toBe(true);
-			for (const p of placed) expect(p.grainline[0].x).toBeCloseTo(p.grainline[1].x, 6);
-		}
-		const nested = nestFabricEstimate(boxes, pieces, spec, { budgetMs: Infinity, orderings: 2 });
-		expect(nested.efficiency).toBeGreaterThanOrEqual(boxes.efficiency - 1e-12);
-		expect(nested.packedMm).toBeLessThanOrEqual(boxes.packedMm);
-		expect(nested.rounded.mm).toBeGreaterThanOrEqual(nested.lengthMm - 1e-6);
-		if (nested.nested) expect(nested.packedMm).toBeGreaterThanOrEqual(nested.nested.areaBoundMm - 1e-6);
-		// Every cut the boxes made, copies laid head to tail included, is cut from the marker too.
-		const cuts = (e: typeof boxes) => e.placements.reduce((sum, p) => sum + p.yields, 0);
-		expect(cuts(nested)).toBe(cuts(boxes));
-		// Nesting on a busy machine: the first ordering computes every no-fit polygon.
-	}, 30_000);
+		expect(boxes.notes.some((n) => n.startsWith('Waistband: cut in two pieces'))).toBe(true);
+		const band = boxes.placements.find((p) => p.pieceId === 'waistband')!;
+		const item = markerItems(boxes, pieces, spec)!.find((g) => g.item.id === 'waistband')!.item;
+		const box = boundingBox(item.outline);
+		expect(box.height).toBeCloseTo(band.h, 6);
+		expect(box.width).toBeCloseTo(band.w, 6);
+		// The drafted band is longer than the cut half: the marker never lays more than the boxes cut.
+		expect(boundingBox(pieces.find((p) => p.id === 'waistband')!.outline).height).toBeGreaterThan(box.height + 100);
+		// The grain arrow lies along the cloth.
+		expect(item.grainline[0].x).toBeCloseTo(item.grainline[1].x, 6);
+	});
 
 	it('halves the cloth for four skirt gores that interlock end for end (hand check)', () => {
 		// Gores 150 wide at the waist, 350 at the hem, 700 long. Boxes: three across 1150 cm cloth, one below: 1400.
