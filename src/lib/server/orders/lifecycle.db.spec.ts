@@ -2,11 +2,10 @@ import { and, eq, sql } from 'drizzle-orm';
 import PgBoss from 'pg-boss';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { createCommission, createUser, createWorkroom } from '../../../../tests/factories';
-import { awardQuote, createQuote, insertQuote } from '../../../../tests/factories/quotes';
+import { awardQuote, insertQuote } from '../../../../tests/factories/quotes';
 import { createDb } from '../db/client';
-import { auditEvent, commission, notification, order, quote, type OrderStatus } from '../db/schema';
+import { auditEvent, notification, order, type OrderStatus } from '../db/schema';
 import { queueNames } from '../jobs';
-import { reopenAfterCancelledOrder } from '../quotes';
 import {
 	approveFabric,
 	cancel,
@@ -14,7 +13,6 @@ import {
 	declineCancellation,
 	markDelivered,
 	markReady,
-	onUnpaidCancelled,
 	OrderError,
 	postProgress,
 	releaseDue,
@@ -34,7 +32,6 @@ beforeAll(async () => {
 	for (const name of [queueNames.mail, queueNames.orderRelease, queueNames.orderRefund, queueNames.orderAdvance])
 		await boss.createQueue(name, { name, policy: name === queueNames.mail ? 'standard' : 'stately' });
 	await boss.stop({ graceful: false, wait: true });
-	onUnpaidCancelled(reopenAfterCancelledOrder);
 });
 
 type World = { orderId: string; commissionId: string; quoteId: string; customer: OrderActor; tailor: OrderActor };
@@ -191,27 +188,6 @@ describe('the fabric advance', () => {
 });
 
 describe('cancelling', () => {
-	it('cancels an unpaid order at once and opens the commission and the declined quotes again', async () => {
-		const w = await orderIn('awaiting_payment');
-		const rival = await createWorkroom(db);
-		const declined = await createQuote(db, {
-			commissionId: w.commissionId,
-			tailorId: rival.id,
-			status: 'declined',
-			declineReason: 'another quote was accepted'
-		});
-		const done = await cancel(db, { orderId: w.orderId, actor: w.customer, reason: 'Found one ready-made.' });
-		expect(done).toMatchObject({
-			outcome: 'cancelled',
-			order: { status: 'cancelled', cancelReason: 'Found one ready-made.' }
-		});
-		expect((await db.select().from(commission).where(eq(commission.id, w.commissionId)))[0].status).toBe('open');
-		const quotes = await db.select().from(quote).where(eq(quote.commissionId, w.commissionId));
-		expect(quotes.find((q) => q.id === declined.id)?.status).toBe('sent');
-		expect(quotes.find((q) => q.id === w.quoteId)?.status).toBe('declined');
-		expect((await cancel(db, { orderId: w.orderId, actor: w.tailor })).outcome).toBe('unchanged');
-	});
-
 	it('needs both sides for a paid order, and refuses once work has started', async () => {
 		const w = await orderIn('funded');
 		expect((await cancel(db, { orderId: w.orderId, actor: w.customer })).outcome).toBe('requested');
