@@ -8,6 +8,7 @@ export { startCheckout, returnPath, type PayingActor } from './checkout';
 export { handleEvent, stateOf, syncFromSession, syncOrder, type EventOutcome, type PaymentState } from './events';
 export { PaymentError, errorStatus, type PaymentErrorCode } from './errors';
 export { moneyOf, type OrderMoney } from './ledger';
+export { paymentHistory } from './history';
 export * as schemas from './schemas';
 
 /** `GET /api/v1/orders/{id}`: the order with its money as the ledger has it. */
