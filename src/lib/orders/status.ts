@@ -22,7 +22,12 @@ export function orderStatusOf(status: OrderStatus) {
 	return orderStatusLabels[status];
 }
 
-type Facts = { status: OrderStatus; releaseRequested: boolean; alterationRequested: boolean };
+type Facts = {
+	status: OrderStatus;
+	releaseRequested: boolean;
+	refundRequested?: boolean;
+	alterationRequested: boolean;
+};
 
 /**
  * The order's state in plain words and what happens next, for the person looking. One sentence each: the
@@ -31,6 +36,11 @@ type Facts = { status: OrderStatus; releaseRequested: boolean; alterationRequest
 export function statusSentence(facts: Facts, audience: OrderAudience): { now: string; next: string } {
 	const tailor = audience === 'tailor';
 	const customer = audience === 'customer';
+	if (facts.refundRequested && facts.status !== 'refunded')
+		return {
+			now: 'Cancelled by agreement — refund on its way',
+			next: 'The whole payment goes back to the customer’s card; this page shows “refunded” when it has.'
+		};
 	switch (facts.status) {
 		case 'awaiting_payment':
 			return {

@@ -145,13 +145,12 @@ export async function statusChanges(
 	db: Executor,
 	orderId: string,
 	nameOf: (actorId: string | null) => string | null
-): Promise<(StatusChange & { actorId: string | null })[]> {
+): Promise<StatusChange[]> {
 	const history = await audit.historyFor(db, { subjectType: 'order', subjectId: orderId, limit: 200 });
 	return history.reverse().map((entry) => ({
 		id: entry.id,
 		action: entry.action,
 		at: entry.at.toISOString(),
-		actorId: entry.actor?.id ?? null,
 		by: nameOf(entry.actor?.id ?? null),
 		reason: entry.reason
 	}));

@@ -1,5 +1,6 @@
 import * as accounts from '$lib/server/accounts';
 import * as commissions from '$lib/server/commissions';
+import * as fittings from '$lib/server/fittings';
 import * as messages from '$lib/server/messages';
 import * as orders from '$lib/server/orders';
 import * as orderPage from '$lib/server/orders/page';
@@ -11,12 +12,6 @@ import { draftForAwarded } from '../../commissions/[id=uuid]/draft.server';
 
 type Db = App.Locals['db'];
 
-/** Who asked to cancel a paid order and is waiting for the other side to agree, if anyone. */
-function cancelAskedBy(changes: { action: string; actorId: string | null }[], viewerId: string) {
-	const last = changes.findLast((change) => change.action.startsWith('order.cancel'));
-	if (last?.action !== 'order.cancellation_requested') return null;
-	return last.actorId === viewerId ? ('you' as const) : ('other' as const);
-}
 
 /**
  * Everything the order page shows, for its customer, its tailor or an admin; null for anyone else (the same as
@@ -27,14 +22,17 @@ export async function orderPageData(db: Db, { orderId, user }: { orderId: string
 	const found = await orderPage.orderForViewer(db, { orderId, viewer: user });
 	if (!found) return null;
 	const { detail: order, audience } = found;
-	const [view, money, steps, paymentRows, workrooms, threadId, profile] = await Promise.all([
+	const [view, money, steps, paymentRows, workrooms, threadId, profile, fittingsSummary, cancelRequest] =
+		await Promise.all([
 		commissions.getForViewer(db, { id: order.commissionId, viewer: user, unit: user.units }),
 		payments.orderView(db, { orderId, viewer: user }),
 		orderPage.progressSteps(db, orderId),
 		payments.paymentHistory(db, orderId),
 		labelsOf(db, [order.tailorId]),
 		messages.threadIdFor(db, { commissionId: order.commissionId, tailorId: order.tailorId }),
-		accounts.getProfile(db, { id: user.id })
+		accounts.getProfile(db, { id: user.id }),
+		audience === 'admin' ? null : fittings.summaryFor(db, { orderId, actor: user }),
+		order.status === 'funded' ? orders.openCancellationRequest(db, orderId) : null
 	]);
 	const awarded = audience === 'tailor' && view?.viewer === 'awarded' ? view : null;
 	const draft = awarded ? await draftForAwarded(awarded.garment, awarded.measurements) : null;
@@ -64,11 +62,13 @@ export async function orderPageData(db: Db, { orderId, user }: { orderId: string
 		// A conversation is only for the two parties; an admin reads the order, not their messages.
 		threadId: audience === 'admin' ? null : threadId,
 		timeZone: profile?.timeZone ?? 'UTC',
+		fittings: fittingsSummary,
 		steps,
 		rateText: orders.rateText(order.platformFeeBasisPoints),
-		cancelAskedBy: cancelAskedBy(changes, user.id),
+		// A cancellation one side asked for and the other has not answered.
+		cancelAskedBy: cancelRequest ? (cancelRequest.by === audience ? ('you' as const) : ('other' as const)) : null,
 		timeline: orderPage.buildTimeline(
-			{ steps, payments: paymentRows, changes: changes.map(({ actorId: _actorId, ...change }) => change) },
+			{ steps, payments: paymentRows, changes: changes },
 			(change) => statusLine(change.action) !== null
 		),
 		measurements: awarded?.measurements ?? null,
