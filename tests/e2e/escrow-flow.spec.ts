@@ -98,7 +98,9 @@ test('pay, follow the work, book a fitting, deliver, confirm: both see the payme
 	await tailor.getByLabel('Day 1').fill(inDays(6));
 	await tailor.getByLabel('Start 1').fill('10:30');
 	await tailor.getByRole('button', { name: 'Offer these times' }).click();
-	await soon(tailor.getByRole('button', { name: 'Mark as done' }).or(tailor.getByText(/offered/i).first())).toBeVisible();
+	await soon(
+		tailor.getByRole('button', { name: 'Mark as done' }).or(tailor.getByText(/offered/i).first())
+	).toBeVisible();
 
 	await buyer.goto(`/orders/${orderId}`);
 	await expect(buyer.getByTestId('timeline')).toContainText('Cut from the moss linen; pockets next.');

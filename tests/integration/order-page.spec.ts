@@ -73,7 +73,12 @@ async function makeOrder(dueInDays = 30, title = 'Linen wedding waistcoat'): Pro
 	const tailor = await createWorkroom(db);
 	const made = await createCommission(db, { customerId: customer.id, status: 'open', title });
 	const due = new Date(Date.now() + dueInDays * 86_400_000).toISOString().slice(0, 10);
-	const q = await insertQuote(db, { commissionId: made.id, tailorId: tailor.id, priceMinor: 36_000, deliveryDate: due });
+	const q = await insertQuote(db, {
+		commissionId: made.id,
+		tailorId: tailor.id,
+		priceMinor: 36_000,
+		deliveryDate: due
+	});
 	const { orderId } = await awardQuote(db, { commissionId: made.id, quoteId: q.id, customerId: customer.id });
 	const [otherCustomer, otherTailor, admin] = await Promise.all([
 		createUser(db),
@@ -162,7 +167,12 @@ describe('following the work', () => {
 		world = await makeOrder();
 		const paid = await pay(world, TEST_CARDS.success);
 		expect(paid.status).toBe(303);
-		expect(await until(() => statusOf(world.orderId), (s) => s === 'funded')).toBe('funded');
+		expect(
+			await until(
+				() => statusOf(world.orderId),
+				(s) => s === 'funded'
+			)
+		).toBe('funded');
 	});
 
 	it('shows the payment as held, in the timeline and the money', async () => {

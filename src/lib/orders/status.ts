@@ -103,7 +103,10 @@ export function statusSentence(facts: Facts, audience: OrderAudience): { now: st
 		case 'refunded':
 			return { now: 'Refunded', next: 'The payment has gone back to the customer’s card.' };
 		case 'disputed':
-			return { now: 'In dispute — the money stays held', next: 'Tackline is looking into it and will write to you both.' };
+			return {
+				now: 'In dispute — the money stays held',
+				next: 'Tackline is looking into it and will write to you both.'
+			};
 		case 'settled':
 			return { now: 'Settled', next: 'The dispute has been settled and the money split as decided.' };
 	}

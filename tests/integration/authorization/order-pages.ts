@@ -90,9 +90,7 @@ function changedOnlyBy(status: OrderStatus, allowed: ActorName[]) {
 }
 
 /** A page of the order, or one of its form actions: `ok` for whom it is meant, 403 for the other side. */
-function orderAction(
-	expectations: Partial<Pick<Expectations, 'owner' | 'tailor' | 'admin'>>
-): Expectations {
+function orderAction(expectations: Partial<Pick<Expectations, 'owner' | 'tailor' | 'admin'>>): Expectations {
 	return {
 		anonymous: signInRedirect,
 		owner: 403,

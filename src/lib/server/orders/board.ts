@@ -63,8 +63,18 @@ const openStatuses = (Object.keys(columnOfStatus) as OrderStatus[]).filter(
 async function toCards(db: Executor, rows: CardRow[], counterpart: 'customer' | 'tailor'): Promise<OrderCard[]> {
 	const [summaries, names, workrooms] = await Promise.all([
 		commissionSummaries(db, [...new Set(rows.map((row) => row.commissionId))]),
-		counterpart === 'customer' ? namesOf(db, rows.map((row) => row.customerId)) : new Map<string, string | null>(),
-		counterpart === 'tailor' ? labelsOf(db, rows.map((row) => row.tailorId)) : new Map()
+		counterpart === 'customer'
+			? namesOf(
+					db,
+					rows.map((row) => row.customerId)
+				)
+			: new Map<string, string | null>(),
+		counterpart === 'tailor'
+			? labelsOf(
+					db,
+					rows.map((row) => row.tailorId)
+				)
+			: new Map()
 	]);
 	return rows.map((row) => {
 		const summary = summaries.get(row.commissionId);
@@ -155,9 +165,7 @@ export async function boardFor(
 				and(
 					eq(order.tailorId, tailorId),
 					inArray(order.status, finishedStatuses),
-					after
-						? or(lt(order.dueDate, after.d), and(eq(order.dueDate, after.d), lt(order.id, after.i)))
-						: sql`true`
+					after ? or(lt(order.dueDate, after.d), and(eq(order.dueDate, after.d), lt(order.id, after.i))) : sql`true`
 				)
 			)
 			.orderBy(desc(order.dueDate), desc(order.id))
@@ -165,7 +173,13 @@ export async function boardFor(
 	]);
 	const finishedPage = finished.slice(0, finishedPageSize);
 	const cards = await toCards(db, [...open, ...finishedPage], 'customer');
-	const columns: Record<BoardColumn, BoardCard[]> = { to_start: [], in_work: [], ready: [], delivered: [], finished: [] };
+	const columns: Record<BoardColumn, BoardCard[]> = {
+		to_start: [],
+		in_work: [],
+		ready: [],
+		delivered: [],
+		finished: []
+	};
 	for (const card of cards) columns[columnOfStatus[card.status]].push({ ...card, ...dueFlags(card, today) });
 	const active = cards.filter((card) => columnOfStatus[card.status] !== 'finished');
 	const last = finishedPage.at(-1);

@@ -68,15 +68,8 @@ export async function orderForViewer(
 	if (!row) return null;
 	const audience = audienceOf(row, viewer);
 	if (!audience) return null;
-	const {
-		deliveryMethod,
-		trackingReference,
-		deliveryNote,
-		alterationRequestedAt,
-		alterationNote,
-		createdAt,
-		...rest
-	} = row;
+	const { deliveryMethod, trackingReference, deliveryNote, alterationRequestedAt, alterationNote, createdAt, ...rest } =
+		row;
 	const detail: OrderDetail = {
 		...rest,
 		createdAt: createdAt.toISOString(),
@@ -161,11 +154,7 @@ export async function statusChanges(
  * another entry already tells (a payment, a progress post) are left out by `keepChange`.
  */
 export function buildTimeline(
-	{
-		steps,
-		payments,
-		changes
-	}: { steps: ProgressStepView[]; payments: PaymentHistoryItem[]; changes: StatusChange[] },
+	{ steps, payments, changes }: { steps: ProgressStepView[]; payments: PaymentHistoryItem[]; changes: StatusChange[] },
 	keepChange: (change: StatusChange) => boolean = () => true
 ): TimelineItem[] {
 	const items: TimelineItem[] = [

@@ -14,7 +14,17 @@ import type { Actions, PageServerLoad, RequestEvent } from './$types';
 /** The confirmation a link asked for (`?ask=confirm`): anything else reads as none. */
 const askSchema = z.enum(['confirm', 'cancel']).optional().catch(undefined);
 const doneSchema = z
-	.enum(['progress', 'ready', 'delivered', 'confirmed', 'alteration', 'fabric', 'cancelled', 'cancel-asked', 'cancel-declined'])
+	.enum([
+		'progress',
+		'ready',
+		'delivered',
+		'confirmed',
+		'alteration',
+		'fabric',
+		'cancelled',
+		'cancel-asked',
+		'cancel-declined'
+	])
 	.optional()
 	.catch(undefined);
 

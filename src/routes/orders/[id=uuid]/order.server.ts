@@ -12,7 +12,6 @@ import { draftForAwarded } from '../../commissions/[id=uuid]/draft.server';
 
 type Db = App.Locals['db'];
 
-
 /**
  * Everything the order page shows, for its customer, its tailor or an admin; null for anyone else (the same as
  * for a missing order). Each area answers for its own part: the order and its progress, the money and the
@@ -24,16 +23,16 @@ export async function orderPageData(db: Db, { orderId, user }: { orderId: string
 	const { detail: order, audience } = found;
 	const [view, money, steps, paymentRows, workrooms, threadId, profile, fittingsSummary, cancelRequest] =
 		await Promise.all([
-		commissions.getForViewer(db, { id: order.commissionId, viewer: user, unit: user.units }),
-		payments.orderView(db, { orderId, viewer: user }),
-		orderPage.progressSteps(db, orderId),
-		payments.paymentHistory(db, orderId),
-		labelsOf(db, [order.tailorId]),
-		messages.threadIdFor(db, { commissionId: order.commissionId, tailorId: order.tailorId }),
-		accounts.getProfile(db, { id: user.id }),
-		audience === 'admin' ? null : fittings.summaryFor(db, { orderId, actor: user }),
-		order.status === 'funded' ? orders.openCancellationRequest(db, orderId) : null
-	]);
+			commissions.getForViewer(db, { id: order.commissionId, viewer: user, unit: user.units }),
+			payments.orderView(db, { orderId, viewer: user }),
+			orderPage.progressSteps(db, orderId),
+			payments.paymentHistory(db, orderId),
+			labelsOf(db, [order.tailorId]),
+			messages.threadIdFor(db, { commissionId: order.commissionId, tailorId: order.tailorId }),
+			accounts.getProfile(db, { id: user.id }),
+			audience === 'admin' ? null : fittings.summaryFor(db, { orderId, actor: user }),
+			order.status === 'funded' ? orders.openCancellationRequest(db, orderId) : null
+		]);
 	const awarded = audience === 'tailor' && view?.viewer === 'awarded' ? view : null;
 	const draft = awarded ? await draftForAwarded(awarded.garment, awarded.measurements) : null;
 	const workroom = workrooms.get(order.tailorId) ?? null;
