@@ -1,7 +1,7 @@
 import { and, asc, desc, eq, inArray, lt, or, sql } from 'drizzle-orm';
 import { z } from 'zod';
 import type { OrderStatus } from '$lib/types/order';
-import type { BoardCard, BoardColumn, OrderCard } from '$lib/types/order-page';
+import type { BoardCard, BoardColumn, OrderCard, WorkroomLabel } from '$lib/types/order-page';
 import { namesOf } from '../accounts/names';
 import { firstNameAndInitial } from '../commissions';
 import { commissionSummaries } from '../commissions/for-quoting';

@@ -56,7 +56,8 @@ function refused(action: ActionName, cause: unknown, values: Record<string, stri
 		return fail(orders.orderErrorStatus[cause.code], { action, values, errors });
 	}
 	const photo = photoErrorMessage(cause);
-	return fail(photo.status, { action, values, errors: { photo: [photo.message] } as FieldErrors });
+	const errors: FieldErrors = { photo: [photo.message] };
+	return fail(photo.status, { action, values, errors });
 }
 
 /** Reads and checks a small form; a failure keeps what was typed. */
