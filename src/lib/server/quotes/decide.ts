@@ -123,6 +123,7 @@ export async function accept(
 				priceMinor: q.priceMinor,
 				currency: q.currency,
 				dueDate: q.deliveryDate,
+				advanceMinor: q.advanceMinor,
 				actor
 			});
 			await tx.update(quote).set({ status: 'accepted', decidedAt: now, updatedAt: now }).where(eq(quote.id, q.id));
