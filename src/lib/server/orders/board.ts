@@ -74,7 +74,7 @@ async function toCards(db: Executor, rows: CardRow[], counterpart: 'customer' | 
 					db,
 					rows.map((row) => row.tailorId)
 				)
-			: new Map()
+			: new Map<string, WorkroomLabel>()
 	]);
 	return rows.map((row) => {
 		const summary = summaries.get(row.commissionId);
