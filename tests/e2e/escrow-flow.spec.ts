@@ -14,7 +14,7 @@ const soon = expect.configure({ timeout: 30_000 });
 const inDays = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
 
 /**
- * A fresh customer's accepted quote (€240.00) with the demo tailor, whose payouts the seed set up at the
+ * A fresh customer's accepted quote (€240) with the demo tailor, whose payouts the seed set up at the
  * processor stand-in, made straight in the browser tests' database.
  */
 async function unpaidOrder() {
@@ -65,7 +65,7 @@ test('pay, follow the work, book a fitting, deliver, confirm: both see the payme
 	await buyer.getByRole('link', { name: title }).click();
 	await expect(buyer.getByRole('heading', { level: 1, name: title })).toBeVisible();
 	await expect(buyer.getByTestId('order-status')).toHaveText('Awaiting payment');
-	await buyer.getByRole('button', { name: 'Pay now · €240.00' }).click();
+	await buyer.getByRole('button', { name: 'Pay now · €240' }).click();
 	await soon(buyer.getByLabel('Card number')).toBeVisible();
 	await buyer.getByLabel('Card number').fill('4000 0000 0000 0002');
 	await buyer.getByRole('button', { name: /^Pay / }).click();
@@ -76,7 +76,7 @@ test('pay, follow the work, book a fitting, deliver, confirm: both see the payme
 	await expect(buyer.getByText('The last card attempt did not go through')).toBeVisible();
 	await expect(buyer.getByText(/declined/i).first()).toBeVisible();
 
-	await buyer.getByRole('button', { name: 'Try again · €240.00' }).click();
+	await buyer.getByRole('button', { name: 'Try again · €240' }).click();
 	await soon(buyer.getByLabel('Card number')).toBeVisible();
 	await buyer.getByLabel('Card number').fill('4242 4242 4242 4242');
 	await buyer.getByRole('button', { name: /^Pay / }).click();
@@ -130,4 +130,10 @@ test('pay, follow the work, book a fitting, deliver, confirm: both see the payme
 	await expect(buyer.getByTestId('ledger')).toContainText('Released to the workroom');
 	await waitForStatus(tailor, orderId, /Released — the workroom has been paid/);
 	await expect(tailor.getByTestId('timeline')).toContainText('Payment released to the workroom');
+
+	// The page fits a small phone without sideways scrolling.
+	await buyer.setViewportSize({ width: 360, height: 740 });
+	await buyer.goto(`/orders/${orderId}`);
+	const overflow = await buyer.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+	expect(overflow).toBeLessThanOrEqual(0);
 });
