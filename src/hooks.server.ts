@@ -12,6 +12,7 @@ import { limitPublicApi } from '$lib/server/limits/handle';
 import { queueNames } from '$lib/server/jobs/names';
 import { startJobs, stopJobs } from '$lib/server/jobs/runner';
 import * as commissions from '$lib/server/commissions';
+import * as fittings from '$lib/server/fittings';
 import * as mail from '$lib/server/mail';
 import * as quotes from '$lib/server/quotes';
 import * as messages from '$lib/server/messages';
@@ -27,7 +28,8 @@ export const init: ServerInit = async () => {
 		[queueNames.commissionExpiry]: async () => void (await commissions.expireDue(db)),
 		[queueNames.quoteLapse]: async () => void (await quotes.lapseDue(db)),
 		[queueNames.messageDigest]: async () => void (await messages.sendDigests(db)),
-		[queueNames.searchSync]: async () => void (await search.syncOutbox(db))
+		[queueNames.searchSync]: async () => void (await search.syncOutbox(db)),
+		[queueNames.fittingReminder]: async () => void (await fittings.sendDueReminders(db))
 	});
 	void mail.relayStatus(); // warm the health check's cache
 	// A search engine that lost its data (or a first start) is rebuilt by the first sync run.

@@ -10,7 +10,9 @@ export const queueNames = {
 	/** Every minute: one mail per person about messages that have waited unread for 15 minutes. */
 	messageDigest: 'message-digest',
 	/** Drains the search outbox into the indexes; every minute too, so the index catches up after an outage. */
-	searchSync: 'search-sync'
+	searchSync: 'search-sync',
+	/** Every ten minutes: the day-before reminder for each booked fitting starting within 24 hours, once. */
+	fittingReminder: 'fitting-reminder'
 } as const;
 
 export type QueueName = (typeof queueNames)[keyof typeof queueNames];

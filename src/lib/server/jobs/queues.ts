@@ -68,6 +68,12 @@ export function queueDefinitions(): QueueDefinition[] {
 				expireInSeconds: 300
 			},
 			cron: { expression: '* * * * *' }
+		},
+		{
+			name: queueNames.fittingReminder,
+			// One run at a time; each fitting is stamped in the transaction that queues its reminder, so it goes once.
+			options: { policy: 'singleton', retryLimit: 3, retryDelay: 60, expireInSeconds: 300 },
+			cron: { expression: '*/10 * * * *' }
 		}
 	];
 }
