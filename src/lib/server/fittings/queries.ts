@@ -8,12 +8,14 @@ import {
 	fittingStatuses,
 	fittingsHref,
 	orderFor,
+	noSuchFitting,
 	partyForFitting,
 	placeText,
 	type Actor,
 	type OrderContext,
 	type Side
 } from './context';
+import { FittingError } from './errors';
 import { calendarFile, whenLines } from './notices';
 import { changeableUntil } from './transitions';
 import { minutesBetween, wallClockIn } from './time';
@@ -137,9 +139,15 @@ export async function getForParty(
 }
 
 /** The `.ics` of a fitting for one of its parties: REQUEST while booked, CANCEL once a booking was cancelled. */
-export async function calendarForParty(db: Executor, { fittingId, actor }: { fittingId: string; actor: Actor }) {
+export async function calendarForParty(
+	db: Executor,
+	{ fittingId, orderId, actor }: { fittingId: string; orderId?: string; actor: Actor }
+) {
 	const { order } = await partyForFitting(db, fittingId, actor);
+	if (orderId && order.id !== orderId) throw noSuchFitting();
 	const [row] = await db.select().from(fitting).where(eq(fitting.id, fittingId));
+	// An open time has nothing to put in a calendar until it is booked.
+	if (row.status === 'proposed') throw new FittingError('not_found', 'This time is not booked.');
 	const ctx = await contextOf(db, order);
 	return calendarFile(db, row, ctx);
 }
