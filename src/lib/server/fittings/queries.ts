@@ -1,4 +1,5 @@
 import { and, asc, eq, inArray } from 'drizzle-orm';
+import type { FittingsSummary } from '$lib/types/fittings';
 import type { Executor } from '../db';
 import { fitting, type Fitting } from '../db/schema';
 import * as orders from '../orders';
@@ -152,15 +153,6 @@ export async function calendarForParty(
 	return calendarFile(db, row, ctx);
 }
 
-export type FittingsSummary = {
-	href: string;
-	/** The next booked fitting still ahead, with its times for the viewer. */
-	next: { when: string[]; place: string } | null;
-	/** Times offered and still open to book. */
-	openCount: number;
-	active: boolean;
-	side: Side;
-};
 
 /** What the order page shows about fittings: the next booked one and how many times are open. Null for non-parties. */
 export async function summaryFor(

@@ -47,18 +47,21 @@ export const load: PageServerLoad = async ({ params, locals, url, getClientAddre
 	};
 };
 
+function changeFailure(status: number, fittingId: string, message: string, reason?: string) {
+	return fail(status, { change: { fittingId, message, errors: { reason } } });
+}
+
 /** A refused change as a form failure the page shows beside the fitting it was about. */
 function refused(problem: unknown, fittingId: string) {
 	if (!(problem instanceof fittings.FittingError)) throw problem;
 	if (problem.code === 'not_found') notFound();
-	return fail(fittings.errorStatus[problem.code], {
-		change: { fittingId, message: problem.message, errors: { reason: problem.issues.find((i) => i.path === 'reason')?.message } }
-	});
+	const reason = problem.issues.find((i) => i.path === 'reason')?.message;
+	return changeFailure(fittings.errorStatus[problem.code], fittingId, problem.message, reason);
 }
 
 async function readFittingForm(request: Request) {
 	const body = await readForm(request);
-	if (!body.ok) return { failure: fail(body.status, { change: { fittingId: '', message: body.errors.form?.[0] ?? '', errors: {} } }) };
+	if (!body.ok) return { failure: changeFailure(body.status, '', body.errors.form?.[0] ?? '') };
 	const parsed = parseForm(fittingField, body.data);
 	if (!parsed.ok) notFound();
 	return { data: body.data, fittingId: parsed.data.fittingId };
@@ -113,10 +116,7 @@ export const actions: Actions = {
 		const form = await readFittingForm(request);
 		if (form.failure) return form.failure;
 		const parsed = parseForm(fittings.cancelForm, form.data);
-		if (!parsed.ok)
-			return fail(400, {
-				change: { fittingId: form.fittingId, message: 'Check the reason.', errors: { reason: parsed.errors.reason?.[0] } }
-			});
+		if (!parsed.ok) return changeFailure(400, form.fittingId, 'Check the reason.', parsed.errors.reason?.[0]);
 		try {
 			await fittings.cancel(locals.db, {
 				fittingId: form.fittingId,
