@@ -8,9 +8,9 @@ export {
 	calendarForParty,
 	summaryFor,
 	type FittingView,
-	type FittingsPage,
-	type FittingsSummary
+	type FittingsPage
 } from './queries';
+export type { FittingsSummary } from '$lib/types/fittings';
 export { sendDueReminders } from './reminders';
 export { fittingCalendar, fittingUid } from './ics';
 export { fittingJson, fittingResponse, fittingListResponse, type FittingJson } from './response-schemas';

@@ -1,4 +1,5 @@
 import { and, asc, eq, inArray } from 'drizzle-orm';
+import type { FittingsSummary } from '$lib/types/fittings';
 import type { Executor } from '../db';
 import { fitting, type Fitting } from '../db/schema';
 import * as orders from '../orders';
@@ -8,12 +9,14 @@ import {
 	fittingStatuses,
 	fittingsHref,
 	orderFor,
+	noSuchFitting,
 	partyForFitting,
 	placeText,
 	type Actor,
 	type OrderContext,
 	type Side
 } from './context';
+import { FittingError } from './errors';
 import { calendarFile, whenLines } from './notices';
 import { changeableUntil } from './transitions';
 import { minutesBetween, wallClockIn } from './time';
@@ -137,22 +140,19 @@ export async function getForParty(
 }
 
 /** The `.ics` of a fitting for one of its parties: REQUEST while booked, CANCEL once a booking was cancelled. */
-export async function calendarForParty(db: Executor, { fittingId, actor }: { fittingId: string; actor: Actor }) {
+export async function calendarForParty(
+	db: Executor,
+	{ fittingId, orderId, actor }: { fittingId: string; orderId?: string; actor: Actor }
+) {
 	const { order } = await partyForFitting(db, fittingId, actor);
+	if (orderId && order.id !== orderId) throw noSuchFitting();
 	const [row] = await db.select().from(fitting).where(eq(fitting.id, fittingId));
+	// An open time has nothing to put in a calendar until it is booked.
+	if (row.status === 'proposed') throw new FittingError('not_found', 'This time is not booked.');
 	const ctx = await contextOf(db, order);
 	return calendarFile(db, row, ctx);
 }
 
-export type FittingsSummary = {
-	href: string;
-	/** The next booked fitting still ahead, with its times for the viewer. */
-	next: { when: string[]; place: string } | null;
-	/** Times offered and still open to book. */
-	openCount: number;
-	active: boolean;
-	side: Side;
-};
 
 /** What the order page shows about fittings: the next booked one and how many times are open. Null for non-parties. */
 export async function summaryFor(
