@@ -93,7 +93,7 @@ test('pay, follow the work, book a fitting, deliver, confirm: both see the payme
 	await expect(tailor.getByTestId('order-status')).toHaveText(/In work/);
 
 	// The tailor offers a fitting; the customer sees the step and books the time.
-	await tailor.getByRole('link', { name: 'Offer and manage fittings' }).click();
+	await tailor.getByRole('link', { name: 'Offer times and see all fittings' }).click();
 	await soon(tailor.getByLabel('Day 1')).toBeVisible();
 	await tailor.getByLabel('Day 1').fill(inDays(6));
 	await tailor.getByLabel('Start 1').fill('10:30');
@@ -104,9 +104,9 @@ test('pay, follow the work, book a fitting, deliver, confirm: both see the payme
 
 	await buyer.goto(`/orders/${orderId}`);
 	await expect(buyer.getByTestId('timeline')).toContainText('Cut from the moss linen; pockets next.');
-	await buyer.getByRole('link', { name: 'See fittings' }).click();
+	await buyer.getByRole('link', { name: 'See all fittings' }).click();
 	await buyer.getByRole('button', { name: 'Book this time' }).first().click();
-	await soon(buyer.getByText(/booked/i).first()).toBeVisible();
+	await soon(buyer.getByText(/^Booked\. The calendar file/)).toBeVisible();
 	await buyer.goto(`/orders/${orderId}`);
 	await expect(buyer.getByRole('region', { name: 'Fittings' })).toContainText('Next fitting');
 
