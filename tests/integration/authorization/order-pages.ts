@@ -82,10 +82,10 @@ function changedOnlyBy(status: OrderStatus, allowed: ActorName[]) {
 			.from(progressStep)
 			.where(eq(progressStep.orderId, orderId));
 		const allowedIds = allowed.map((name) => cast[name].id);
-		for (const event of events.filter((e) => e.action !== 'order.created'))
-			expect(allowedIds, `${event.action} by someone not allowed`).toContain(event.actorId);
+		const changes = events.filter((e) => e.action !== 'order.created');
+		for (const event of changes) expect(allowedIds, `${event.action} by someone not allowed`).toContain(event.actorId);
 		for (const step of steps) expect(allowedIds).toContain(step.by);
-		if (events.length <= 1) expect(row.status).toBe(status);
+		if (changes.length === 0) expect(row.status).toBe(status);
 	};
 }
 
