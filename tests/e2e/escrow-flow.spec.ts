@@ -86,7 +86,7 @@ test('pay, follow the work, book a fitting, deliver, confirm: both see the payme
 	// The tailor posts progress from the order page.
 	await tailor.goto(`/orders/${orderId}`);
 	await expect(tailor.getByTestId('order-status')).toHaveText(/Paid — held by Tackline/);
-	await tailor.getByLabel('Step').selectOption({ label: 'Cut' });
+	await tailor.getByLabel('Step', { exact: true }).selectOption({ label: 'Cut' });
 	await tailor.getByLabel(/Note for the customer/).fill('Cut from the moss linen; pockets next.');
 	await tailor.getByRole('button', { name: 'Post this step' }).click();
 	await soon(tailor.getByTestId('timeline')).toContainText('Cut from the moss linen; pockets next.');
@@ -113,7 +113,7 @@ test('pay, follow the work, book a fitting, deliver, confirm: both see the payme
 	// The tailor hands it over at the workroom.
 	await tailor.goto(`/orders/${orderId}`);
 	await tailor.getByLabel('Picked up at the workroom').check();
-	await tailor.getByLabel(/^Note/).fill('Collected at the workroom on Fore Street.');
+	await tailor.getByLabel(/^Note \(pickup address/).fill('Collected at the workroom on Fore Street.');
 	await tailor.getByRole('button', { name: 'Mark delivered' }).click();
 	await soon(tailor.getByText('Marked delivered. The customer has been told.')).toBeVisible();
 
