@@ -106,7 +106,7 @@ test('pay, follow the work, book a fitting, deliver, confirm: both see the payme
 	await expect(buyer.getByTestId('timeline')).toContainText('Cut from the moss linen; pockets next.');
 	await buyer.getByRole('link', { name: 'See all fittings' }).click();
 	await buyer.getByRole('button', { name: 'Book this time' }).first().click();
-	await soon(buyer.getByText(/^Booked\. The calendar file/)).toBeVisible();
+	await soon(buyer.getByRole('status').filter({ hasText: 'Booked. The calendar file' })).toBeVisible();
 	await buyer.goto(`/orders/${orderId}`);
 	await expect(buyer.getByRole('region', { name: 'Fittings' })).toContainText('Next fitting');
 
