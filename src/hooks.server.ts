@@ -12,6 +12,7 @@ import { limitPublicApi } from '$lib/server/limits/handle';
 import { queueNames } from '$lib/server/jobs/names';
 import { startJobs, stopJobs } from '$lib/server/jobs/runner';
 import * as commissions from '$lib/server/commissions';
+import * as fittings from '$lib/server/fittings';
 import * as mail from '$lib/server/mail';
 import * as orders from '$lib/server/orders';
 import * as payments from '$lib/server/payments';
@@ -35,7 +36,8 @@ export const init: ServerInit = async () => {
 		[queueNames.orderRelease]: (data: { orderId: string }) => payments.runRelease(db, data),
 		[queueNames.orderRefund]: (data: { orderId: string }) => payments.runRefund(db, data),
 		[queueNames.orderAdvance]: (data: { orderId: string }) => payments.runAdvance(db, data),
-		[queueNames.orderAutoRelease]: async () => void (await orders.releaseDue(db))
+		[queueNames.orderAutoRelease]: async () => void (await orders.releaseDue(db)),
+		[queueNames.fittingReminder]: async () => void (await fittings.sendDueReminders(db))
 	});
 	void mail.relayStatus(); // warm the health check's cache
 	// A search engine that lost its data (or a first start) is rebuilt by the first sync run.

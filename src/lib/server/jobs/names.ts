@@ -18,7 +18,9 @@ export const queueNames = {
 	/** Transfers an order's materials advance once the customer approved the fabric; retried likewise. */
 	orderAdvance: 'order-advance',
 	/** Every few minutes: delivered orders whose release clock has run out are released. */
-	orderAutoRelease: 'order-auto-release'
+	orderAutoRelease: 'order-auto-release',
+	/** Every ten minutes: the day-before reminder for each booked fitting starting within 24 hours, once. */
+	fittingReminder: 'fitting-reminder'
 } as const;
 
 export type QueueName = (typeof queueNames)[keyof typeof queueNames];

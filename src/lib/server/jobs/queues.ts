@@ -89,6 +89,12 @@ export function queueDefinitions(): QueueDefinition[] {
 			// One run at a time; each order is released in its own transaction, at most once.
 			options: { policy: 'singleton', retryLimit: 3, retryDelay: 60, expireInSeconds: 300 },
 			cron: { expression: '*/5 * * * *' }
+		},
+		{
+			name: queueNames.fittingReminder,
+			// One run at a time; each fitting is stamped in the transaction that queues its reminder, so it goes once.
+			options: { policy: 'singleton', retryLimit: 3, retryDelay: 60, expireInSeconds: 300 },
+			cron: { expression: '*/10 * * * *' }
 		}
 	];
 }

@@ -13,6 +13,8 @@ import type {
 import type { PhotoView, PortfolioItemView } from '$lib/types/photos';
 import type { CommissionView } from '../commissions';
 import type { commissionResponse } from '../commissions/response-schemas';
+import type { FittingJson } from '../fittings';
+import type { fittingListResponse, fittingResponse } from '../fittings/response-schemas';
 import type { HealthReport } from '../health';
 import type { list as listMessages, markRead, post as postMessage, threadsFor } from '../messages';
 import type { markedResponse, messageDto, messagePage, threadPage } from '../messages/response-schemas';
@@ -102,6 +104,8 @@ export type Conformance = [
 	Assert<Fits<{ items: QuoteJson[] }, typeof quoteListResponse>>,
 	Assert<Fits<Awaited<ReturnType<typeof accept>>, typeof acceptResponse>>,
 	Assert<Fits<OrderView, typeof orderResponse>>,
+	Assert<Fits<FittingJson, typeof fittingResponse>>,
+	Assert<Fits<{ items: FittingJson[]; cutoffHours: number }, typeof fittingListResponse>>,
 	Assert<Fits<{ url: Awaited<ReturnType<typeof startCheckout>>['url'] }, typeof checkoutResponse>>,
 	Assert<Fits<{ received: true; outcome: EventOutcome }, typeof webhookResponse>>,
 	Assert<Fits<ReturnType<typeof commissionItem>, typeof nearbyCommissionResponse>>,

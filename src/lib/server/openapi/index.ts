@@ -3,6 +3,7 @@ import { buildDocument, type Area, type OpenApiDocument } from './registry';
 import { docsView } from './view';
 import { commissionsArea } from './paths/commissions';
 import { draftingArea } from './paths/drafting';
+import { fittingsArea } from './paths/fittings';
 import { messagesArea } from './paths/messages';
 import { paymentsArea } from './paths/payments';
 import { placesArea } from './paths/places';
@@ -21,6 +22,7 @@ export const areas: readonly Area[] = [
 	commissionsArea,
 	quotesArea,
 	paymentsArea,
+	fittingsArea,
 	messagesArea,
 	workroomsArea,
 	searchArea,

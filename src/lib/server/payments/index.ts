@@ -9,6 +9,7 @@ export { startCheckout, returnPath, type PayingActor } from './checkout';
 export { handleEvent, stateOf, syncFromSession, syncOrder, type EventOutcome, type PaymentState } from './events';
 export { PaymentError, errorStatus, type PaymentErrorCode } from './errors';
 export { moneyOf, type OrderMoney } from './ledger';
+export { paymentHistory } from './history';
 export { runAdvance } from './advance';
 export { runRefund } from './refund';
 export { runRelease } from './release';
