@@ -43,7 +43,14 @@ export type FittingView = {
 	/** Proposed and still ahead; `bookable` only while before the cut-off. */
 	open: boolean;
 	upcoming: boolean;
-	can: { book: boolean; cancel: boolean; withdraw: boolean; cancelBooking: boolean; markDone: boolean; calendar: boolean };
+	can: {
+		book: boolean;
+		cancel: boolean;
+		withdraw: boolean;
+		cancelBooking: boolean;
+		markDone: boolean;
+		calendar: boolean;
+	};
 };
 
 export type FittingsPage = {
@@ -95,7 +102,8 @@ function view(row: Fitting, ctx: OrderContext, side: Side, now: Date, cutoffHour
 			withdraw: side === 'tailor' && row.status === 'proposed',
 			cancelBooking: side === 'tailor' && row.status === 'confirmed',
 			markDone: side === 'tailor' && row.status === 'confirmed' && !upcoming,
-			calendar: row.status === 'confirmed' || row.status === 'done' || (row.status === 'cancelled' && row.bookedAt !== null)
+			calendar:
+				row.status === 'confirmed' || row.status === 'done' || (row.status === 'cancelled' && row.bookedAt !== null)
 		}
 	};
 }
@@ -152,7 +160,6 @@ export async function calendarForParty(
 	const ctx = await contextOf(db, order);
 	return calendarFile(db, row, ctx);
 }
-
 
 /** What the order page shows about fittings: the next booked one and how many times are open. Null for non-parties. */
 export async function summaryFor(
