@@ -43,6 +43,8 @@ export type FittingView = {
 	/** Proposed and still ahead; `bookable` only while before the cut-off. */
 	open: boolean;
 	upcoming: boolean;
+	/** Still ahead but inside the cut-off: the customer can no longer book, move or cancel it online. */
+	pastCutoff: boolean;
 	can: {
 		book: boolean;
 		cancel: boolean;
@@ -96,6 +98,7 @@ function view(row: Fitting, ctx: OrderContext, side: Side, now: Date, cutoffHour
 		when: whenLines(row, me, other),
 		open: row.status === 'proposed' && upcoming,
 		upcoming,
+		pastCutoff: upcoming && !beforeCutoff && (row.status === 'proposed' || row.status === 'confirmed'),
 		can: {
 			book: side === 'customer' && active && row.status === 'proposed' && beforeCutoff,
 			cancel: side === 'customer' && row.status === 'confirmed' && upcoming && beforeCutoff,
