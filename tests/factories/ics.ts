@@ -6,7 +6,10 @@ export type IcsProperty = { name: string; params: Record<string, string>; value:
 export type IcsComponent = { type: string; properties: IcsProperty[]; components: IcsComponent[] };
 
 export function parseIcs(text: string): IcsComponent {
-	const lines = text.replace(/\r\n[ \t]/g, '').split(/\r\n/).filter(Boolean);
+	const lines = text
+		.replace(/\r\n[ \t]/g, '')
+		.split(/\r\n/)
+		.filter(Boolean);
 	const root: IcsComponent = { type: 'ROOT', properties: [], components: [] };
 	const stack = [root];
 	for (const line of lines) {

@@ -136,8 +136,14 @@ describe('moving and cancelling up to the cut-off', () => {
 		const bare = await callJson(tailor, 'POST', `/api/v1/fittings/${b.id}/cancel`);
 		expect(bare.status).toBe(400);
 		expect(bare.body.error.issues).toEqual([{ path: 'reason', message: 'Give a reason: the customer is told.' }]);
-		const cancelled = await callJson(tailor, 'POST', `/api/v1/fittings/${b.id}/cancel`, { reason: 'The cloth is late' });
-		expect(cancelled.body).toMatchObject({ status: 'cancelled', cancelledBy: 'tailor', cancelReason: 'The cloth is late' });
+		const cancelled = await callJson(tailor, 'POST', `/api/v1/fittings/${b.id}/cancel`, {
+			reason: 'The cloth is late'
+		});
+		expect(cancelled.body).toMatchObject({
+			status: 'cancelled',
+			cancelledBy: 'tailor',
+			cancelReason: 'The cloth is late'
+		});
 		const told = await waitForMail(o.customer.email, { subject: undefined });
 		expect(told).toBeTruthy();
 		const notices = (await settledMailTo(o.customer.email)).filter((m) => m.subject.startsWith('Fitting cancelled'));
@@ -169,7 +175,10 @@ describe('input', () => {
 			slots: [{ start: londonStart(9), durationMinutes: 30, placeKind: 'public_place' }]
 		});
 		expect(nowhere.body.error.issues[0].path).toBe('slots.0.address');
-		const zone = await callJson(tailor, 'POST', url, { timeZone: 'Mars/Olympus', slots: [{ start: londonStart(9), durationMinutes: 30 }] });
+		const zone = await callJson(tailor, 'POST', url, {
+			timeZone: 'Mars/Olympus',
+			slots: [{ start: londonStart(9), durationMinutes: 30 }]
+		});
 		expect(zone.body.error.issues[0].path).toBe('timeZone');
 		const past = await callJson(tailor, 'POST', url, { slots: [{ start: londonStart(-1), durationMinutes: 30 }] });
 		expect(past.status).toBe(400);

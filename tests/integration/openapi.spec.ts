@@ -9,6 +9,7 @@ import addFormats from 'ajv-formats';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createCommission, createMeasurementProfile, createUser, createWorkroom, type Person } from '../factories';
 import { solid } from '../factories/images';
+import { createFundedOrder } from '../factories/fittings';
 import { awardQuote, createQuotingWorkroom, insertQuote } from '../factories/quotes';
 import { openThread } from '../../src/lib/server/messages/threads';
 import { searchOutbox } from '../../src/lib/server/db/schema';
@@ -446,6 +447,33 @@ describe('real answers fit the documented schemas', () => {
 			received: true,
 			outcome: 'ignored'
 		});
+	});
+
+	it('fittings: offered, listed, booked, refused too late, cancelled and done', async () => {
+		const o = await createFundedOrder(db, { tailorZone: 'Europe/London', customerZone: 'Asia/Tokyo' });
+		const tailor = await signedIn({ ...o.tailor, role: 'tailor', name: '' });
+		const customer = await signedIn({ ...o.customer, role: 'customer', name: '' });
+		const path = '/api/v1/orders/{id}/fittings';
+		const start = new Date(Date.now() + 5 * 86_400_000).toISOString().slice(0, 10) + 'T11:00';
+		const offered = await tailor.json('POST', `/api/v1/orders/${o.orderId}/fittings`, {
+			timeZone: 'Europe/London',
+			slots: [{ start, durationMinutes: 30, placeKind: 'public_place', address: 'Harbour Library, Quay Street' }]
+		});
+		expect(offered.status).toBe(201);
+		const { items } = (await expectDocumented(offered, 'POST', path)) as { items: { id: string }[] };
+		await expectDocumented(await customer.json('GET', `/api/v1/orders/${o.orderId}/fittings`), 'GET', path);
+		const booked = await customer.json('POST', `/api/v1/fittings/${items[0].id}/book`);
+		expect(booked.status).toBe(200);
+		await expectDocumented(booked, 'POST', '/api/v1/fittings/{id}/book');
+		const wrongRole = await tailor.json('POST', `/api/v1/fittings/${items[0].id}/book`);
+		expect(wrongRole.status).toBe(403);
+		await expectDocumented(wrongRole, 'POST', '/api/v1/fittings/{id}/book');
+		const notYet = await tailor.json('POST', `/api/v1/fittings/${items[0].id}/done`);
+		expect(notYet.status).toBe(409);
+		await expectDocumented(notYet, 'POST', '/api/v1/fittings/{id}/done');
+		const cancelled = await tailor.json('POST', `/api/v1/fittings/${items[0].id}/cancel`, { reason: 'Unwell' });
+		expect(cancelled.status).toBe(200);
+		await expectDocumented(cancelled, 'POST', '/api/v1/fittings/{id}/cancel');
 	});
 
 	it('errors: 400, 401, 403, 404 and 415 carry the documented error body', async () => {

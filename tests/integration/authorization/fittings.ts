@@ -75,7 +75,7 @@ export const fittingRows: Row<Arranged>[] = [
 			client.json('POST', `/api/v1/orders/${orderId}/fittings`, {
 				slots: [{ start: '2031-05-06T10:00', durationMinutes: 30 }]
 			}),
-		expect: { ...partiesOnly(403), otherCustomer: 403, tailor: 201, tailorOnboarding: 404 },
+		expect: { ...partiesOnly(403), otherCustomer: 403, tailor: 201, tailorOnboarding: 404, admin: 403 },
 		unchanged: async ({ db }, { orderId }) => {
 			const rows = await db.select({ id: fitting.id }).from(fitting).where(eq(fitting.orderId, orderId));
 			expect(rows).toHaveLength(1);
@@ -85,7 +85,7 @@ export const fittingRows: Row<Arranged>[] = [
 		name: 'POST /api/v1/fittings/{id}/book',
 		arrange: withFitting('proposed'),
 		send: (client, { fittingId }) => client.json('POST', `/api/v1/fittings/${fittingId}/book`),
-		expect: { ...partiesOnly(403), owner: 200, otherCustomer: 404, tailorOnboarding: 403 },
+		expect: { ...partiesOnly(403), owner: 200, otherCustomer: 404, tailorOnboarding: 403, admin: 403 },
 		unchanged
 	},
 	{
@@ -100,7 +100,7 @@ export const fittingRows: Row<Arranged>[] = [
 		name: 'POST /api/v1/fittings/{id}/done',
 		arrange: withFitting('confirmed', -1),
 		send: (client, { fittingId }) => client.json('POST', `/api/v1/fittings/${fittingId}/done`),
-		expect: { ...partiesOnly(403), otherCustomer: 403, tailor: 200, tailorOnboarding: 404 },
+		expect: { ...partiesOnly(403), otherCustomer: 403, tailor: 200, tailorOnboarding: 404, admin: 403 },
 		unchanged
 	},
 	{
@@ -113,7 +113,7 @@ export const fittingRows: Row<Arranged>[] = [
 		name: 'POST /orders/{id}/fittings?/book',
 		arrange: withFitting('proposed'),
 		send: (client, { orderId, fittingId }) => client.post(`/orders/${orderId}/fittings?/book`, { fittingId }),
-		expect: { ...partiesPage(403), owner: 200, otherCustomer: 404, tailorOnboarding: 403 },
+		expect: { ...partiesPage(403), owner: 200, otherCustomer: 404, tailorOnboarding: 403, admin: 403 },
 		unchanged
 	},
 	{
@@ -135,13 +135,13 @@ export const fittingRows: Row<Arranged>[] = [
 				date_0: '2031-05-07',
 				time_0: '11:00'
 			}),
-		expect: { ...partiesPage(403), otherCustomer: 403, tailor: 200, tailorOnboarding: 404 }
+		expect: { ...partiesPage(403), otherCustomer: 403, tailor: 200, tailorOnboarding: 404, admin: 403 }
 	},
 	{
 		name: 'POST /orders/{id}/fittings?/done',
 		arrange: withFitting('confirmed', -1),
 		send: (client, { orderId, fittingId }) => client.post(`/orders/${orderId}/fittings?/done`, { fittingId }),
-		expect: { ...partiesPage(403), otherCustomer: 403, tailor: 200, tailorOnboarding: 404 },
+		expect: { ...partiesPage(403), otherCustomer: 403, tailor: 200, tailorOnboarding: 404, admin: 403 },
 		unchanged
 	},
 	{

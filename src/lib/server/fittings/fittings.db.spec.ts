@@ -57,10 +57,9 @@ async function noticesOf(userId: string, event: string) {
 }
 
 async function mailsTo(email: string) {
-	const { rows } = await pool.query<{ data: { subject: string; attachments?: { content: string; contentType: string }[] } }>(
-		`select data from pgboss.job where name = 'mail-send' and data->>'to' = $1 order by created_on`,
-		[email]
-	);
+	const { rows } = await pool.query<{
+		data: { subject: string; attachments?: { content: string; contentType: string }[] };
+	}>(`select data from pgboss.job where name = 'mail-send' and data->>'to' = $1 order by created_on`, [email]);
 	return rows.map((r) => r.data);
 }
 
@@ -142,13 +141,28 @@ describe('offering times', () => {
 		);
 		expect(together.issues).toEqual([{ path: 'slots.1.start', message: 'This time overlaps time 1 of this offer.' }]);
 
-		await offer(db, { orderId: o.orderId, actor: tailorOf(o), request: { slots: [slot('2027-02-01T10:00')] }, now: newYear });
+		await offer(db, {
+			orderId: o.orderId,
+			actor: tailorOf(o),
+			request: { slots: [slot('2027-02-01T10:00')] },
+			now: newYear
+		});
 		const clash = await refusal(
-			offer(db, { orderId: o.orderId, actor: tailorOf(o), request: { slots: [slot('2027-02-01T10:30')] }, now: newYear })
+			offer(db, {
+				orderId: o.orderId,
+				actor: tailorOf(o),
+				request: { slots: [slot('2027-02-01T10:30')] },
+				now: newYear
+			})
 		);
 		expect(clash.code).toBe('conflict');
 		// Back to back is fine.
-		await offer(db, { orderId: o.orderId, actor: tailorOf(o), request: { slots: [slot('2027-02-01T10:45')] }, now: newYear });
+		await offer(db, {
+			orderId: o.orderId,
+			actor: tailorOf(o),
+			request: { slots: [slot('2027-02-01T10:45')] },
+			now: newYear
+		});
 	});
 
 	it('is for the order’s tailor, on a paid order not yet delivered; others find no order', async () => {
@@ -182,7 +196,9 @@ describe('booking, moving and cancelling', () => {
 		expect(booked.bookedAt?.toISOString()).toBe(newYear.toISOString());
 		expect(booked.remindedAt).toBeNull();
 		// Booking again changes nothing; the other time stays open.
-		expect((await book(db, { fittingId: first.id, actor: customerOf(o), now: newYear })).bookedAt).toEqual(booked.bookedAt);
+		expect((await book(db, { fittingId: first.id, actor: customerOf(o), now: newYear })).bookedAt).toEqual(
+			booked.bookedAt
+		);
 		const [other] = await db.select().from(fitting).where(eq(fitting.id, second.id));
 		expect(other.status).toBe('proposed');
 
@@ -246,7 +262,11 @@ describe('booking, moving and cancelling', () => {
 			request: { reason: 'Away that week' },
 			now: new Date(b.startsAt.getTime() - 25 * hour)
 		});
-		expect(cancelled).toMatchObject({ status: 'cancelled', cancelledById: o.customer.id, cancelReason: 'Away that week' });
+		expect(cancelled).toMatchObject({
+			status: 'cancelled',
+			cancelledById: o.customer.id,
+			cancelReason: 'Away that week'
+		});
 		const [told] = await noticesOf(o.tailor.id, 'fitting_cancelled');
 		expect(told.body).toContain('Away that week');
 		// Cancelling again changes nothing.
@@ -262,10 +282,14 @@ describe('booking, moving and cancelling', () => {
 			now: newYear
 		});
 		expect((await cancel(db, { fittingId: a.id, actor: tailorOf(o), now: newYear })).status).toBe('cancelled');
-		expect((await refusal(book(db, { fittingId: a.id, actor: customerOf(o), now: newYear }))).code).toBe('wrong_status');
+		expect((await refusal(book(db, { fittingId: a.id, actor: customerOf(o), now: newYear }))).code).toBe(
+			'wrong_status'
+		);
 		expect((await refusal(book(db, { fittingId: b.id, actor: tailorOf(o), now: newYear }))).code).toBe('forbidden');
 		await book(db, { fittingId: b.id, actor: customerOf(o), now: newYear });
-		expect((await refusal(markDone(db, { fittingId: b.id, actor: tailorOf(o), now: newYear }))).code).toBe('wrong_status');
+		expect((await refusal(markDone(db, { fittingId: b.id, actor: tailorOf(o), now: newYear }))).code).toBe(
+			'wrong_status'
+		);
 		const noReason = await refusal(cancel(db, { fittingId: b.id, actor: tailorOf(o), now: newYear }));
 		expect(noReason.issues).toEqual([{ path: 'reason', message: 'Give a reason: the customer is told.' }]);
 		const after = new Date(b.startsAt.getTime() + 10 * 60_000);
@@ -296,7 +320,10 @@ describe('booking, moving and cancelling', () => {
 		);
 		expect(prop(eventOf(booked), 'UID')?.value).toBe(`fitting-${a.id}@localhost`);
 		expect(prop(eventOf(cancelled), 'UID')?.value).toBe(prop(eventOf(booked), 'UID')?.value);
-		expect(prop(eventOf(booked), 'DTSTART')).toMatchObject({ params: { TZID: 'America/New_York' }, value: '20270215T093000' });
+		expect(prop(eventOf(booked), 'DTSTART')).toMatchObject({
+			params: { TZID: 'America/New_York' },
+			value: '20270215T093000'
+		});
 		expect(prop(eventOf(booked), 'DTEND')?.value).toBe('20270215T100000');
 		expect(prop(eventOf(booked), 'DTSTAMP')?.value).toMatch(/Z$/);
 		expect(prop(eventOf(cancelled), 'STATUS')?.value).toBe('CANCELLED');

@@ -4,7 +4,16 @@ import * as audit from '../audit';
 import type { Executor } from '../db';
 import { notify } from '../notifications';
 import type { MailAttachment } from '../mail';
-import { calendarHost, fittingsHref, organizer, placeText, publicLink, type OrderContext, type Person, type Side } from './context';
+import {
+	calendarHost,
+	fittingsHref,
+	organizer,
+	placeText,
+	publicLink,
+	type OrderContext,
+	type Person,
+	type Side
+} from './context';
 import { calendarAttachment, fittingCalendar } from './ics';
 import { describeRange, shortStart, zoneLabel } from './time';
 
@@ -86,7 +95,9 @@ export async function tellBooked(
 	if (released) files.push(await attachmentOf(tx, released, ctx));
 	for (const side of ['customer', 'tailor'] as const) {
 		const { me, other } = sides(ctx, side);
-		const moved = released ? `\n\nThis replaces the fitting booked for ${describeRange(released.startsAt, released.endsAt, me.timeZone)}.` : '';
+		const moved = released
+			? `\n\nThis replaces the fitting booked for ${describeRange(released.startsAt, released.endsAt, me.timeZone)}.`
+			: '';
 		await notify(tx, {
 			userId: me.id,
 			event: 'fitting_booked',

@@ -43,7 +43,16 @@ export type FittingView = {
 	/** Proposed and still ahead; `bookable` only while before the cut-off. */
 	open: boolean;
 	upcoming: boolean;
-	can: { book: boolean; cancel: boolean; withdraw: boolean; cancelBooking: boolean; markDone: boolean; calendar: boolean };
+	/** Still ahead but inside the cut-off: the customer can no longer book, move or cancel it online. */
+	pastCutoff: boolean;
+	can: {
+		book: boolean;
+		cancel: boolean;
+		withdraw: boolean;
+		cancelBooking: boolean;
+		markDone: boolean;
+		calendar: boolean;
+	};
 };
 
 export type FittingsPage = {
@@ -89,13 +98,15 @@ function view(row: Fitting, ctx: OrderContext, side: Side, now: Date, cutoffHour
 		when: whenLines(row, me, other),
 		open: row.status === 'proposed' && upcoming,
 		upcoming,
+		pastCutoff: upcoming && !beforeCutoff && (row.status === 'proposed' || row.status === 'confirmed'),
 		can: {
 			book: side === 'customer' && active && row.status === 'proposed' && beforeCutoff,
 			cancel: side === 'customer' && row.status === 'confirmed' && upcoming && beforeCutoff,
 			withdraw: side === 'tailor' && row.status === 'proposed',
 			cancelBooking: side === 'tailor' && row.status === 'confirmed',
 			markDone: side === 'tailor' && row.status === 'confirmed' && !upcoming,
-			calendar: row.status === 'confirmed' || row.status === 'done' || (row.status === 'cancelled' && row.bookedAt !== null)
+			calendar:
+				row.status === 'confirmed' || row.status === 'done' || (row.status === 'cancelled' && row.bookedAt !== null)
 		}
 	};
 }
@@ -152,7 +163,6 @@ export async function calendarForParty(
 	const ctx = await contextOf(db, order);
 	return calendarFile(db, row, ctx);
 }
-
 
 /** What the order page shows about fittings: the next booked one and how many times are open. Null for non-parties. */
 export async function summaryFor(

@@ -8,7 +8,8 @@ export const fittingResponse = z
 		id: z.uuid(),
 		orderId: z.uuid(),
 		status: z.enum(['proposed', 'confirmed', 'done', 'cancelled']).meta({
-			description: 'proposed: offered and open to book; confirmed: booked; done: it took place; cancelled: withdrawn or cancelled.'
+			description:
+				'proposed: offered and open to book; confirmed: booked; done: it took place; cancelled: withdrawn or cancelled.'
 		}),
 		startsAt: instant.meta({ description: 'The start as an instant (UTC).' }),
 		endsAt: instant,
@@ -25,7 +26,8 @@ export const fittingResponse = z
 			description: 'Until when the customer may book, move or cancel it online (the cut-off before the start).'
 		}),
 		when: z.array(z.string()).meta({
-			description: 'The time for people: the caller’s own zone first, then the fitting’s and the other person’s when they differ.'
+			description:
+				'The time for people: the caller’s own zone first, then the fitting’s and the other person’s when they differ.'
 		})
 	})
 	.meta({ id: 'Fitting' });

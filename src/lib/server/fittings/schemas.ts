@@ -57,7 +57,8 @@ export const slotRequest = z
 		durationMinutes: duration,
 		placeKind: place.default('workroom'),
 		address: addressText.default('').meta({
-			description: 'For the workroom: directions or the street address (the workroom’s town is used when empty). For a public place: its name and address.'
+			description:
+				'For the workroom: directions or the street address (the workroom’s town is used when empty). For a public place: its name and address.'
 		}),
 		notes: notesText.default('')
 	})
@@ -99,7 +100,12 @@ export const offerForm = z
 		placeKind: place,
 		address: addressText.default(''),
 		notes: notesText.default(''),
-		...Object.fromEntries(formRows.flatMap((i) => [[`date_${i}`, optionalDate], [`time_${i}`, optionalTime]]))
+		...Object.fromEntries(
+			formRows.flatMap((i) => [
+				[`date_${i}`, optionalDate],
+				[`time_${i}`, optionalTime]
+			])
+		)
 	})
 	.superRefine((form, ctx) => {
 		needsAddress(form, ctx);

@@ -84,14 +84,22 @@ export async function offer(
 	for (const a of slots)
 		for (const b of slots)
 			if (a.index < b.index && a.startsAt < b.endsAt && b.startsAt < a.endsAt)
-				issues.push({ path: `slots.${b.index}.start`, message: `This time overlaps time ${a.index + 1} of this offer.` });
+				issues.push({
+					path: `slots.${b.index}.start`,
+					message: `This time overlaps time ${a.index + 1} of this offer.`
+				});
 	if (issues.length) throw new FittingError('invalid', 'Some times need another look.', issues);
 
 	return db.transaction(async (tx) => {
 		await lockOrderFittings(tx, orderId);
 		requireOrderOpen(order.status, 'offered');
 		const live = await tx
-			.select({ startsAt: fitting.startsAt, endsAt: fitting.endsAt, status: fitting.status, timeZone: fitting.timeZone })
+			.select({
+				startsAt: fitting.startsAt,
+				endsAt: fitting.endsAt,
+				status: fitting.status,
+				timeZone: fitting.timeZone
+			})
 			.from(fitting)
 			.where(and(eq(fitting.orderId, orderId), inArray(fitting.status, ['proposed', 'confirmed'])));
 		const clashes: FittingIssue[] = [];
@@ -103,7 +111,8 @@ export async function offer(
 					message: `This overlaps the ${clash.status === 'confirmed' ? 'booked fitting' : 'time already offered'} on ${describeRange(clash.startsAt, clash.endsAt, zone)}.`
 				});
 		}
-		if (clashes.length) throw new FittingError('conflict', 'Some times overlap fittings already on this order.', clashes);
+		if (clashes.length)
+			throw new FittingError('conflict', 'Some times overlap fittings already on this order.', clashes);
 		const open = live.filter((row) => row.status === 'proposed' && row.startsAt > now).length;
 		if (open + slots.length > maxOpenSlotsPerOrder)
 			throw new FittingError(
@@ -240,8 +249,7 @@ export async function markDone(
 		await lockOrderFittings(tx, orderId);
 		const row = await lockFitting(tx, fittingId, orderId);
 		if (row.status === 'done') return row;
-		if (row.status !== 'confirmed')
-			throw new FittingError('wrong_status', 'Only a booked fitting can be marked done.');
+		if (row.status !== 'confirmed') throw new FittingError('wrong_status', 'Only a booked fitting can be marked done.');
 		if (row.startsAt > now) throw new FittingError('wrong_status', 'Mark the fitting done once it has started.');
 		const [done] = await tx.update(fitting).set({ status: 'done' }).where(eq(fitting.id, fittingId)).returning();
 		await record(tx, actor, 'done', done);

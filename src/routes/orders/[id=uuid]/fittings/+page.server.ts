@@ -35,14 +35,15 @@ export const load: PageServerLoad = async ({ params, locals, url, getClientAddre
 		throw problem;
 	}
 	// A confirmation step before what cannot be undone: `?cancel=<id>` or `?move=<id>`.
-	const confirm = (name: string) => {
+	// Only while the step still applies: after the change, the same address shows the outcome instead.
+	const confirm = (name: string, applies: (f: fittings.FittingView) => boolean) => {
 		const id = url.searchParams.get(name);
-		return page.fittings.find((f) => f.id === id) ?? null;
+		return page.fittings.find((f) => f.id === id && applies(f)) ?? null;
 	};
 	return {
 		page,
-		confirmCancel: confirm('cancel'),
-		confirmMove: confirm('move'),
+		confirmCancel: confirm('cancel', (f) => f.can.cancel || f.can.withdraw || f.can.cancelBooking),
+		confirmMove: confirm('move', (f) => f.can.book),
 		durations: [15, 30, 45, 60, 90, 120, 180]
 	};
 };

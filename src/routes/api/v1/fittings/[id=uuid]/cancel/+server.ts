@@ -22,7 +22,5 @@ export const POST: RequestHandler = async ({ params, request, locals, getClientA
 		if (!parsed.ok) return parsed.response;
 		body = parsed.data;
 	}
-	return changed(locals.db, actor, () =>
-		fittings.cancel(locals.db, { fittingId: params.id, actor, request: body })
-	);
+	return changed(locals.db, actor, () => fittings.cancel(locals.db, { fittingId: params.id, actor, request: body }));
 };

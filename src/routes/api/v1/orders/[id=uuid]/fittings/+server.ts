@@ -30,7 +30,10 @@ export const POST: RequestHandler = async ({ params, request, locals, getClientA
 		const page = await fittings.listForOrder(locals.db, { orderId: params.id, actor });
 		const made = new Set(rows.map((row) => row.id));
 		return json(
-			{ items: page.fittings.filter((view) => made.has(view.id)).map(fittings.fittingJson), cutoffHours: page.cutoffHours },
+			{
+				items: page.fittings.filter((view) => made.has(view.id)).map(fittings.fittingJson),
+				cutoffHours: page.cutoffHours
+			},
 			{ status: 201 }
 		);
 	} catch (error) {
