@@ -15,7 +15,10 @@ export type NotificationDto<E extends string = string> = {
 };
 
 export type NotificationPage<E extends string = string> = {
-	items: NotificationDto<E>[]; nextCursor: string | null; unreadCount: number };
+	items: NotificationDto<E>[];
+	nextCursor: string | null;
+	unreadCount: number;
+};
 
 /** One row of the preferences grid. `required` says why it cannot be turned off, when it cannot. */
 export type EventPreferenceDto<E extends string = string> = {

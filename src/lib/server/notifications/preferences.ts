@@ -1,11 +1,6 @@
 import { and, eq, sql } from 'drizzle-orm';
 import type { Executor } from '../db';
-import {
-	notificationPreference,
-	type NotificationChannel,
-	type NotificationEvent,
-	type UserRole
-} from '../db/schema';
+import { notificationPreference, type NotificationChannel, type NotificationEvent, type UserRole } from '../db/schema';
 import { catalogue, eventsFor, groups, type NoticeGroup, type Required } from './catalogue';
 
 /** One row of the preferences grid: an event and whether each channel is on. */

@@ -76,7 +76,11 @@ export async function markRead(
 		.update(notification)
 		.set({ readAt: now })
 		.where(
-			and(eq(notification.userId, userId), isNull(notification.readAt), all ? undefined : inArray(notification.id, ids!))
+			and(
+				eq(notification.userId, userId),
+				isNull(notification.readAt),
+				all ? undefined : inArray(notification.id, ids!)
+			)
 		)
 		.returning({ id: notification.id });
 	return rows.length;

@@ -46,7 +46,9 @@ export const eventPreference = z
 		required: z
 			.enum(['money', 'meeting'])
 			.nullable()
-			.meta({ description: 'Why both channels are always on (money or meeting someone); null when they may be turned off.' }),
+			.meta({
+				description: 'Why both channels are always on (money or meeting someone); null when they may be turned off.'
+			}),
 		email: z.boolean(),
 		inApp: z.boolean()
 	})

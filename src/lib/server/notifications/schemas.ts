@@ -28,11 +28,7 @@ const eventName = z.enum(notificationEvent.enumValues);
 export const preferencesBody = z
 	.object({
 		events: z
-			.array(
-				z
-					.object({ event: eventName, email: z.boolean().optional(), inApp: z.boolean().optional() })
-					.strict()
-			)
+			.array(z.object({ event: eventName, email: z.boolean().optional(), inApp: z.boolean().optional() }).strict())
 			.max(notificationEvent.enumValues.length)
 			.refine((list) => new Set(list.map((item) => item.event)).size === list.length, 'Name each event once.')
 	})
