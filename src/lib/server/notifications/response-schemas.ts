@@ -43,12 +43,9 @@ export const eventPreference = z
 		group: z.enum(['quotes', 'payments', 'work', 'fittings', 'messages', 'desk']),
 		label: z.string(),
 		description: z.string(),
-		required: z
-			.enum(['money', 'meeting'])
-			.nullable()
-			.meta({
-				description: 'Why both channels are always on (money or meeting someone); null when they may be turned off.'
-			}),
+		required: z.enum(['money', 'meeting']).nullable().meta({
+			description: 'Why both channels are always on (money or meeting someone); null when they may be turned off.'
+		}),
 		email: z.boolean(),
 		inApp: z.boolean()
 	})

@@ -1,5 +1,7 @@
 import { z } from 'zod';
-import { notificationEvent } from '../db/schema';
+import { notificationEvent, type UserRole } from '../db/schema';
+import { catalogue, eventsFor } from './catalogue';
+import type { PreferenceChange } from './preferences';
 
 /** `GET /api/v1/notifications`: the previous page's `nextCursor`, and a page size. */
 export const listQuery = z
@@ -35,5 +37,29 @@ export const preferencesBody = z
 	.strict()
 	.meta({ id: 'NotificationPreferencesInput' });
 
-/** The preferences form: a checkbox `<event>.email` / `<event>.in_app` for each event, sent when ticked. */
-export const preferenceFormField = /^([a-z_]+)\.(email|in_app)$/;
+const ticked = z.literal('on', 'A box is either ticked or left out.').optional();
+
+/**
+ * The preferences form: a checkbox `<event>.email` and `<event>.in_app` for each event the role can turn off,
+ * sent only when ticked. Any other field is refused.
+ */
+export function preferencesForm(role: UserRole) {
+	const boxes = eventsFor(role)
+		.filter((event) => !catalogue[event].required)
+		.flatMap((event) => [
+			[`${event}.email`, ticked],
+			[`${event}.in_app`, ticked]
+		]);
+	return z.object(Object.fromEntries(boxes) as Record<string, typeof ticked>).strict();
+}
+
+/** Every event the role can turn off, on or off as its boxes were sent. */
+export function changesFromForm(role: UserRole, fields: Record<string, string | undefined>): PreferenceChange[] {
+	return eventsFor(role)
+		.filter((event) => !catalogue[event].required)
+		.map((event) => ({
+			event,
+			email: fields[`${event}.email`] === 'on',
+			inApp: fields[`${event}.in_app`] === 'on'
+		}));
+}

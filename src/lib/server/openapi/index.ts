@@ -4,6 +4,7 @@ import { docsView } from './view';
 import { commissionsArea } from './paths/commissions';
 import { draftingArea } from './paths/drafting';
 import { messagesArea } from './paths/messages';
+import { notificationsArea } from './paths/notifications';
 import { paymentsArea } from './paths/payments';
 import { placesArea } from './paths/places';
 import { profilesArea } from './paths/profiles';
@@ -22,6 +23,7 @@ export const areas: readonly Area[] = [
 	quotesArea,
 	paymentsArea,
 	messagesArea,
+	notificationsArea,
 	workroomsArea,
 	searchArea,
 	profilesArea,
