@@ -7,7 +7,7 @@ import * as notifications from '../../src/lib/server/notifications';
 import { createCommission, createUser, type Person } from '../factories';
 import { createQuotingWorkroom } from '../factories/quotes';
 import { testDb } from './db';
-import { callJson, newClient, signedIn, type Client } from './http';
+import { baseUrl, callJson, newClient, signedIn, type Client } from './http';
 import { mailTo, settledMailTo, waitForMail } from './inbox';
 
 // notify() is called here as a domain function would call it; it reads ORIGIN.
@@ -15,6 +15,7 @@ vi.mock('$env/dynamic/private', () => ({ env: process.env }));
 
 const { db, pool } = testDb();
 afterAll(() => pool.end());
+process.env.ORIGIN ??= baseUrl;
 
 const day = 86_400_000;
 const later = (days: number) => new Date(Date.now() + days * day).toISOString().slice(0, 10);

@@ -16,7 +16,15 @@ const columns = {
 	createdAt: notification.createdAt
 };
 
-type Row = { [K in keyof typeof columns]: (typeof columns)[K]['_']['data'] };
+type Row = {
+	id: string;
+	event: NotificationEvent;
+	title: string;
+	body: string;
+	href: string;
+	readAt: Date | null;
+	createdAt: Date;
+};
 
 function toDto(row: Row): NotificationDto<NotificationEvent> {
 	return {
