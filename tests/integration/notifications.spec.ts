@@ -295,6 +295,37 @@ describe('the list', () => {
 		expect(await mailTo(person.email)).toHaveLength(0);
 	});
 
+	it('groups a digest into one mail with an in-app notice for each thing it covers', async () => {
+		const person = await createUser(db, { name: 'Jory Pascoe' });
+		const digest = (extra: string) =>
+			db.transaction((tx) =>
+				notifications.notifyGrouped(tx, {
+					userId: person.id,
+					event: 'message_waiting',
+					title: `Messages are waiting ${extra}`,
+					body: 'Two conversations have unread messages.',
+					href: '/messages',
+					notices: [
+						{ title: 'A message from Gull Yard', body: '1 new message.', href: '/messages/a' },
+						{ title: '2 messages from Old Quay', body: '2 new messages.', href: '/messages/b' }
+					]
+				})
+			);
+		await digest('(first)');
+		await waitForMail(person.email, { subject: 'Messages are waiting (first)' });
+		const client = await signedIn(person);
+		const page = await notices(client);
+		expect(page.items.map((n: { href: string }) => n.href).sort()).toEqual(['/messages/a', '/messages/b']);
+
+		// With the mail off, the in-app notices still come, and no second mail.
+		await callJson(client, 'PUT', '/api/v1/account/notification-preferences', {
+			events: [{ event: 'message_waiting', email: false }]
+		});
+		await digest('(second)');
+		expect((await notices(client)).items).toHaveLength(4);
+		expect(await settledMailTo(person.email)).toHaveLength(1);
+	});
+
 	it('sends money_stuck to administrators only', async () => {
 		const customer = await createUser(db);
 		const admin = await createUser(db, { role: 'admin' });
