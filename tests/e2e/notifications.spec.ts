@@ -49,7 +49,7 @@ test('the bell counts unread notices; opening one follows it, and the settings g
 	await expect(page.getByRole('status').getByText('1 unread notice.')).toBeVisible();
 	await expect(page.getByRole('banner').getByRole('link', { name: 'Notifications, 1 unread' }).first()).toBeAttached();
 
-	await page.getByRole('button', { name: /A new quote for “Linen waistcoat”/ }).click();
+	await page.getByRole('button', { name: 'Unread: A new quote for “Linen waistcoat”' }).click();
 	await expect(page).toHaveURL(/\/commissions$/);
 	await expect(
 		page.getByRole('banner').getByRole('link', { name: 'Notifications', exact: true }).first()
