@@ -7,7 +7,11 @@ import { defineConfig } from 'vitest/config';
 const devTools = process.env.TACKLINE_DEV_TOOLS === '1' || process.env.NODE_ENV === 'development';
 
 /** Files that stop or slow the shared mail stand-in: they run alone, after the others. */
-const serialIntegrationFiles = ['tests/integration/mail-queue.spec.ts', 'tests/integration/health.spec.ts'];
+const serialIntegrationFiles = [
+	'tests/integration/mail-queue.spec.ts',
+	'tests/integration/notification-mail.spec.ts',
+	'tests/integration/health.spec.ts'
+];
 
 export default defineConfig({
 	plugins: [tailwindcss(), sveltekit()],

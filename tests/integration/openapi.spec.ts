@@ -12,7 +12,7 @@ import { solid } from '../factories/images';
 import { createFundedOrder } from '../factories/fittings';
 import { awardQuote, createQuotingWorkroom, insertQuote } from '../factories/quotes';
 import { openThread } from '../../src/lib/server/messages/threads';
-import { searchOutbox } from '../../src/lib/server/db/schema';
+import { notification, searchOutbox } from '../../src/lib/server/db/schema';
 import { testDb } from './db';
 import { baseUrl, newClient, signIn, type Client } from './http';
 import { stripeStandin } from './stripe';
@@ -321,6 +321,51 @@ describe('real answers fit the documented schemas', () => {
 			'POST',
 			'/api/v1/threads/{id}/messages'
 		);
+	});
+
+	it('notifications: a page of notices, marking read, and the preferences read and changed', async () => {
+		const person = await createUser(db, { role: 'tailor' });
+		await db.insert(notification).values(
+			[1, 2, 3].map((n) => ({
+				userId: person.id,
+				event: 'quote_accepted' as const,
+				title: `Quote ${n} accepted`,
+				body: 'The order waits for payment.',
+				href: '/workroom'
+			}))
+		);
+		const client = await signedIn(person);
+		const page = (await expectDocumented(
+			await client.json('GET', '/api/v1/notifications?limit=2'),
+			'GET',
+			'/api/v1/notifications'
+		)) as { items: { id: string }[]; nextCursor: string };
+		expect(page.items).toHaveLength(2);
+		await expectDocumented(
+			await client.json('GET', `/api/v1/notifications?cursor=${page.nextCursor}`),
+			'GET',
+			'/api/v1/notifications'
+		);
+		await expectDocumented(
+			await client.json('POST', '/api/v1/notifications/read', { ids: [page.items[0].id] }),
+			'POST',
+			'/api/v1/notifications/read'
+		);
+		await expectDocumented(
+			await client.json('POST', '/api/v1/notifications/read', { all: true }),
+			'POST',
+			'/api/v1/notifications/read'
+		);
+		const preferences = '/api/v1/account/notification-preferences';
+		await expectDocumented(await client.json('GET', preferences), 'GET', preferences);
+		await expectDocumented(
+			await client.json('PUT', preferences, { events: [{ event: 'quote_declined', email: false }] }),
+			'PUT',
+			preferences
+		);
+		const refused = await client.json('PUT', preferences, { events: [{ event: 'released', inApp: false }] });
+		expect(refused.status).toBe(422);
+		await expectDocumented(refused, 'PUT', preferences);
 	});
 
 	it('search near me: a tailor’s open commissions and the workrooms near a point', async () => {

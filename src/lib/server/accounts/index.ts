@@ -264,6 +264,7 @@ export async function getProfile(db: Executor, { id }: { id: string }) {
 			email: user.email,
 			units: user.units,
 			timeZone: user.timeZone,
+			role: user.role,
 			hasPassword: sql<boolean>`${user.passwordHash} is not null`
 		})
 		.from(user)

@@ -3,8 +3,7 @@ import { publicOrigin } from '../auth/origin';
 import { firstNameAndInitial } from '../commissions';
 import type { Executor } from '../db';
 import { message } from '../db/schema';
-import * as mail from '../mail';
-import type { Mail } from '../mail';
+import { notifyGrouped, type InAppNotice, type Notice } from '../notifications';
 
 /** A message waits this long unread before its recipient is mailed about it. */
 export const digestDelayMinutes = 15;
@@ -27,17 +26,28 @@ export type Digest = { recipientId: string; email: string; name: string | null; 
 
 const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
 
-export function digestMail(digest: Digest, origin: string): Mail {
+function threadLine(thread: DigestThread) {
+	return `${plural(thread.count, 'new message', 'new messages')} from ${thread.otherName} about “${thread.title}”`;
+}
+
+/**
+ * One notice per recipient: a single mail listing the threads and counts (never the texts), and an in-app
+ * notice for each thread.
+ */
+export function digestNotice(digest: Digest, origin: string): Notice & { notices: InAppNotice[] } {
 	const total = digest.threads.reduce((sum, thread) => sum + thread.count, 0);
-	const greeting = digest.name?.trim().split(/\s+/)[0];
-	const lines = digest.threads.map(
-		(thread) =>
-			`• ${plural(thread.count, 'new message', 'new messages')} from ${thread.otherName} about “${thread.title}”\n  ${origin}/messages/${thread.threadId}`
-	);
+	const lines = digest.threads.map((thread) => `• ${threadLine(thread)}\n  ${origin}/messages/${thread.threadId}`);
 	return {
-		to: digest.email,
-		subject: `${plural(total, 'message is', 'messages are')} waiting for you on Tackline`,
-		text: `Hello${greeting ? ` ${greeting}` : ''},\n\n${plural(total, 'message has', 'messages have')} been waiting unread for a while:\n\n${lines.join('\n\n')}\n\nAll your conversations: ${origin}/messages\n\nWe write at most once about each message, after it has waited unread for ${digestDelayMinutes} minutes.\n\n— Tackline`
+		userId: digest.recipientId,
+		event: 'message_waiting',
+		title: `${plural(total, 'message is', 'messages are')} waiting for you on Tackline`,
+		body: `${plural(total, 'message has', 'messages have')} been waiting unread for a while:\n\n${lines.join('\n\n')}\n\nWe write at most once about each message, after it has waited unread for ${digestDelayMinutes} minutes. All your conversations:`,
+		href: '/messages',
+		notices: digest.threads.map((thread) => ({
+			title: `${thread.count === 1 ? 'A message' : `${thread.count} messages`} from ${thread.otherName}`,
+			body: `${threadLine(thread)}.`,
+			href: `/messages/${thread.threadId}`
+		}))
 	};
 }
 
@@ -97,7 +107,8 @@ export async function dueDigests(
 }
 
 /**
- * The `message-digest` job: one mail per recipient about messages unread for 15 minutes, then each is
+ * The `message-digest` job: one mail per recipient about messages unread for 15 minutes (and an in-app
+ * notice per conversation, each as the person's preferences allow), then each message is
  * marked notified so that it is never mentioned again. Suspended recipients and messages without an
  * author are marked without a mail. Answers how many mails were queued.
  */
@@ -105,7 +116,7 @@ export async function sendDigests(db: Executor, { now = new Date() }: { now?: Da
 	const origin = publicOrigin();
 	return db.transaction(async (tx) => {
 		const { digests, messageIds } = await dueDigests(tx, { now });
-		for (const digest of digests) await mail.queue(tx, digestMail(digest, origin));
+		for (const digest of digests) await notifyGrouped(tx, digestNotice(digest, origin));
 		if (messageIds.length) await tx.update(message).set({ notifiedAt: now }).where(inArray(message.id, messageIds));
 		return digests.length;
 	});

@@ -18,6 +18,8 @@ import type { fittingListResponse, fittingResponse } from '../fittings/response-
 import type { HealthReport } from '../health';
 import type { list as listMessages, markRead, post as postMessage, threadsFor } from '../messages';
 import type { markedResponse, messageDto, messagePage, threadPage } from '../messages/response-schemas';
+import type { list as listNotifications, preferences as notificationPreferences } from '../notifications';
+import type { notificationPage, preferencesResponse, readResponse } from '../notifications/response-schemas';
 import type { healthReportSchema } from '../health/schemas';
 import type { photoResponse, portfolioItemResponse } from '../photos/response-schemas';
 import type { Place } from '../places/gazetteer';
@@ -131,6 +133,9 @@ export type Conformance = [
 		>
 	>,
 	Assert<Fits<Awaited<ReturnType<typeof threadsFor>>, typeof threadPage>>,
+	Assert<Fits<Awaited<ReturnType<typeof listNotifications>>, typeof notificationPage>>,
+	Assert<Fits<{ marked: number; unreadCount: number }, typeof readResponse>>,
+	Assert<Fits<{ events: Awaited<ReturnType<typeof notificationPreferences.list>> }, typeof preferencesResponse>>,
 	Assert<Fits<Awaited<ReturnType<typeof listMessages>>, typeof messagePage>>,
 	Assert<Fits<Awaited<ReturnType<typeof postMessage>>, typeof messageDto>>,
 	Assert<Fits<{ marked: Awaited<ReturnType<typeof markRead>> }, typeof markedResponse>>,

@@ -5,6 +5,7 @@ import { commissionsArea } from './paths/commissions';
 import { draftingArea } from './paths/drafting';
 import { fittingsArea } from './paths/fittings';
 import { messagesArea } from './paths/messages';
+import { notificationsArea } from './paths/notifications';
 import { paymentsArea } from './paths/payments';
 import { placesArea } from './paths/places';
 import { profilesArea } from './paths/profiles';
@@ -24,6 +25,7 @@ export const areas: readonly Area[] = [
 	paymentsArea,
 	fittingsArea,
 	messagesArea,
+	notificationsArea,
 	workroomsArea,
 	searchArea,
 	profilesArea,

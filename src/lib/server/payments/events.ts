@@ -1,18 +1,17 @@
 import { eq } from 'drizzle-orm';
 import type Stripe from 'stripe';
-import * as accounts from '../accounts';
 import * as audit from '../audit';
 import * as commissions from '../commissions';
 import type { Executor } from '../db';
 import { processedWebhookEvent } from '../db/schema';
-import * as mail from '../mail';
 import { enqueue, queueNames } from '../jobs';
 import { forPayment, markFunded, noteLateCharge, type PayableOrder } from '../orders/payment';
+import { notify } from '../notifications';
 import * as payouts from '../payouts';
 import { payments } from '../services/payments';
 import { outageAsUnavailable, PaymentError } from './errors';
 import { lastFailure, post, recordPayment } from './ledger';
-import { orderFundedMail, paymentReceivedMail } from './mails';
+import { orderFundedNotice, paymentReceivedNotice } from './mails';
 
 /** What handling an event did: applied it, found it already handled, or had nothing to do with it. */
 export type EventOutcome = 'applied' | 'duplicate' | 'ignored';
@@ -57,14 +56,11 @@ async function mailBothSides(tx: Executor, row: PayableOrder) {
 		priceMinor: row.priceMinor,
 		currency: row.currency
 	};
-	const customer = await accounts.getProfile(tx, { id: row.customerId });
-	if (customer) await mail.queue(tx, paymentReceivedMail(customer.email, about));
-	const tailor = await accounts.getProfile(tx, { id: row.tailorId });
-	if (tailor)
-		await mail.queue(
-			tx,
-			orderFundedMail(tailor.email, { ...about, tailorPayoutMinor: row.tailorPayoutMinor, dueDate: row.dueDate })
-		);
+	await notify(tx, paymentReceivedNotice(row.customerId, about));
+	await notify(
+		tx,
+		orderFundedNotice(row.tailorId, { ...about, tailorPayoutMinor: row.tailorPayoutMinor, dueDate: row.dueDate })
+	);
 }
 
 /**

@@ -1,15 +1,14 @@
 import { and, eq, ne } from 'drizzle-orm';
 import { formatDate } from '$lib/format';
-import * as accounts from '../accounts';
 import * as audit from '../audit';
 import * as commissions from '../commissions';
 import type { Executor } from '../db';
 import { quote, type Commission, type Quote } from '../db/schema';
-import * as mail from '../mail';
+import { notify } from '../notifications';
 import * as orders from '../orders';
 import * as payouts from '../payouts';
 import { noteCommissionChanged } from '../search-outbox';
-import { acceptedMail, anotherAcceptedMail, declinedMail } from './decision-mails';
+import { acceptedNotice, anotherAcceptedNotice, declinedNotice } from './decision-mails';
 import { QuoteError } from './errors';
 import type { AcceptResponse } from './response-schemas';
 import { declineReasonMax } from './schemas';
@@ -80,11 +79,6 @@ function isUniqueViolation(error: unknown): boolean {
 	return false;
 }
 
-async function mailTailor(tx: Executor, tailorId: string, write: (to: string) => mail.Mail) {
-	const tailor = await accounts.getProfile(tx, { id: tailorId });
-	if (tailor) await mail.queue(tx, write(tailor.email));
-}
-
 /**
  * The customer accepts a quote, all in one transaction: an order awaiting payment (price, platform fee and
  * payout that add up), the quote `accepted`, every other live quote `declined` ("another quote was accepted")
@@ -144,7 +138,7 @@ export async function accept(
 				subjectId: q.id,
 				data: { commissionId: row.id, orderId: order.id }
 			});
-			await mailTailor(tx, q.tailorId, (to) => acceptedMail(to, { ...about, ...order }));
+			await notify(tx, acceptedNotice(q.tailorId, { ...about, ...order }));
 			for (const other of others) {
 				await audit.record(tx, {
 					actorId: actor.id,
@@ -154,7 +148,7 @@ export async function accept(
 					subjectId: other.id,
 					data: { commissionId: row.id, reason: anotherQuoteAccepted, acceptedQuoteId: q.id }
 				});
-				await mailTailor(tx, other.tailorId, (to) => anotherAcceptedMail(to, about));
+				await notify(tx, anotherAcceptedNotice(other.tailorId, about));
 			}
 			return {
 				orderId: order.id,
@@ -182,7 +176,7 @@ export async function accept(
 }
 
 /**
- * The customer declines a live quote, with an optional reason the tailor is mailed. Declining it again
+ * The customer declines a live quote, with an optional reason the tailor is told. Declining it again
  * changes nothing; a quote that is no longer live cannot be declined.
  */
 export async function decline(
@@ -222,9 +216,7 @@ export async function decline(
 			subjectId: q.id,
 			data: { commissionId: row.id, withReason: text.length > 0 }
 		});
-		await mailTailor(tx, q.tailorId, (to) =>
-			declinedMail(to, { commissionId: row.id, title: row.title, reason: text })
-		);
+		await notify(tx, declinedNotice(q.tailorId, { commissionId: row.id, title: row.title, reason: text }));
 		return updated;
 	});
 }

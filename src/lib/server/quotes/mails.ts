@@ -2,6 +2,7 @@ import { formatDate, formatMoney } from '$lib/format';
 import { publicOrigin } from '../auth/origin';
 import type { Quote } from '../db/schema';
 import type { Mail } from '../mail';
+import type { Notice } from '../notifications';
 
 type About = { title: string; id: string };
 
@@ -23,12 +24,14 @@ function terms(q: Quote) {
 
 const link = (c: About) => `${publicOrigin()}/commissions/${c.id}`;
 
-/** To the customer: a new quote on their commission. */
-export function quoteSentMail(to: string, name: string | null, c: About, workroom: string, q: Quote): Mail {
+/** To the customer: a new quote on their commission (a notice: mail and in-app). The tailor's note stays on the page. */
+export function quoteSentNotice(customerId: string, c: About, workroom: string, q: Quote): Notice {
 	return {
-		to,
-		subject: `A new quote for “${c.title}” from ${workroom}`,
-		text: `${greet(name)}\n\n${workroom} has sent a quote for your commission “${c.title}”:\n\n${terms(q)}\n${q.message ? `\nTheir message:\n${q.message}\n` : ''}\nCompare it with the others and accept the one you want on the commission's page:\n\n${link(c)}\n\n— Tackline`
+		userId: customerId,
+		event: 'quote_received',
+		title: `A new quote for “${c.title}” from ${workroom}`,
+		body: `${workroom} has sent a quote for your commission “${c.title}”:\n\n${terms(q)}${q.message ? '\n\nThey added a note to the quote; read it on the commission’s page.' : ''}\n\nCompare it with the others and accept the one you want on the commission's page:`,
+		href: `/commissions/${c.id}`
 	};
 }
 

@@ -7,10 +7,11 @@ import type { Executor } from '../db';
 import { quote, type Quote } from '../db/schema';
 import * as mail from '../mail';
 import { openThread } from '../messages/threads';
+import { notify } from '../notifications';
 import { noteCommissionChanged } from '../search-outbox';
 import * as workrooms from '../workrooms';
 import { QuoteError, type QuoteIssue } from './errors';
-import { quoteEditedMail, quoteLapsedMail, quoteSentMail, quoteWithdrawnMail } from './mails';
+import { quoteEditedMail, quoteLapsedMail, quoteSentNotice, quoteWithdrawnMail } from './mails';
 import type { QuoteCreate, QuotePatch } from './schemas';
 import { quoteWarnings, type QuoteWarning } from './warnings';
 
@@ -106,7 +107,7 @@ const duplicate = () =>
 
 /**
  * Sends a quote: the tailor's onboarding must be complete, the commission open, and the tailor without a
- * live quote on it. Opens the thread between the customer and the tailor, and mails the customer.
+ * live quote on it. Opens the thread between the customer and the tailor, and tells the customer.
  */
 export async function send(
 	db: Executor,
@@ -164,7 +165,7 @@ export async function send(
 				data: { commissionId, priceMinor: row.priceMinor, currency: row.currency }
 			});
 			const workroom = await workroomName(tx, actor.id);
-			await mailCustomer(tx, c, (to, name) => quoteSentMail(to, name, c, workroom, row));
+			await notify(tx, quoteSentNotice(c.customerId, c, workroom, row));
 			return { quote: row, warnings: await warningsOf(tx, row, c) };
 		});
 	} catch (error) {
