@@ -18,6 +18,7 @@ const summaryColumns = {
 	priceMinor: order.priceMinor,
 	platformFeeMinor: order.platformFeeMinor,
 	tailorPayoutMinor: order.tailorPayoutMinor,
+	advanceMinor: order.advanceMinor,
 	platformFeeBasisPoints: order.platformFeeBasisPoints,
 	currency: order.currency,
 	dueDate: order.dueDate,
@@ -33,6 +34,8 @@ export type NewOrderInput = {
 	customerId: string;
 	tailorId: string;
 	priceMinor: number;
+	/** The quote's materials advance, in minor units (0 for none); the database keeps it within 30 % of the price. */
+	advanceMinor?: number;
 	currency: string;
 	dueDate: string;
 	actor: { id: string; ip?: string | null };
@@ -56,6 +59,7 @@ export async function createOrder(tx: Executor, input: NewOrderInput): Promise<O
 			platformFeeMinor: split.platformFeeMinor,
 			tailorPayoutMinor: split.tailorPayoutMinor,
 			platformFeeBasisPoints: split.platformFeeBasisPoints,
+			advanceMinor: input.advanceMinor ?? 0,
 			currency: input.currency,
 			dueDate: input.dueDate,
 			status: 'awaiting_payment'
@@ -74,6 +78,7 @@ export async function createOrder(tx: Executor, input: NewOrderInput): Promise<O
 			platformFeeMinor: split.platformFeeMinor,
 			tailorPayoutMinor: split.tailorPayoutMinor,
 			platformFeeBasisPoints: split.platformFeeBasisPoints,
+			advanceMinor: input.advanceMinor ?? 0,
 			currency: input.currency
 		}
 	});

@@ -9,6 +9,7 @@ export { handleEvent, stateOf, syncFromSession, syncOrder, type EventOutcome, ty
 export { PaymentError, errorStatus, type PaymentErrorCode } from './errors';
 export { moneyOf, type OrderMoney } from './ledger';
 export * as schemas from './schemas';
+export * as escrow from './escrow';
 
 /** `GET /api/v1/orders/{id}`: the order with its money as the ledger has it. */
 export type OrderView = {

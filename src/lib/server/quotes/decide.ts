@@ -121,6 +121,7 @@ export async function accept(
 				customerId: row.customerId,
 				tailorId: q.tailorId,
 				priceMinor: q.priceMinor,
+				advanceMinor: q.advanceMinor,
 				currency: q.currency,
 				dueDate: q.deliveryDate,
 				actor
@@ -164,6 +165,7 @@ export async function accept(
 				priceMinor: order.priceMinor,
 				platformFeeMinor: order.platformFeeMinor,
 				tailorPayoutMinor: order.tailorPayoutMinor,
+				advanceMinor: order.advanceMinor,
 				platformFeeBasisPoints: order.platformFeeBasisPoints,
 				currency: order.currency,
 				dueDate: order.dueDate,
