@@ -1,4 +1,5 @@
 import { sql } from 'drizzle-orm';
+import type { BooksProblem, CurrencyReconciliation } from '$lib/types/escrow';
 import type { Executor } from '../db';
 import { forBooks, moneyRequestedBefore, type OrderForBooks } from '../orders/books';
 import { isProcessorOutage, payments } from '../services/payments';
@@ -8,29 +9,10 @@ import { isProcessorOutage, payments } from '../services/payments';
  * balance beside it; and the orders whose own books do not add up or whose money should have moved by now.
  */
 
-/** The ledger's totals in one currency, in its minor unit. */
-export type EscrowTotals = {
-	currency: string;
-	/** What customers paid in. */
-	chargedMinor: number;
-	/** What escrow still holds for orders not yet released or refunded. */
-	heldMinor: number;
-	/** What reached tailors: advances and releases. */
-	releasedMinor: number;
-	/** What went back to customers. */
-	refundedMinor: number;
-	/** What Tackline kept as its fee. */
-	feesMinor: number;
-};
+export type { BooksProblem, CurrencyReconciliation };
 
-/** One currency reconciled: the processor should hold what escrow holds plus the fees kept. */
-export type CurrencyReconciliation = Omit<EscrowTotals, 'chargedMinor'> & {
-	chargedMinor: number;
-	/** Available plus pending at the processor; null when it could not be asked. */
-	processorBalanceMinor: number | null;
-	/** processorBalanceMinor − (heldMinor + feesMinor); 0 when the books agree, null when the processor could not be asked. */
-	difference: number | null;
-};
+/** The ledger's totals in one currency, in its minor unit. */
+export type EscrowTotals = Omit<CurrencyReconciliation, 'processorBalanceMinor' | 'difference'>;
 
 export type Reconciliation = {
 	currencies: CurrencyReconciliation[];
@@ -151,12 +133,6 @@ export function escrowJson(r: Reconciliation) {
 	};
 }
 
-/** What is wrong with one order's books. */
-export type BooksProblem =
-	| { kind: 'does_not_add_up'; otherMinor: number }
-	| { kind: 'negative_escrow' }
-	| { kind: 'payment_without_entries'; paymentKind: string; processorId: string; amountMinor: number };
-
 export type OrderBooks = EscrowTotals & {
 	orderId: string;
 	order: OrderForBooks | null;
@@ -168,11 +144,11 @@ type OrderSumRow = SumRow & { order_id: string };
 /**
  * Orders whose own books do not balance: held + released + refunded + fees ≠ charged (money parked on another
  * account, or a transaction that spans orders), escrow below zero, or a succeeded processor object (charge,
- * transfer, refund, reversal) that no ledger entry records. Oldest order first, at most `limit`.
+ * transfer, refund, reversal) that no ledger entry records. In order id order, `limit` from `offset`.
  */
 export async function unbalancedOrders(
 	db: Executor,
-	{ limit = 50, orderIds }: { limit?: number; orderIds?: string[] } = {}
+	{ limit = 50, offset = 0, orderIds }: { limit?: number; offset?: number; orderIds?: string[] } = {}
 ): Promise<{ orders: OrderBooks[]; total: number }> {
 	const only = orderIds ? sql`and order_id = any(${orderIds}::uuid[])` : sql``;
 	const [sumRows, unrecorded] = await Promise.all([
@@ -223,15 +199,13 @@ export async function unbalancedOrders(
 			amountMinor: Number(row.amount_minor)
 		});
 	}
-	const all = [...byOrder.values()];
-	const known = new Map((await forBooks(db, [...new Set(all.map((o) => o.orderId))])).map((o) => [o.id, o]));
-	for (const o of all) o.order = known.get(o.orderId) ?? null;
-	all.sort(
-		(a, b) =>
-			(a.order?.releaseRequestedAt?.getTime() ?? 0) - (b.order?.releaseRequestedAt?.getTime() ?? 0) ||
-			a.orderId.localeCompare(b.orderId)
+	const all = [...byOrder.values()].sort(
+		(a, b) => a.orderId.localeCompare(b.orderId) || a.currency.localeCompare(b.currency)
 	);
-	return { orders: all.slice(0, limit), total: all.length };
+	const page = all.slice(offset, offset + limit);
+	const known = new Map((await forBooks(db, [...new Set(page.map((o) => o.orderId))])).map((o) => [o.id, o]));
+	for (const o of page) o.order = known.get(o.orderId) ?? null;
+	return { orders: page, total: all.length };
 }
 
 /** Ledger transactions whose entries do not sum to zero in a currency (the database refuses them; this checks it). */
