@@ -148,34 +148,25 @@ describe('the database keeps the ledger honest', () => {
 		expect((await moneyOf(db, orderId)).heldMinor).toBe(30_000);
 	});
 
-	it('refuses a transaction that moves one order’s escrow to another, even though it sums to zero', async () => {
+	it('refuses a transaction that pays one order’s tailor out of another order’s escrow, though it sums to zero', async () => {
 		const [from, to] = [await newOrder(), await newOrder()];
 		await fund(to, 10_000);
 		const transactionId = randomUUID();
 		const key = `test-cross:${transactionId}`;
+		const entry = (orderId: string, account: 'escrow' | 'tailor_payouts', amountMinor: number) => ({
+			transactionId,
+			orderId,
+			account,
+			amountMinor,
+			currency: 'EUR',
+			kind: 'release',
+			idempotencyKey: key
+		});
 		const attempt = db.transaction(async (tx) => {
-			await tx.insert(ledgerEntry).values([
-				{
-					transactionId,
-					orderId: from,
-					account: 'escrow',
-					amountMinor: -5_000,
-					currency: 'EUR',
-					kind: 'transfer',
-					idempotencyKey: key
-				},
-				{
-					transactionId,
-					orderId: to,
-					account: 'escrow',
-					amountMinor: 5_000,
-					currency: 'EUR',
-					kind: 'transfer',
-					idempotencyKey: key
-				}
-			]);
+			await tx.insert(ledgerEntry).values([entry(from, 'escrow', -5_000), entry(to, 'tailor_payouts', 5_000)]);
 		});
 		await expect(attempt).rejects.toSatisfy((e: unknown) => /in escrow/.test(causeOf(e)));
+		expect(await db.select().from(ledgerEntry).where(eq(ledgerEntry.transactionId, transactionId))).toEqual([]);
 	});
 
 	it('checks escrow at commit, so a transaction may dip below zero on its way', async () => {

@@ -150,7 +150,14 @@ export async function unbalancedOrders(
 	db: Executor,
 	{ limit = 50, offset = 0, orderIds }: { limit?: number; offset?: number; orderIds?: string[] } = {}
 ): Promise<{ orders: OrderBooks[]; total: number }> {
-	const only = orderIds ? sql`and order_id = any(${orderIds}::uuid[])` : sql``;
+	if (orderIds?.length === 0) return { orders: [], total: 0 };
+	const idList =
+		orderIds &&
+		sql.join(
+			orderIds.map((id) => sql`${id}::uuid`),
+			sql`, `
+		);
+	const only = idList ? sql`and order_id in (${idList})` : sql``;
 	const [sumRows, unrecorded] = await Promise.all([
 		db.execute<OrderSumRow>(sql`
 			select order_id, currency, ${sums.charged} as charged, ${sums.held} as held, ${sums.released} as released,
@@ -161,7 +168,7 @@ export async function unbalancedOrders(
 		db.execute<{ order_id: string; kind: string; processor_id: string; amount_minor: string; currency: string }>(sql`
 			select p.order_id, p.kind, p.processor_id, p.amount_minor, p.currency
 			from payment p
-			where p.status = 'succeeded' ${orderIds ? sql`and p.order_id = any(${orderIds}::uuid[])` : sql``}
+			where p.status = 'succeeded' ${idList ? sql`and p.order_id in (${idList})` : sql``}
 				and not exists (
 					select 1 from ledger_entry l where l.payment_id = p.id or l.idempotency_key = p.idempotency_key
 				)`)
