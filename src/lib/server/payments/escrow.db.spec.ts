@@ -224,14 +224,14 @@ describe('escrow totals and reconciliation', () => {
 	it('reports no difference when the processor holds escrow plus fees, and the amount when it does not', async () => {
 		const totals = await totalsByCurrency(db);
 		const exact = new Map(totals.map((t) => [t.currency, t.heldMinor + t.feesMinor]));
-		const agreed = await reconcile(db, { readBalance: async () => exact });
+		const agreed = await reconcile(db, { readBalance: () => Promise.resolve(exact) });
 		expect(agreed.processorAvailable).toBe(true);
 		expect(agreed.currencies.length).toBeGreaterThan(0);
 		for (const c of agreed.currencies) expect(c.difference).toBe(0);
 
 		const eur = exact.get('EUR') ?? 0;
 		const off = await reconcile(db, {
-			readBalance: async () => new Map([...exact, ['EUR', eur - 1_250], ['NOK', 700]])
+			readBalance: () => Promise.resolve(new Map([...exact, ['EUR', eur - 1_250], ['NOK', 700]]))
 		});
 		expect(off.currencies.find((c) => c.currency === 'EUR')).toMatchObject({
 			processorBalanceMinor: eur - 1_250,
@@ -245,7 +245,7 @@ describe('escrow totals and reconciliation', () => {
 			difference: 700
 		});
 		// A currency the ledger has and the processor lacks reconciles against zero.
-		const missing = await reconcile(db, { readBalance: async () => new Map() });
+		const missing = await reconcile(db, { readBalance: () => Promise.resolve(new Map<string, number>()) });
 		for (const c of missing.currencies) expect(c.difference).toBe(-(c.heldMinor + c.feesMinor));
 	});
 
