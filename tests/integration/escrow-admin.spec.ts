@@ -72,7 +72,17 @@ async function escrow(): Promise<Escrow> {
 	return body;
 }
 
-const eur = (body: Escrow) => body.currencies.find((c) => c.currency === 'EUR')!;
+/** The euro row; a currency nobody has paid in yet is all zeros. */
+const eur = (body: Escrow): Row =>
+	body.currencies.find((c) => c.currency === 'EUR') ?? {
+		currency: 'EUR',
+		heldMinor: 0,
+		releasedMinor: 0,
+		refundedMinor: 0,
+		feesMinor: 0,
+		processorBalanceMinor: body.processorAvailable ? 0 : null,
+		difference: body.processorAvailable ? 0 : null
+	};
 
 async function until<T>(read: () => Promise<T>, done: (value: T) => boolean, timeoutMs = 8000): Promise<T> {
 	const deadline = Date.now() + timeoutMs;
