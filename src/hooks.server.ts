@@ -13,6 +13,8 @@ import { queueNames } from '$lib/server/jobs/names';
 import { startJobs, stopJobs } from '$lib/server/jobs/runner';
 import * as commissions from '$lib/server/commissions';
 import * as mail from '$lib/server/mail';
+import * as orders from '$lib/server/orders';
+import * as payments from '$lib/server/payments';
 import * as quotes from '$lib/server/quotes';
 import * as messages from '$lib/server/messages';
 import * as search from '$lib/server/search';
@@ -22,12 +24,18 @@ import { requestSync } from '$lib/server/search-outbox';
 export const init: ServerInit = async () => {
 	if (building) return; // prerendering public pages needs no database
 	process.once('sveltekit:shutdown', () => void stopJobs());
+	// Quotes create orders, so orders cannot import quotes: cancelling an unpaid order is wired to them here.
+	orders.onUnpaidCancelled(quotes.reopenAfterCancelledOrder);
 	await startJobs({
 		[queueNames.mail]: mail.deliver,
 		[queueNames.commissionExpiry]: async () => void (await commissions.expireDue(db)),
 		[queueNames.quoteLapse]: async () => void (await quotes.lapseDue(db)),
 		[queueNames.messageDigest]: async () => void (await messages.sendDigests(db)),
-		[queueNames.searchSync]: async () => void (await search.syncOutbox(db))
+		[queueNames.searchSync]: async () => void (await search.syncOutbox(db)),
+		[queueNames.orderRelease]: (data: { orderId: string }) => payments.runRelease(db, data),
+		[queueNames.orderRefund]: (data: { orderId: string }) => payments.runRefund(db, data),
+		[queueNames.orderAdvance]: (data: { orderId: string }) => payments.runAdvance(db, data),
+		[queueNames.orderAutoRelease]: async () => void (await orders.releaseDue(db))
 	});
 	void mail.relayStatus(); // warm the health check's cache
 	// A search engine that lost its data (or a first start) is rebuilt by the first sync run.

@@ -355,3 +355,12 @@ export async function ensureAdmin(db: Executor, input: { email: string; name: st
 		return admin;
 	});
 }
+
+/** Every administrator's id (active ones), for alerts that need a person. */
+export async function adminIds(db: Executor): Promise<string[]> {
+	const rows = await db
+		.select({ id: user.id })
+		.from(user)
+		.where(and(eq(user.role, 'admin'), isNull(user.suspendedAt)));
+	return rows.map((row) => row.id);
+}

@@ -1,4 +1,13 @@
-export { cancel, createDraft, editOpen, expire, publish, updateDraft, type Actor } from './transitions';
+export {
+	cancel,
+	createDraft,
+	editOpen,
+	expire,
+	publish,
+	reopenAfterCancelledOrder,
+	updateDraft,
+	type Actor
+} from './transitions';
 export { expireDue } from './expiry';
 export { award, lockForDecision } from './award';
 export { publishedTimes } from './published';

@@ -324,3 +324,32 @@ export async function expire(db: Executor, { id, now = new Date() }: { id: strin
 		return true;
 	});
 }
+
+/** The least time a re-opened commission stays open, so the customer can still choose among the quotes. */
+const reopenGraceMs = 7 * 86_400_000;
+
+/**
+ * Awarded → open again, when the order an acceptance made was cancelled before payment: the customer can
+ * accept another quote. Its expiry is kept, or moved to a week from now when it would come sooner. Called
+ * inside the cancellation's transaction; a commission that is not awarded is left as it is.
+ */
+export async function reopenAfterCancelledOrder(
+	tx: Executor,
+	{ id, orderId, actor, now = new Date() }: { id: string; orderId: string; actor: Pick<Actor, 'id' | 'ip'>; now?: Date }
+): Promise<boolean> {
+	const [row] = await tx.select().from(commission).where(eq(commission.id, id)).for('update').limit(1);
+	if (!row || row.status !== 'awarded') return false;
+	const floor = new Date(now.getTime() + reopenGraceMs);
+	const expiresAt = row.expiresAt && row.expiresAt > floor ? row.expiresAt : floor;
+	await tx.update(commission).set({ status: 'open', expiresAt, updatedAt: now }).where(eq(commission.id, id));
+	await audit.record(tx, {
+		actorId: actor.id,
+		ip: actor.ip,
+		action: 'commission.reopened',
+		subjectType: 'commission',
+		subjectId: id,
+		data: { orderId, expiresAt: expiresAt.toISOString() }
+	});
+	await noteCommissionChanged(tx, id);
+	return true;
+}

@@ -10,7 +10,15 @@ export const queueNames = {
 	/** Every minute: one mail per person about messages that have waited unread for 15 minutes. */
 	messageDigest: 'message-digest',
 	/** Drains the search outbox into the indexes; every minute too, so the index catches up after an outage. */
-	searchSync: 'search-sync'
+	searchSync: 'search-sync',
+	/** Transfers an order's payout to the tailor once release was asked for; retried until the processor answers. */
+	orderRelease: 'order-release',
+	/** Refunds an order's customer (reversing a paid advance first); retried until the processor answers. */
+	orderRefund: 'order-refund',
+	/** Transfers an order's materials advance once the customer approved the fabric; retried likewise. */
+	orderAdvance: 'order-advance',
+	/** Every few minutes: delivered orders whose release clock has run out are released. */
+	orderAutoRelease: 'order-auto-release'
 } as const;
 
 export type QueueName = (typeof queueNames)[keyof typeof queueNames];

@@ -1,5 +1,6 @@
 import type PgBoss from 'pg-boss';
 import { mailRetry } from '../services/mailer';
+import { moneyRetry } from '../services/order-settings';
 import { queueNames, type QueueName } from './names';
 
 export type QueueDefinition = {
@@ -22,6 +23,17 @@ export type Workers = Partial<Record<QueueName, Worker>>;
 /** The one place a queue is added. A dead-letter queue must come before the queues that use it. */
 export function queueDefinitions(): QueueDefinition[] {
 	const retry = mailRetry();
+	const money = moneyRetry();
+	// A call that moves money is retried until the processor answers, doubling the wait each time; every call
+	// carries its action's idempotency key, so a retry of one that did go through changes nothing. One job per
+	// order waits and one runs at a time (`stately` by the order's singleton key).
+	const moneyOptions: Omit<PgBoss.Queue, 'name'> = {
+		policy: 'stately',
+		retryLimit: money.retryLimit,
+		retryDelay: money.retryDelaySeconds,
+		retryBackoff: true,
+		expireInSeconds: 120
+	};
 	return [
 		{ name: queueNames.mailDeadLetter, options: { policy: 'standard' } },
 		{
@@ -68,6 +80,15 @@ export function queueDefinitions(): QueueDefinition[] {
 				expireInSeconds: 300
 			},
 			cron: { expression: '* * * * *' }
+		},
+		{ name: queueNames.orderRelease, options: moneyOptions },
+		{ name: queueNames.orderRefund, options: moneyOptions },
+		{ name: queueNames.orderAdvance, options: moneyOptions },
+		{
+			name: queueNames.orderAutoRelease,
+			// One run at a time; each order is released in its own transaction, at most once.
+			options: { policy: 'singleton', retryLimit: 3, retryDelay: 60, expireInSeconds: 300 },
+			cron: { expression: '*/5 * * * *' }
 		}
 	];
 }

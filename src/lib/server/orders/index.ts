@@ -7,6 +7,32 @@ import { platformFeeBasisPoints } from '../services/platform-fee';
 import { splitPrice } from './fee';
 
 export { rateText, splitPrice, type FeeSplit } from './fee';
+export * as lifecycle from './lifecycle';
+export {
+	agreeCancellation,
+	approveFabric,
+	autoRelease,
+	cancel,
+	confirmDelivery,
+	declineCancellation,
+	markDelivered,
+	markReady,
+	onUnpaidCancelled,
+	openCancellationRequest,
+	postProgress,
+	progressOf,
+	releaseDue,
+	requestAlteration,
+	statusWords,
+	stepWords,
+	type CancelOutcome,
+	type CancellationRequest,
+	type DeliveryInput,
+	type OrderActor,
+	type ProgressInput,
+	type ProgressPhoto
+} from './lifecycle';
+export { OrderError, orderErrorStatus, type OrderErrorCode, type OrderIssue } from './errors';
 
 const summaryColumns = {
 	id: order.id,
@@ -38,6 +64,8 @@ export type NewOrderInput = {
 	advanceMinor?: number;
 	currency: string;
 	dueDate: string;
+	/** The materials advance the quote asked for (0 or none: no advance). */
+	advanceMinor?: number;
 	actor: { id: string; ip?: string | null };
 };
 
@@ -62,6 +90,7 @@ export async function createOrder(tx: Executor, input: NewOrderInput): Promise<O
 			advanceMinor: input.advanceMinor ?? 0,
 			currency: input.currency,
 			dueDate: input.dueDate,
+			advanceMinor: input.advanceMinor ?? 0,
 			status: 'awaiting_payment'
 		})
 		.returning(summaryColumns);
@@ -102,3 +131,4 @@ export async function getForParty(
 		.limit(1);
 	return row ?? null;
 }
+export * as orderSchemas from './schemas';

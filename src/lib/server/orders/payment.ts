@@ -71,3 +71,24 @@ export async function bySession(db: Executor, sessionId: string): Promise<Payabl
 	const [row] = await db.select(payColumns).from(order).where(eq(order.checkoutSessionId, sessionId)).limit(1);
 	return row ?? null;
 }
+
+/** The whole order row, for the jobs that move its money; locked for the caller's transaction when `lock` is set. */
+export async function forMoney(
+	db: Executor,
+	{ orderId, lock = false }: { orderId: string; lock?: boolean }
+): Promise<Order | null> {
+	const query = db.select().from(order).where(eq(order.id, orderId)).limit(1);
+	const [row] = lock ? await query.for('update') : await query;
+	return row ?? null;
+}
+
+/** Keeps the charge of a payment that arrived after the order was cancelled, so it can be refunded. */
+export async function noteLateCharge(
+	db: Executor,
+	{ orderId, paymentIntentId, chargeId }: { orderId: string; paymentIntentId: string; chargeId: string }
+) {
+	await db
+		.update(order)
+		.set({ paymentIntentId, chargeId, updatedAt: new Date() })
+		.where(and(eq(order.id, orderId), eq(order.status, 'cancelled')));
+}

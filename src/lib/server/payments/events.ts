@@ -6,7 +6,8 @@ import * as commissions from '../commissions';
 import type { Executor } from '../db';
 import { processedWebhookEvent } from '../db/schema';
 import * as mail from '../mail';
-import { forPayment, markFunded, type PayableOrder } from '../orders/payment';
+import { enqueue, queueNames } from '../jobs';
+import { forPayment, markFunded, noteLateCharge, type PayableOrder } from '../orders/payment';
 import * as payouts from '../payouts';
 import { payments } from '../services/payments';
 import { outageAsUnavailable, PaymentError } from './errors';
@@ -74,6 +75,7 @@ async function mailBothSides(tx: Executor, row: PayableOrder) {
  */
 async function fund(tx: Executor, paid: Paid, via: string): Promise<boolean> {
 	const row = await forPayment(tx, { orderId: paid.orderId, lock: true });
+	if (row?.status === 'cancelled') return refundLatePayment(tx, row, paid, via);
 	if (!row || row.status !== 'awaiting_payment') return false;
 	if (paid.amountMinor !== row.priceMinor || paid.currency.toUpperCase() !== row.currency) {
 		await audit.record(tx, {
@@ -126,6 +128,47 @@ async function fund(tx: Executor, paid: Paid, via: string): Promise<boolean> {
 		}
 	});
 	await mailBothSides(tx, funded);
+	return true;
+}
+
+/**
+ * A payment that arrives for an order cancelled before it was paid (the payment page was still open): the
+ * charge is recorded and taken into escrow as any payment is, and the `order-refund` job gives it all back.
+ * Once per charge: the key `charge:<order>` makes a replay change nothing.
+ */
+async function refundLatePayment(tx: Executor, row: PayableOrder, paid: Paid, via: string): Promise<boolean> {
+	const key = `charge:${row.id}`;
+	const currency = paid.currency.toUpperCase();
+	const paymentId = await recordPayment(tx, {
+		orderId: row.id,
+		kind: 'charge',
+		processorId: paid.chargeId,
+		amountMinor: paid.amountMinor,
+		currency,
+		status: 'succeeded',
+		idempotencyKey: key
+	});
+	if (!paymentId) return false;
+	await noteLateCharge(tx, { orderId: row.id, paymentIntentId: paid.paymentIntentId, chargeId: paid.chargeId });
+	await post(tx, {
+		orderId: row.id,
+		currency,
+		kind: 'charge',
+		idempotencyKey: key,
+		paymentId,
+		postings: [
+			{ account: 'customer_payments', amountMinor: -paid.amountMinor },
+			{ account: 'escrow', amountMinor: paid.amountMinor }
+		]
+	});
+	await audit.record(tx, {
+		actorId: null,
+		action: 'order.late_payment',
+		subjectType: 'order',
+		subjectId: row.id,
+		data: { chargeId: paid.chargeId, amountMinor: paid.amountMinor, currency, via }
+	});
+	await enqueue(tx, queueNames.orderRefund, { orderId: row.id }, { singletonKey: row.id });
 	return true;
 }
 

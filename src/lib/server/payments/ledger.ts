@@ -85,7 +85,8 @@ export async function moneyOf(db: Executor, orderId: string): Promise<OrderMoney
 		else if (row.account === 'customer_refunds') money.refundedMinor += amount;
 		else if (row.account === 'platform_fees') money.feeMinor += amount;
 		else if (row.account === 'tailor_payouts') {
-			if (row.kind === 'advance_transfer') money.advancedMinor += amount;
+			// A reversal takes back an advance (the only transfer reversed before disputes exist).
+			if (row.kind === 'advance_transfer' || row.kind === 'reversal') money.advancedMinor += amount;
 			else money.releasedMinor += amount;
 		}
 	}
@@ -124,4 +125,29 @@ export async function lastFailure(db: Executor, orderId: string): Promise<{ mess
 		.limit(1);
 	if (!row || row.status !== 'failed') return null;
 	return { message: row.message ?? 'The card was declined.', at: row.at };
+}
+
+/** The processor object recorded under a business action's key, or null when none is yet. */
+export async function paymentByKey(db: Executor, idempotencyKey: string) {
+	const [row] = await db
+		.select({
+			id: payment.id,
+			processorId: payment.processorId,
+			amountMinor: payment.amountMinor,
+			status: payment.status
+		})
+		.from(payment)
+		.where(eq(payment.idempotencyKey, idempotencyKey))
+		.limit(1);
+	return row ?? null;
+}
+
+/** Whether a ledger transaction was posted under this key. */
+export async function posted(db: Executor, idempotencyKey: string): Promise<boolean> {
+	const [row] = await db
+		.select({ id: ledgerEntry.id })
+		.from(ledgerEntry)
+		.where(eq(ledgerEntry.idempotencyKey, idempotencyKey))
+		.limit(1);
+	return Boolean(row);
 }

@@ -124,6 +124,7 @@ export async function accept(
 				advanceMinor: q.advanceMinor,
 				currency: q.currency,
 				dueDate: q.deliveryDate,
+				advanceMinor: q.advanceMinor,
 				actor
 			});
 			await tx.update(quote).set({ status: 'accepted', decidedAt: now, updatedAt: now }).where(eq(quote.id, q.id));

@@ -25,3 +25,4 @@ export * from './decide';
 export { acceptResponse, quoteListResponse, quoteResponse, type AcceptResponse } from './response-schemas';
 export * from './compare';
 export { fitMethod, formatKm } from './fit';
+export { reopenAfterCancelledOrder, orderCancelledBeforePayment } from './reopen';

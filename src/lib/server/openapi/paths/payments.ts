@@ -1,6 +1,12 @@
 import { z } from 'zod';
 import { checkoutRequest } from '../../payments/schemas';
-import { checkoutResponse, orderResponse, webhookResponse } from '../../payments/response-schemas';
+import { alterationRequest, cancelRequest, deliverRequest, emptyRequest, progressRequest } from '../../orders/schemas';
+import {
+	checkoutResponse,
+	orderResponse,
+	progressStepResponse,
+	webhookResponse
+} from '../../payments/response-schemas';
 import { access, errors, jsonBody, jsonRequest, uuidPath, type Paths } from '../common';
 import type { Area } from '../registry';
 
@@ -48,6 +54,112 @@ const paths: Paths = {
 			responses: {
 				'201': jsonBody(checkoutResponse, 'Where the customer pays.'),
 				...errors(400, 401, 403, 404, 409, 413, 415, 503)
+			}
+		}
+	},
+	'/api/v1/orders/{id}/progress': {
+		post: {
+			operationId: 'postOrderProgress',
+			tags,
+			summary: 'Post a progress step',
+			...access(
+				'signedIn',
+				'The order’s tailor tells the customer how the work goes, while the order is funded, in work or ready. The first step other than `fabric_sourced` starts the work (`funded → in_work`). The same step and note again within a minute answers 200 with the first one. The customer gets 403; anyone else 404; 409 in any other state.'
+			),
+			requestParams: id,
+			requestBody: jsonRequest(progressRequest),
+			responses: {
+				'201': jsonBody(progressStepResponse, 'The step as posted.'),
+				'200': jsonBody(progressStepResponse, 'The same step, posted a moment ago.'),
+				...errors(400, 401, 403, 404, 409, 413, 415)
+			}
+		}
+	},
+	'/api/v1/orders/{id}/deliver': {
+		post: {
+			operationId: 'deliverOrder',
+			tags,
+			summary: 'Mark an order delivered',
+			...access(
+				'signedIn',
+				'The order’s tailor hands the garment over — `pickup` at the workroom, or `courier` with its tracking reference — from in work or ready. Starts the release clock (`autoReleaseAt`). Delivering again answers an open alteration request with a fresh clock; otherwise a repeat changes nothing. The customer gets 403; anyone else 404; 409 in any other state.'
+			),
+			requestParams: id,
+			requestBody: jsonRequest(deliverRequest),
+			responses: {
+				'200': jsonBody(orderResponse, 'The order, delivered.'),
+				...errors(400, 401, 403, 404, 409, 413, 415)
+			}
+		}
+	},
+	'/api/v1/orders/{id}/confirm': {
+		post: {
+			operationId: 'confirmOrderDelivery',
+			tags,
+			summary: 'Confirm delivery (release the payment)',
+			...access(
+				'signedIn',
+				'The order’s customer confirms they have the garment, which releases the payment to the tailor: price less fee less any advance paid, transferred once however often this is called. 202 while the transfer is on its way (`releaseRequestedAt`), 200 once the order is `released`. The tailor and administrators get 403; anyone else 404; 409 before delivery. The body may be left out or sent as `{}`.'
+			),
+			requestParams: id,
+			requestBody: { ...jsonRequest(emptyRequest), required: false },
+			responses: {
+				'202': jsonBody(orderResponse, 'Release asked for; the transfer is on its way.'),
+				'200': jsonBody(orderResponse, 'Already released.'),
+				...errors(400, 401, 403, 404, 409, 413, 415)
+			}
+		}
+	},
+	'/api/v1/orders/{id}/cancel': {
+		post: {
+			operationId: 'cancelOrder',
+			tags,
+			summary: 'Cancel an order',
+			...access(
+				'signedIn',
+				'An unpaid order is cancelled at once by either party (or an administrator): the commission opens again and the quotes its acceptance declined are sent again while still valid. A paid order before work starts is cancelled by agreement: the first party’s call asks (`cancellation.request`), the other party’s call agrees and the whole payment is refunded (202 while the refund is on its way; a paid advance is reversed first). `decline: true` turns a request down, or withdraws your own. Once work has started, 409: later cancellations go through disputes. Anyone but the parties gets 404.'
+			),
+			requestParams: id,
+			requestBody: { ...jsonRequest(cancelRequest), required: false },
+			responses: {
+				'200': jsonBody(orderResponse, 'Cancelled, asked for, declined, or already so.'),
+				'202': jsonBody(orderResponse, 'Cancellation agreed; the refund is on its way.'),
+				...errors(400, 401, 403, 404, 409, 413, 415)
+			}
+		}
+	},
+	'/api/v1/orders/{id}/alteration': {
+		post: {
+			operationId: 'requestOrderAlteration',
+			tags,
+			summary: 'Ask for an alteration',
+			...access(
+				'signedIn',
+				'The order’s customer asks for something to be changed after delivery. The order stays `delivered` and its release clock pauses until the tailor delivers again; asking again while a request is open changes nothing. The tailor and administrators get 403; anyone else 404; 409 before delivery or after release was asked for.'
+			),
+			requestParams: id,
+			requestBody: jsonRequest(alterationRequest),
+			responses: {
+				'200': jsonBody(orderResponse, 'The order, with the alteration request.'),
+				...errors(400, 401, 403, 404, 409, 413, 415)
+			}
+		}
+	},
+	'/api/v1/orders/{id}/fabric-approval': {
+		post: {
+			operationId: 'approveOrderFabric',
+			tags,
+			summary: 'Approve the fabric (pay the advance)',
+			...access(
+				'signedIn',
+				'The order’s customer approves the fabric the tailor showed (a `fabric_sourced` step with a photo), which pays the materials advance agreed in the quote; the final release deducts it. 202 while the transfer is on its way, 200 once paid. 409 when the order has no advance, the fabric has not been shown, or the order is past work. The tailor and administrators get 403; anyone else 404. The body may be left out or sent as `{}`.'
+			),
+			requestParams: id,
+			requestBody: { ...jsonRequest(emptyRequest), required: false },
+			responses: {
+				'202': jsonBody(orderResponse, 'Approved; the advance is on its way.'),
+				'200': jsonBody(orderResponse, 'Approved, and the advance paid.'),
+				...errors(400, 401, 403, 404, 409, 413, 415)
 			}
 		}
 	},
