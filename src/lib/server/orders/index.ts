@@ -60,8 +60,6 @@ export type NewOrderInput = {
 	customerId: string;
 	tailorId: string;
 	priceMinor: number;
-	/** The quote's materials advance, in minor units (0 for none); the database keeps it within 30 % of the price. */
-	advanceMinor?: number;
 	currency: string;
 	dueDate: string;
 	/** The materials advance the quote asked for (0 or none: no advance). */
@@ -87,7 +85,6 @@ export async function createOrder(tx: Executor, input: NewOrderInput): Promise<O
 			platformFeeMinor: split.platformFeeMinor,
 			tailorPayoutMinor: split.tailorPayoutMinor,
 			platformFeeBasisPoints: split.platformFeeBasisPoints,
-			advanceMinor: input.advanceMinor ?? 0,
 			currency: input.currency,
 			dueDate: input.dueDate,
 			advanceMinor: input.advanceMinor ?? 0,

@@ -121,7 +121,6 @@ export async function accept(
 				customerId: row.customerId,
 				tailorId: q.tailorId,
 				priceMinor: q.priceMinor,
-				advanceMinor: q.advanceMinor,
 				currency: q.currency,
 				dueDate: q.deliveryDate,
 				advanceMinor: q.advanceMinor,
