@@ -7,6 +7,7 @@ import { afterAll, beforeAll, vi } from 'vitest';
 import { acceptRows } from './authorization/accept';
 import { castActors } from './authorization/actors';
 import { describeMatrix, type World } from './authorization/matrix';
+import { escrowRows } from './authorization/escrow';
 import { commissionRows } from './authorization/commissions';
 import { fittingRows } from './authorization/fittings';
 import { measurementProfileRows } from './authorization/measurement-profiles';
@@ -45,3 +46,4 @@ describeMatrix('the order page, its actions and the order lists', orderPageRows,
 describeMatrix('fittings', fittingRows, () => world);
 describeMatrix('moving orders along: progress, delivery, release, cancellation', orderLifecycleRows, () => world);
 describeMatrix('notifications and their settings', notificationRows, () => world);
+describeMatrix('the books: escrow and reconciliation', escrowRows, () => world);

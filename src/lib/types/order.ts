@@ -22,6 +22,8 @@ export type OrderSummary = {
 	priceMinor: number;
 	platformFeeMinor: number;
 	tailorPayoutMinor: number;
+	/** The materials advance agreed in the quote, paid out of the payout when the fabric is approved (0 for none). */
+	advanceMinor: number;
 	platformFeeBasisPoints: number;
 	currency: string;
 	dueDate: string;

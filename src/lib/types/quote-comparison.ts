@@ -27,6 +27,8 @@ export type ComparedQuote = {
 	daysBeforeNeeded: number | null;
 	fittings: number;
 	fabricIncluded: boolean;
+	/** Paid to the tailor when the customer approves the fabric, out of the price (0 for none). */
+	advanceMinor: number;
 	message: string;
 	validUntil: string;
 	createdAt: string;
@@ -67,6 +69,8 @@ export type AcceptPreview = {
 	priceMinor: number;
 	platformFeeMinor: number;
 	tailorPayoutMinor: number;
+	/** Paid to the tailor when the customer approves the fabric, out of the payout (0 for none). */
+	advanceMinor: number;
 	currency: string;
 	rateText: string;
 };

@@ -13,6 +13,7 @@ function q(id: string, fields: Partial<ComparedQuote>): ComparedQuote {
 		daysBeforeNeeded: 5,
 		fittings: 1,
 		fabricIncluded: true,
+		advanceMinor: 0,
 		message: '',
 		validUntil: '2027-01-01T00:00:00.000Z',
 		createdAt: '2026-12-01T00:00:00.000Z',

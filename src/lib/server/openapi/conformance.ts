@@ -27,6 +27,8 @@ import type { placeResponse } from '../places/schemas';
 import type { PresentedProfile } from '../profiles';
 import type { EventOutcome, OrderView, startCheckout } from '../payments';
 import type { checkoutResponse, orderResponse, webhookResponse } from '../payments/response-schemas';
+import type { escrowJson } from '../payments/escrow';
+import type { escrowResponse } from '../payments/escrow-schemas';
 import type { profileResponse } from '../profiles/response-schemas';
 import type { accept, QuoteJson } from '../quotes';
 import type { acceptResponse, quoteListResponse, quoteResponse } from '../quotes/response-schemas';
@@ -149,5 +151,6 @@ export type Conformance = [
 	Assert<Fits<DraftResponse, typeof draftResponseSchema>>,
 	Assert<Fits<LayoutResponse, typeof layoutResponseSchema>>,
 	Assert<Fits<ReturnType<typeof estimateQuoteRequest>, typeof quoteEstimateResponseSchema>>,
-	Assert<Fits<ReturnType<typeof listGarments>, typeof garmentListSchema>>
+	Assert<Fits<ReturnType<typeof listGarments>, typeof garmentListSchema>>,
+	Assert<Fits<ReturnType<typeof escrowJson>, typeof escrowResponse>>
 ];

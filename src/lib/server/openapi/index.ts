@@ -1,6 +1,7 @@
 import { createHash } from 'node:crypto';
 import { buildDocument, type Area, type OpenApiDocument } from './registry';
 import { docsView } from './view';
+import { adminArea } from './paths/admin';
 import { commissionsArea } from './paths/commissions';
 import { draftingArea } from './paths/drafting';
 import { fittingsArea } from './paths/fittings';
@@ -31,6 +32,7 @@ export const areas: readonly Area[] = [
 	profilesArea,
 	draftingArea,
 	placesArea,
+	adminArea,
 	serviceArea
 ];
 

@@ -44,6 +44,7 @@ const summaryColumns = {
 	priceMinor: order.priceMinor,
 	platformFeeMinor: order.platformFeeMinor,
 	tailorPayoutMinor: order.tailorPayoutMinor,
+	advanceMinor: order.advanceMinor,
 	platformFeeBasisPoints: order.platformFeeBasisPoints,
 	currency: order.currency,
 	dueDate: order.dueDate,

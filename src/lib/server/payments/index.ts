@@ -14,6 +14,7 @@ export { runAdvance } from './advance';
 export { runRefund } from './refund';
 export { runRelease } from './release';
 export * as schemas from './schemas';
+export * as escrow from './escrow';
 
 /** `GET /api/v1/orders/{id}`: the order with its money as the ledger has it. */
 export type OrderView = {

@@ -107,6 +107,7 @@ export async function compare(
 			daysBeforeNeeded: row.dateNeeded ? daysBetween(q.deliveryDate, row.dateNeeded) : null,
 			fittings: q.fittingsIncluded,
 			fabricIncluded: q.fabricIncluded,
+			advanceMinor: q.advanceMinor,
 			message: q.message,
 			validUntil: q.validUntil.toISOString(),
 			createdAt: q.createdAt.toISOString(),

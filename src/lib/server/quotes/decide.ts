@@ -159,6 +159,7 @@ export async function accept(
 				priceMinor: order.priceMinor,
 				platformFeeMinor: order.platformFeeMinor,
 				tailorPayoutMinor: order.tailorPayoutMinor,
+				advanceMinor: order.advanceMinor,
 				platformFeeBasisPoints: order.platformFeeBasisPoints,
 				currency: order.currency,
 				dueDate: order.dueDate,

@@ -17,6 +17,7 @@ export function quoteJson(row: Quote, warnings: QuoteWarning[] = []) {
 		deliveryDate: row.deliveryDate,
 		fittings: row.fittingsIncluded,
 		fabricIncluded: row.fabricIncluded,
+		advanceMinor: row.advanceMinor,
 		message: row.message,
 		validUntil: row.validUntil.toISOString(),
 		status: row.status,

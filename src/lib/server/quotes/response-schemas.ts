@@ -25,6 +25,10 @@ export const quoteResponse = z
 		deliveryDate: isoDay,
 		fittings: z.int().meta({ description: 'Fittings included in the price.' }),
 		fabricIncluded: z.boolean(),
+		advanceMinor: z.int().meta({
+			description:
+				'The advance for materials, in minor units, paid to the tailor when the customer approves the fabric and deducted from the final payment; 0 for none.'
+		}),
 		message: z.string(),
 		validUntil: instant,
 		status: z.enum(quoteStatus.enumValues),
@@ -54,6 +58,9 @@ export const acceptResponse = z
 		priceMinor: z.int().meta({ description: 'The accepted price, in minor units.' }),
 		platformFeeMinor: z.int().meta({ description: 'Tackline’s fee, rounded half up from the basis points.' }),
 		tailorPayoutMinor: z.int().meta({ description: 'What the tailor is paid: price less fee.' }),
+		advanceMinor: z.int().meta({
+			description: 'The part of the payout paid early, when the customer approves the fabric; 0 for none.'
+		}),
 		platformFeeBasisPoints: z.int(),
 		currency,
 		dueDate: isoDay,

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { isCurrencyCode } from '$lib/drafting';
 import { parseAmount } from '$lib/format/amount-input';
+import { advanceIssue, advanceLimitPercent } from '$lib/quotes/advance';
 import { text } from '../forms';
 
 /** The most a quote may ask, in minor units: far above any garment, well inside a 32-bit integer. */
@@ -47,23 +48,58 @@ const fittings = z
 
 const message = text({ max: maxMessageLength, multiline: true });
 
-/** The body of `POST /api/v1/commissions/{id}/quotes`. */
-export const quoteCreate = z.strictObject({
+const advanceMinor = z
+	.number({ error: 'Give the advance as a whole number of minor units.' })
+	.int('Give the advance in whole minor units (cents, pence).')
+	.min(0, 'The advance cannot be negative.')
+	.max(maxPriceMinor, 'That advance is beyond what Tackline takes for one garment.')
+	.meta({
+		description: `An advance for materials, paid to the tailor when the customer approves the fabric and deducted from the final payment: at most ${advanceLimitPercent} % of the price, and only when the fabric is included. 0 for none.`
+	});
+
+const terms = z.strictObject({
 	priceMinor,
 	currency,
 	deliveryDate: isoDate,
 	fittings,
 	fabricIncluded: z.boolean({ error: 'Say whether the fabric is included (true or false).' }),
 	message: message.default(''),
-	validUntil
+	validUntil,
+	advanceMinor: advanceMinor.default(0)
+});
+
+/** The body of `POST /api/v1/commissions/{id}/quotes`. */
+export const quoteCreate = terms.superRefine((body, ctx) => {
+	const issue = advanceIssue(body);
+	if (issue) ctx.addIssue({ code: 'custom', path: [issue.path], message: issue.message });
 });
 export type QuoteCreate = z.output<typeof quoteCreate>;
 
-/** The body of `PATCH /api/v1/quotes/{id}`: any of the same fields, at least one. */
-export const quotePatch = quoteCreate
-	.extend({ message })
+/**
+ * The body of `PATCH /api/v1/quotes/{id}`: any of the same fields, at least one. The advance is checked here
+ * when the body carries everything it depends on, and against the quote's other terms when it is changed.
+ */
+export const quotePatch = terms
+	.extend({ message, advanceMinor })
 	.partial()
-	.refine((body) => Object.keys(body).length > 0, 'Send at least one field to change.');
+	.superRefine((body, ctx) => {
+		if (Object.keys(body).length === 0) {
+			ctx.addIssue({ code: 'custom', message: 'Send at least one field to change.' });
+			return;
+		}
+		const { priceMinor, currency, fabricIncluded, advanceMinor } = body;
+		if (!advanceMinor) return;
+		// Whatever the body leaves out comes from the quote itself; `quotes.edit` checks the merged terms.
+		if (fabricIncluded === false || (fabricIncluded && priceMinor !== undefined && currency !== undefined)) {
+			const issue = advanceIssue({
+				priceMinor: priceMinor ?? 0,
+				currency: currency ?? '',
+				advanceMinor,
+				fabricIncluded
+			});
+			if (issue) ctx.addIssue({ code: 'custom', path: [issue.path], message: issue.message });
+		}
+	});
 export type QuotePatch = z.output<typeof quotePatch>;
 
 /** The longest reason a customer may give for declining a quote. */
@@ -105,7 +141,8 @@ export function quoteForm(currencyCode: string) {
 			fittings: wholeNumber('fittings', maxFittings),
 			fabricIncluded: checkbox,
 			message: text({ max: maxMessageLength, multiline: true }),
-			validUntil: isoDate
+			validUntil: isoDate,
+			advance: z.string().trim().max(20, 'Give the advance as an amount such as 60 or 60.50.').optional()
 		})
 		.transform((form, ctx) => {
 			const amount = parseAmount(form.price, currencyCode);
@@ -118,6 +155,26 @@ export function quoteForm(currencyCode: string) {
 				ctx.addIssue({ code: 'custom', path: ['price'], message: checked.error.issues[0].message });
 				return z.NEVER;
 			}
+			// The advance field shows only while the fabric is included; a value left in it otherwise is not sent on.
+			let advanceMinor = 0;
+			if (form.fabricIncluded && form.advance) {
+				const advance = parseAmount(form.advance, currencyCode);
+				if (!advance.ok) {
+					ctx.addIssue({ code: 'custom', path: ['advance'], message: advance.message });
+					return z.NEVER;
+				}
+				advanceMinor = advance.minor;
+				const issue = advanceIssue({
+					priceMinor: checked.data,
+					currency: currencyCode,
+					advanceMinor,
+					fabricIncluded: true
+				});
+				if (issue) {
+					ctx.addIssue({ code: 'custom', path: ['advance'], message: issue.message });
+					return z.NEVER;
+				}
+			}
 			return {
 				priceMinor: checked.data,
 				currency: currencyCode,
@@ -125,7 +182,8 @@ export function quoteForm(currencyCode: string) {
 				fittings: form.fittings,
 				fabricIncluded: form.fabricIncluded,
 				message: form.message,
-				validUntil: endOfDay(form.validUntil)
+				validUntil: endOfDay(form.validUntil),
+				advanceMinor
 			} satisfies QuoteCreate;
 		});
 }
@@ -138,6 +196,7 @@ export const quoteFormFields = [
 	'fabricIncluded',
 	'message',
 	'validUntil',
+	'advance',
 	'fabricMetres',
 	'fabricPrice',
 	'labourHours',

@@ -1,4 +1,5 @@
 import { and, eq, lte, sql } from 'drizzle-orm';
+import { advanceIssue } from '$lib/quotes/advance';
 import * as accounts from '../accounts';
 import * as audit from '../audit';
 import { todayIn } from '../commissions';
@@ -18,7 +19,8 @@ import { quoteWarnings, type QuoteWarning } from './warnings';
 /** Who acts: the signed-in person (routes pass `locals.user`), with the request's address for the audit log. */
 export type Actor = { id: string; role: 'customer' | 'tailor' | 'admin'; ip?: string | null };
 
-type Terms = Omit<QuoteCreate, 'message'> & { message: string };
+/** The terms of a quote; no advance means none. */
+type Terms = Omit<QuoteCreate, 'message' | 'advanceMinor'> & { message: string; advanceMinor?: number };
 type Sent = { quote: Quote; warnings: QuoteWarning[] };
 
 function requireTailor(actor: Actor) {
@@ -39,6 +41,8 @@ function validate(terms: Terms, c: CommissionForQuoting, { today, now }: { today
 		issues.push({ path: 'currency', message: `This commission is priced in ${c.currency}; quote in ${c.currency}.` });
 	if (terms.deliveryDate <= today)
 		issues.push({ path: 'deliveryDate', message: 'Choose a delivery date after today.' });
+	const advance = advanceIssue({ ...terms, advanceMinor: terms.advanceMinor ?? 0 });
+	if (advance) issues.push(advance);
 	if (terms.validUntil <= now) issues.push({ path: 'validUntil', message: 'Choose a date in the future.' });
 	else if (c.expiresAt && terms.validUntil > c.expiresAt)
 		issues.push({
@@ -151,6 +155,7 @@ export async function send(
 					fabricIncluded: terms.fabricIncluded,
 					message: terms.message,
 					validUntil: terms.validUntil,
+					advanceMinor: terms.advanceMinor ?? 0,
 					status: 'sent'
 				})
 				.returning();
@@ -162,7 +167,7 @@ export async function send(
 				action: 'quote.sent',
 				subjectType: 'quote',
 				subjectId: row.id,
-				data: { commissionId, priceMinor: row.priceMinor, currency: row.currency }
+				data: { commissionId, priceMinor: row.priceMinor, advanceMinor: row.advanceMinor, currency: row.currency }
 			});
 			const workroom = await workroomName(tx, actor.id);
 			await notify(tx, quoteSentNotice(c.customerId, c, workroom, row));
@@ -196,7 +201,8 @@ export async function edit(
 			fittings: changes.fittings ?? row.fittingsIncluded,
 			fabricIncluded: changes.fabricIncluded ?? row.fabricIncluded,
 			message: changes.message ?? row.message,
-			validUntil: changes.validUntil ?? row.validUntil
+			validUntil: changes.validUntil ?? row.validUntil,
+			advanceMinor: changes.advanceMinor ?? row.advanceMinor
 		};
 		validate(merged, c, { today: await tailorToday(tx, actor, today), now });
 		const set = {
@@ -206,7 +212,8 @@ export async function edit(
 			fittingsIncluded: merged.fittings,
 			fabricIncluded: merged.fabricIncluded,
 			message: merged.message,
-			validUntil: merged.validUntil
+			validUntil: merged.validUntil,
+			advanceMinor: merged.advanceMinor ?? 0
 		};
 		const changed = Object.entries(set)
 			.filter(([key, value]) => {

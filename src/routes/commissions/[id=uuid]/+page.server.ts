@@ -32,6 +32,7 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 		? {
 				quoteId: confirming.id,
 				...orders.splitPrice(confirming.priceMinor, confirming.currency, rate),
+				advanceMinor: confirming.advanceMinor,
 				rateText: orders.rateText(rate)
 			}
 		: null;

@@ -43,6 +43,7 @@ function startingValues({ commission, latest, helper }: Context, now: Date): Rec
 			deliveryDate: latest.deliveryDate,
 			fittings: String(latest.fittingsIncluded),
 			fabricIncluded: latest.fabricIncluded ? 'on' : '',
+			advance: latest.advanceMinor > 0 ? amountInputValue(latest.advanceMinor, latest.currency) : '',
 			message: latest.message,
 			validUntil: isoDay(latest.validUntil)
 		};
@@ -54,6 +55,7 @@ function startingValues({ commission, latest, helper }: Context, now: Date): Rec
 		deliveryDate: isoDay(new Date(now.getTime() + leadDays * day)),
 		fittings: '1',
 		fabricIncluded: commission.fabricSource === 'tailor_sources' ? 'on' : '',
+		advance: '',
 		message: '',
 		validUntil: twoWeeks < closes ? twoWeeks : closes
 	};
