@@ -8,17 +8,25 @@ function toDecimal(amountMinor: number, exponent: number): string {
 	return amountMinor < 0 ? `-${major}` : major;
 }
 
+/** Formatters made so far (building one costs far more than formatting with it), by locale, currency and digits. */
+const formatters = new Map<string, Intl.NumberFormat>();
+
 /** Whole units when every amount shown is whole (€450), the currency's minor digits otherwise (€60.50). */
 function formatterFor(amountsMinor: number[], currency: string, locale: string) {
 	const exponent = minorUnitExponent(currency);
 	const whole = amountsMinor.every((amount) => amount % 10 ** exponent === 0);
 	const digits = whole ? 0 : exponent;
-	const formatter = new Intl.NumberFormat(locale, {
-		style: 'currency',
-		currency,
-		minimumFractionDigits: digits,
-		maximumFractionDigits: digits
-	});
+	const key = `${locale}|${currency}|${digits}`;
+	let formatter = formatters.get(key);
+	if (!formatter) {
+		formatter = new Intl.NumberFormat(locale, {
+			style: 'currency',
+			currency,
+			minimumFractionDigits: digits,
+			maximumFractionDigits: digits
+		});
+		if (formatters.size < 512) formatters.set(key, formatter);
+	}
 	return { formatter, exponent };
 }
 
