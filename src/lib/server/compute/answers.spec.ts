@@ -23,7 +23,7 @@ describe('answer cache', () => {
 	it('does not keep what was not worked out (over budget, busy)', async () => {
 		const cache = answerCache({ maxEntries: 10, maxBytes: 1e6 });
 		let runs = 0;
-		const work = async () => answer(`busy ${++runs}`, false);
+		const work = () => Promise.resolve(answer(`busy ${++runs}`, false));
 		expect((await cache.get('r', work)).body).toBe('busy 1');
 		expect((await cache.get('r', work)).body).toBe('busy 2');
 		expect(cache.size).toBe(0);
@@ -32,7 +32,7 @@ describe('answer cache', () => {
 	it('drops the least recently used past its bounds, by count and by size', async () => {
 		const cache = answerCache({ maxEntries: 2, maxBytes: 1e6 });
 		let runs = 0;
-		const work = async () => answer(String(++runs));
+		const work = () => Promise.resolve(answer(String(++runs)));
 		await cache.get('a', work);
 		await cache.get('b', work);
 		await cache.get('a', work); // a is now the most recent
@@ -42,7 +42,7 @@ describe('answer cache', () => {
 		expect((await cache.get('b', work)).body).toBe('4');
 
 		const small = answerCache({ maxEntries: 100, maxBytes: 800 });
-		const sized = (n: number) => async () => answer('x'.repeat(n));
+		const sized = (n: number) => () => Promise.resolve(answer('x'.repeat(n)));
 		await small.get(1, sized(40));
 		await small.get(2, sized(40));
 		await small.get(3, sized(40)); // 3 × 80 bytes = 240 ≤ 800
