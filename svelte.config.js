@@ -6,8 +6,8 @@ const nodeAdapter = adapter({ out: 'build', precompress: true });
 
 /**
  * adapter-node with our own entry in place of its build/index.js (server/index.js): the protective headers
- * reach static files too, which adapter-node serves before any hook runs, and public pages are answered
- * from memory to anyone not signed in.
+ * reach static files too, which adapter-node serves before any hook runs, and public pages (and the answers the
+ * app marks `public, max-age`, server/shared-answers.js) are answered from memory to anyone not signed in.
  * @type {import('@sveltejs/kit').Adapter}
  */
 const nodeAdapterWithOwnEntry = {
@@ -18,6 +18,7 @@ const nodeAdapterWithOwnEntry = {
 		builder.copy('server/index.js', 'build/index.js');
 		builder.copy('src/lib/server/http/protective-headers.js', 'build/protective-headers.js');
 		builder.copy('server/public-pages.js', 'build/public-pages.js');
+		builder.copy('server/shared-answers.js', 'build/shared-answers.js');
 		// Public pages go where only our entry serves them (to requests without a session); adapter-node
 		// finds its prerendered folder empty and hands a signed-in request to SvelteKit instead.
 		builder.copy('build/prerendered', 'build/public-pages');

@@ -5,7 +5,9 @@
  * request (server process, and PostgreSQL's backends), and the median of per-round ratios to the keyset
  * list. Absolute figures swing on a shared machine; the ratios are what to compare.
  *
- * Options: --rounds N (5), --seconds S per slice (3), --connections C (50), --only REGEX (scenario names;
+ * Options: --rounds N (5), --seconds S per slice (3), --connections C (50), --per-address N (10: each
+ * simulated client sends N requests in a row from its own address; 1 makes every request a first visit,
+ * which costs the API's rate limit one database write each), --only REGEX (scenario names;
  * the keyset baseline always runs), --profile (the app runs under `node --cpu-prof`; a summary follows),
  * --search (`npm run bench:search`: adds 10 000 open commissions and 1 000 workrooms around Merrowgate,
  * waits for the index, then loads the near-me page and the search API beside a node:http + pg baseline
@@ -39,6 +41,7 @@ const { values: options } = parseArgs({
 		seconds: { type: 'string', default: '3' },
 		connections: { type: 'string', default: '50' },
 		only: { type: 'string' },
+		'per-address': { type: 'string', default: '10' },
 		profile: { type: 'boolean', default: false },
 		search: { type: 'boolean', default: false }
 	}
@@ -46,6 +49,7 @@ const { values: options } = parseArgs({
 const rounds = Number(options.rounds);
 const seconds = Number(options.seconds);
 const connections = Number(options.connections);
+const requestsPerAddress = Number(options['per-address']);
 const scenarioList = options.search ? searchScenarios : scenarios;
 const yardstick = options.search ? searchBaselineName : baselineName;
 
@@ -60,7 +64,14 @@ function startBaseline(kind: 'bare' | 'keyset' | 'nearby', port: number, databas
 	);
 }
 
-type Run = { scenario: Scenario; url: string; headers: Record<string, string>; body?: string; slices: Slice[] };
+type Run = {
+	scenario: Scenario;
+	url: string;
+	headers: Record<string, string>;
+	body?: string;
+	bodyFor?: (n: number) => string;
+	slices: Slice[];
+};
 
 /** The search stand-in in its own process (see scripts/bench/search-standin.ts). */
 async function startSearchProcess() {
@@ -115,6 +126,8 @@ async function main(profileDir: string | null) {
 		if (scenario.body !== undefined) headers['content-type'] = 'application/json';
 		const run: Run = { scenario, url: base + scenario.path, headers, slices: [] };
 		if (scenario.body !== undefined) run.body = JSON.stringify(scenario.body);
+		const { bodyFor } = scenario;
+		if (bodyFor) run.bodyFor = (n) => JSON.stringify(bodyFor(n));
 		const probe = await fetch(run.url, {
 			method: scenario.method ?? 'GET',
 			headers,
@@ -138,6 +151,8 @@ async function main(profileDir: string | null) {
 			method: run.scenario.method ?? 'GET',
 			headers: run.headers,
 			body: run.body,
+			bodyFor: run.bodyFor,
+			requestsPerAddress,
 			connections,
 			seconds: secondsPerSlice,
 			serverPid: pids[run.scenario.target],

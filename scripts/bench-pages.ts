@@ -1,11 +1,12 @@
 /**
  * `npm run bench:pages`: Lighthouse (mobile, Debian's Chromium, no network beyond loopback) on the home
- * page, the calculator, the customer's commissions page and the tailor's workroom, against the
+ * page, the calculator, the customer's commissions page and one of their commissions, and the tailor's workroom, against the
  * production build on a throwaway database with the demo seed. Prints the performance, accessibility and
  * best-practices scores, the main timings and the script each page loads (bytes as sent, compressed).
  */
 import * as chromeLauncher from 'chrome-launcher';
 import lighthouse from 'lighthouse';
+import pg from 'pg';
 import { signIn, startBenchEnvironment } from './bench/environment';
 import { demoAccounts } from './bench/scenarios';
 import { table } from './bench/stats';
@@ -14,17 +15,34 @@ import { log } from './lib/local';
 
 type Page = { name: string; path: string; as?: keyof typeof demoAccounts };
 
+/** The demo customer's most recently changed open commission: the page with the quotes side by side. */
+async function demoCommissionPath(databaseUrl: string) {
+	const client = new pg.Client({ connectionString: databaseUrl });
+	await client.connect();
+	try {
+		const { rows } = await client.query<{ id: string }>(
+			`select c.id from commission c join "user" u on u.id = c.customer_id
+			 where u.email = $1 and c.status = 'open' order by c.updated_at desc limit 1`,
+			[demoAccounts.customer]
+		);
+		return rows[0] ? `/commissions/${rows[0].id}` : null;
+	} finally {
+		await client.end();
+	}
+}
+
+type Audit = { numericValue?: number; details?: { items?: { resourceType?: string; transferSize?: number }[] } };
+
+const environment = await startBenchEnvironment();
+const commissionPath = await demoCommissionPath(environment.databaseUrl);
 const pages: Page[] = [
 	{ name: 'home', path: '/' },
 	{ name: 'how it works', path: '/how-it-works' },
 	{ name: 'draft calculator', path: '/draft-calculator' },
 	{ name: 'commissions (customer)', path: '/commissions', as: 'customer' },
+	...(commissionPath ? [{ name: 'a commission (customer)', path: commissionPath, as: 'customer' as const }] : []),
 	{ name: 'workroom (tailor)', path: '/workroom', as: 'tailor' }
 ];
-
-type Audit = { numericValue?: number; details?: { items?: { resourceType?: string; transferSize?: number }[] } };
-
-const environment = await startBenchEnvironment();
 const chrome = await chromeLauncher.launch({
 	chromePath: chromiumPath,
 	chromeFlags: ['--headless=new', ...chromiumFlags]

@@ -6,12 +6,14 @@ import http from 'node:http';
 import process from 'node:process';
 import { protectiveHeaders } from './protective-headers.js';
 import { loadPublicPages, servePublicPage } from './public-pages.js';
+import { sharedAnswers } from './shared-answers.js';
 
 // The largest body any request may carry: one 15 MB photo upload with its multipart framing. Each route
 // reads with its own limit (forms 64 KB, JSON 32 KB, photo uploads 16 MB), so the others stay small.
 process.env.BODY_SIZE_LIMIT ??= '16M';
 const { handler } = await import('./handler.js');
 const publicPages = loadPublicPages(new URL('./public-pages', import.meta.url).pathname);
+const shared = sharedAnswers();
 
 const host = process.env.HOST ?? '0.0.0.0';
 const port = Number(process.env.PORT ?? 3000);
@@ -82,6 +84,8 @@ const server = http.createServer((req, res) => {
 		return;
 	}
 	if (servePublicPage(publicPages, req, res)) return;
+	if (shared.serve(req, res)) return;
+	shared.watch(req, res);
 	handler(req, res, () => {
 		res.writeHead(404, { 'content-type': 'text/plain' }).end('Not found');
 	});

@@ -13,6 +13,10 @@ export type SliceRequest = {
 	postmasterPid: number;
 	/** The answer the scenario expects (200 unless it loads a 404 on purpose). */
 	status: number;
+	/** How many requests in a row each simulated client (address) sends before the next one takes over. */
+	requestsPerAddress?: number;
+	/** A body of its own for the n-th request (else every request sends `body`). */
+	bodyFor?: (n: number) => string;
 };
 
 export type Slice = {
@@ -27,9 +31,12 @@ export type Slice = {
 	statusCodes: Record<string, number>;
 };
 
-/** Each request claims one of these documentation-range addresses in turn, so per-address limits stay far away. */
+/**
+ * Simulated clients: each sends `requestsPerAddress` requests in a row from one of these documentation-range
+ * addresses, then the next takes over, so per-address limits stay far away.
+ */
 const addresses = Array.from({ length: 4096 }, (_, i) => `198.18.${i >> 8}.${(i & 255) + 1}`);
-let nextAddress = 0;
+let sent = 0;
 
 export async function slice(request: SliceRequest): Promise<Slice> {
 	const serverBefore = processCpuMicros(request.serverPid);
@@ -44,8 +51,10 @@ export async function slice(request: SliceRequest): Promise<Slice> {
 		requests: [
 			{
 				setupRequest: (req) => {
-					nextAddress = (nextAddress + 1) % addresses.length;
-					return { ...req, headers: { ...req.headers, 'x-forwarded-for': addresses[nextAddress] } };
+					const n = sent++;
+					const address = addresses[Math.floor(n / (request.requestsPerAddress ?? 1)) % addresses.length];
+					const headers = { ...req.headers, 'x-forwarded-for': address };
+					return request.bodyFor ? { ...req, headers, body: request.bodyFor(n) } : { ...req, headers };
 				}
 			}
 		]

@@ -12,6 +12,8 @@ export type Scenario = {
 	method?: 'GET' | 'POST';
 	body?: unknown;
 	as?: 'customer' | 'tailor';
+	/** A body of its own for the n-th request, so that nothing can be answered from what was worked out before. */
+	bodyFor?: (n: number) => unknown;
 	optional?: boolean;
 	/** The answer expected; anything else counts as a failure. */
 	status?: number;
@@ -36,6 +38,18 @@ export const scenarios: Scenario[] = [
 	{ name: 'draft calculator page', target: 'app', path: '/draft-calculator' },
 	{ name: 'GET /api/v1/garments', target: 'app', path: '/api/v1/garments' },
 	{ name: 'POST /api/v1/drafts', target: 'app', path: '/api/v1/drafts', method: 'POST', body: trousersDraft },
+	{
+		name: 'POST /api/v1/drafts, each body new',
+		target: 'app',
+		path: '/api/v1/drafts',
+		method: 'POST',
+		body: trousersDraft,
+		// Hips from 40 in up in steps of a thousandth: a new draft each time, never one kept from before.
+		bodyFor: (n) => ({
+			...trousersDraft,
+			measurements: { ...trousersDraft.measurements, hip_girth: 40 + (n % 4000) / 1000 }
+		})
+	},
 	{ name: 'unknown /api/v1 path (404)', target: 'app', path: '/api/v1/no-such-thing', status: 404 },
 	{ name: 'customer: commissions page', target: 'app', path: '/commissions', as: 'customer' },
 	{ name: 'tailor: workroom home (near you)', target: 'app', path: '/workroom', as: 'tailor' },

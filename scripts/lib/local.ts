@@ -74,7 +74,15 @@ function newestMtime(path: string): number {
 	return readdirSync(path).reduce((max, entry) => Math.max(max, newestMtime(join(path, entry))), stat.mtimeMs);
 }
 
-const buildInputs = ['src', 'static', 'svelte.config.js', 'vite.config.ts', 'tailwind.config.js', 'package-lock.json'];
+const buildInputs = [
+	'src',
+	'server',
+	'static',
+	'svelte.config.js',
+	'vite.config.ts',
+	'tailwind.config.js',
+	'package-lock.json'
+];
 
 /**
  * Builds the server unless `build/` is newer than every input and of the same flavour. `devTools`

@@ -38,10 +38,16 @@ export function isCurrencyCode(code: string): boolean {
 	return supported ? supported.includes(code) : true;
 }
 
+/** Exponents Intl was asked for, by currency: building a NumberFormat costs far more than the lookup. */
+const askedExponents = new Map<string, number>();
+
 export function minorUnitExponent(currency: string): number {
-	const known = minorUnitTable[currency];
+	const known = minorUnitTable[currency] ?? askedExponents.get(currency);
 	if (known !== undefined) return known;
-	return new Intl.NumberFormat('en', { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ?? 2;
+	const exponent =
+		new Intl.NumberFormat('en', { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ?? 2;
+	if (askedExponents.size < 512) askedExponents.set(currency, exponent);
+	return exponent;
 }
 
 /** a × b ÷ d rounded half up, for non-negative integers. */
@@ -149,17 +155,24 @@ export function parseMoney(text: string, currency: string): number | null {
 	return Number(match[1] + fraction.padEnd(exponent, '0'));
 }
 
+const moneyFormats = new Map<string, Intl.NumberFormat>();
+
 export function formatMoney(amountMinor: number, currency: string, locale = 'en'): string {
 	const exponent = minorUnitExponent(currency);
 	const negative = amountMinor < 0;
 	const digits = String(Math.abs(amountMinor)).padStart(exponent + 1, '0');
 	const major = exponent ? `${digits.slice(0, -exponent)}.${digits.slice(-exponent)}` : digits;
-	const formatter = new Intl.NumberFormat(locale, {
-		style: 'currency',
-		currency,
-		minimumFractionDigits: exponent,
-		maximumFractionDigits: exponent
-	});
+	const key = `${locale}|${currency}`;
+	let formatter = moneyFormats.get(key);
+	if (!formatter) {
+		formatter = new Intl.NumberFormat(locale, {
+			style: 'currency',
+			currency,
+			minimumFractionDigits: exponent,
+			maximumFractionDigits: exponent
+		});
+		if (moneyFormats.size < 512) moneyFormats.set(key, formatter);
+	}
 	// Intl formats a decimal string exactly, so money never passes through a float.
 	return formatter.format(`${negative ? '-' : ''}${major}` as unknown as number);
 }

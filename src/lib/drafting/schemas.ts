@@ -53,7 +53,12 @@ export const draftRequestSchema = z
 		options: z.record(z.string(), z.union([z.number().finite(), z.string(), z.boolean()])).default({}),
 		fabric: fabricSchema.optional(),
 		/** True once the person has confirmed the numbers are in `unit` (answers a suspected unit mix-up). */
-		unitConfirmed: z.boolean().default(false)
+		unitConfirmed: z.boolean().default(false),
+		/**
+		 * Nest the pieces' real outlines on the cloth (up to about two seconds of work); otherwise their boxes
+		 * are packed, which takes milliseconds. `fabric.nested` in the answer says which was done.
+		 */
+		nest: z.boolean().default(false)
 	})
 	.strict()
 	.superRefine((request, ctx) => {

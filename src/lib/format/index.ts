@@ -1,4 +1,4 @@
-import { garments } from '../drafting';
+import { garments } from '../drafting/templates/index';
 import { utcOffset } from './time-zones';
 
 const dateFormat = new Intl.DateTimeFormat('en-GB', {

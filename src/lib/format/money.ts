@@ -8,17 +8,25 @@ function toDecimal(amountMinor: number, exponent: number): string {
 	return amountMinor < 0 ? `-${major}` : major;
 }
 
+/** Formatters made so far (building one costs far more than formatting with it), by locale, currency and digits. */
+const formatters = new Map<string, Intl.NumberFormat>();
+
 /** Whole units when every amount shown is whole (€450), the currency's minor digits otherwise (€60.50). */
 function formatterFor(amountsMinor: number[], currency: string, locale: string) {
 	const exponent = minorUnitExponent(currency);
 	const whole = amountsMinor.every((amount) => amount % 10 ** exponent === 0);
 	const digits = whole ? 0 : exponent;
-	const formatter = new Intl.NumberFormat(locale, {
-		style: 'currency',
-		currency,
-		minimumFractionDigits: digits,
-		maximumFractionDigits: digits
-	});
+	const key = `${locale}|${currency}|${digits}`;
+	let formatter = formatters.get(key);
+	if (!formatter) {
+		formatter = new Intl.NumberFormat(locale, {
+			style: 'currency',
+			currency,
+			minimumFractionDigits: digits,
+			maximumFractionDigits: digits
+		});
+		if (formatters.size < 512) formatters.set(key, formatter);
+	}
 	return { formatter, exponent };
 }
 
@@ -31,9 +39,19 @@ export function formatMoney(amountMinor: number, currency: string, locale = 'en'
 	return formatter.format(toDecimal(amountMinor, exponent) as Exact);
 }
 
+/** Ranges written so far, by locale, currency and both ends. */
+const rangesWritten = new Map<string, string>();
+
 /** A range such as a budget, the way the locale writes ranges: "€450 – €650"; one amount when both ends agree. */
 export function formatMoneyRange(minMinor: number, maxMinor: number, currency: string, locale = 'en'): string {
 	if (minMinor === maxMinor) return formatMoney(minMinor, currency, locale);
+	// ICU's range formatting is slow next to everything else on a card; budgets repeat, so keep what it wrote.
+	const key = `${locale}|${currency}|${minMinor}|${maxMinor}`;
+	const known = rangesWritten.get(key);
+	if (known !== undefined) return known;
 	const { formatter, exponent } = formatterFor([minMinor, maxMinor], currency, locale);
-	return formatter.formatRange(toDecimal(minMinor, exponent) as Exact, toDecimal(maxMinor, exponent) as Exact);
+	const text = formatter.formatRange(toDecimal(minMinor, exponent) as Exact, toDecimal(maxMinor, exponent) as Exact);
+	if (rangesWritten.size >= 2048) rangesWritten.clear();
+	rangesWritten.set(key, text);
+	return text;
 }

@@ -1,4 +1,4 @@
-import { formatLength, type Unit } from '$lib/drafting';
+import { formatLength, type Unit } from '../drafting/units';
 
 /** One control dimension of a stored size band: lower bound inclusive, upper exclusive, in millimetres. */
 export interface SizeBandRange {

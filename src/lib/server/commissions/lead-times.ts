@@ -22,11 +22,17 @@ export function daysBetween(today: string, date: string) {
 }
 
 /** Today's calendar date where the customer is. */
+/** Day formatters by time zone: building one costs far more than formatting with it. */
+const dayFormats = new Map<string, Intl.DateTimeFormat>();
+
 export function todayIn(timeZone: string, now = new Date()) {
 	try {
-		return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(
-			now
-		);
+		let format = dayFormats.get(timeZone);
+		if (!format) {
+			format = new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' });
+			if (dayFormats.size < 1024) dayFormats.set(timeZone, format);
+		}
+		return format.format(now);
 	} catch {
 		return now.toISOString().slice(0, 10);
 	}

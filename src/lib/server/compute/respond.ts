@@ -1,42 +1,74 @@
 import { json } from '@sveltejs/kit';
 import { implausibleCodes, type DraftResponse } from '../../drafting/draft';
 import { apiError } from '../http/respond';
+import { answerCache, type Answer } from './answers';
 import { Busy, compute, OverBudget } from './index';
 import type { Task, TaskResult } from './tasks';
 
+/** The answer when the task could not be worked out: over its budget (422) or no room in the pool (503). */
+function failure(error: unknown): Response {
+	if (error instanceof OverBudget) {
+		return apiError(
+			422,
+			'too_complex',
+			'This request takes too long to work out. Send fewer or larger pieces, or split it into several requests.'
+		);
+	}
+	if (error instanceof Busy) {
+		return apiError(503, 'busy', 'Tackline is busy working out other requests. Try again in a few seconds.', [], {
+			'retry-after': '5'
+		});
+	}
+	throw error;
+}
+
+/** Drafts, layouts and estimates answered lately: a repeated request (a client polling, a page reloaded) costs nothing. */
+const answers = answerCache({ maxEntries: 500, maxBytes: 32 * 1024 * 1024 });
+
 /**
  * Runs the task off the request thread and answers its JSON, 422 when it ran over budget, 503 when busy.
- * `refuse` may turn a computed result into an error answer instead.
+ * `refuse` may turn a computed result into an error answer instead. What was computed (the answer or the
+ * refusal) is kept for the same request; running over budget or finding the pool busy is not.
  */
 export async function computeResponse<K extends Task['kind']>(
 	task: Extract<Task, { kind: K }>,
 	refuse?: (result: TaskResult[K]) => Response | null
 ): Promise<Response> {
-	return computeAnswer(task, (result) => refuse?.(result) ?? json(result));
+	const answer = await answers.get(task, async (): Promise<Answer> => {
+		let result: TaskResult[K];
+		try {
+			result = await compute<K>(task);
+		} catch (error) {
+			const response = failure(error);
+			const retryAfter = response.headers.get('retry-after');
+			return {
+				status: response.status,
+				body: await response.text(),
+				headers: retryAfter ? { 'retry-after': retryAfter } : {},
+				keep: false
+			};
+		}
+		const response = refuse?.(result) ?? json(result);
+		return { status: response.status, body: await response.text(), headers: {}, keep: true };
+	});
+	return new Response(answer.body, {
+		status: answer.status,
+		headers: { 'content-type': 'application/json', ...answer.headers }
+	});
 }
 
-/** As computeResponse, with the route shaping the answer from the result (a file rather than JSON). */
+/** As computeResponse, with the route shaping the answer from the result (a file rather than JSON); nothing is kept. */
 export async function computeAnswer<K extends Task['kind']>(
 	task: Extract<Task, { kind: K }>,
 	answer: (result: TaskResult[K]) => Response
 ): Promise<Response> {
+	let result: TaskResult[K];
 	try {
-		return answer(await compute<K>(task));
+		result = await compute<K>(task);
 	} catch (error) {
-		if (error instanceof OverBudget) {
-			return apiError(
-				422,
-				'too_complex',
-				'This request takes too long to work out. Send fewer or larger pieces, or split it into several requests.'
-			);
-		}
-		if (error instanceof Busy) {
-			return apiError(503, 'busy', 'Tackline is busy working out other requests. Try again in a few seconds.', [], {
-				'retry-after': '5'
-			});
-		}
-		throw error;
+		return failure(error);
 	}
+	return answer(result);
 }
 export type { TaskResult };
 

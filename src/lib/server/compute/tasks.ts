@@ -25,8 +25,8 @@ export function runTask(task: Task): TaskResult[Task['kind']] | Promise<TaskResu
 		case 'ping':
 			return 'pong';
 		case 'draft':
-			// The API nests the real outlines; the calculator in the browser keeps to the boxes as it types.
-			return draftGarment(task.request, { nest: draftNestBudget });
+			// Nesting the real outlines takes up to a couple of seconds: only when asked (`nest: true`).
+			return draftGarment(task.request, task.request.nest ? { nest: draftNestBudget } : {});
 		case 'layout':
 			return layoutRectangles(task.request);
 		case 'estimate':

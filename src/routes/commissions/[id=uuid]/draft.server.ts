@@ -20,7 +20,9 @@ export async function draftForAwarded(
 		unit: measurements.unit,
 		measurements: measurements.values,
 		// The customer's profile checks already asked about suspected unit mix-ups before publishing.
-		unitConfirmed: true
+		unitConfirmed: true,
+		// The cutting sheet is what the tailor buys cloth by: the real outlines, nested.
+		nest: true
 	};
 	try {
 		return { ok: true, result: await compute({ kind: 'draft', request }) };

@@ -43,7 +43,7 @@ const paths: Paths = {
 			summary: 'Draft a garment from measurements',
 			...access(
 				'public',
-				`The cutting draft: pieces with their dimensions and SVG drawings, allowances, a fabric estimate and the size band. Findings that stop a draft come back in \`errors\` (a 200); values no body has, or an unconfirmed unit mix-up, answer 422 \`implausible_measurements\`. ${busy}`
+				`The cutting draft: pieces with their dimensions and SVG drawings, allowances, a fabric estimate (the pieces' boxes packed on the cloth, or with \`nest: true\` their real outlines nested, which takes up to a couple of seconds) and the size band. Findings that stop a draft come back in \`errors\` (a 200); values no body has, or an unconfirmed unit mix-up, answer 422 \`implausible_measurements\`. ${busy}`
 			),
 			requestBody: jsonRequest(draftRequestSchema),
 			responses: {
