@@ -1,4 +1,4 @@
-import type { Meilisearch } from 'meilisearch';
+import { MeilisearchApiError, type Meilisearch } from 'meilisearch';
 import type { LatLng } from '$lib/geo/coarsen';
 import * as commissions from '../commissions';
 import type { Executor } from '../db';
@@ -107,11 +107,24 @@ function warnFallback(error: unknown) {
 	console.warn(`[search] answering from PostgreSQL: ${error instanceof Error ? error.message : String(error)}`);
 }
 
+/**
+ * After search could not be reached (refused, reset, timed out), lists come from PostgreSQL for this long
+ * before search is tried again: requests during an outage do not each wait for the client's timeout.
+ * An answer from search (even an error) proves it reachable and does not trip this.
+ */
+export const unreachablePauseMs = 1000;
+let unreachableUntil = 0;
+
+/** Whether search itself answered (an API error) rather than not at all. */
+const searchAnswered = (error: unknown) => error instanceof MeilisearchApiError;
+
 /** Tries the index, and on any failure answers the same list from PostgreSQL. */
 async function withFallback(index: () => Promise<Hit[]>, database: () => Promise<Hit[]>) {
+	if (Date.now() < unreachableUntil) return { hits: await database(), source: 'database' as ListSource };
 	try {
 		return { hits: await index(), source: 'index' as ListSource };
 	} catch (error) {
+		if (!searchAnswered(error)) unreachableUntil = Date.now() + unreachablePauseMs;
 		warnFallback(error);
 		return { hits: await database(), source: 'database' as ListSource };
 	}
