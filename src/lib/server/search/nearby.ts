@@ -113,21 +113,29 @@ function warnFallback(error: unknown) {
  * An answer from search (even an error) proves it reachable and does not trip this.
  */
 export const unreachablePauseMs = 1000;
-let unreachableUntil = 0;
+const unreachableUntil = new WeakMap<Meilisearch, number>();
 
 /** Whether search itself answered (an API error) rather than not at all. */
 const searchAnswered = (error: unknown) => error instanceof MeilisearchApiError;
 
 /** Tries the index, and on any failure answers the same list from PostgreSQL. */
-async function withFallback(index: () => Promise<Hit[]>, database: () => Promise<Hit[]>) {
-	if (Date.now() < unreachableUntil) return { hits: await database(), source: 'database' as ListSource };
+async function withFallback(
+	client: () => Meilisearch,
+	index: (client: Meilisearch) => Promise<Hit[]>,
+	database: () => Promise<Hit[]>
+) {
+	let engine: Meilisearch | null = null;
+	let failure: unknown = null;
 	try {
-		return { hits: await index(), source: 'index' as ListSource };
+		engine = client();
+		if (Date.now() >= (unreachableUntil.get(engine) ?? 0))
+			return { hits: await index(engine), source: 'index' as ListSource };
 	} catch (error) {
-		if (!searchAnswered(error)) unreachableUntil = Date.now() + unreachablePauseMs;
-		warnFallback(error);
-		return { hits: await database(), source: 'database' as ListSource };
+		failure = error;
+		if (engine && !searchAnswered(error)) unreachableUntil.set(engine, Date.now() + unreachablePauseMs);
 	}
+	if (failure) warnFallback(failure);
+	return { hits: await database(), source: 'database' as ListSource };
 }
 
 function keyOf(hit: Hit, sort: Sort): ListKey {
@@ -159,8 +167,9 @@ export async function nearbyCommissions(
 ): Promise<{ items: NearbyCommission[]; nextCursor: string | null; source: ListSource }> {
 	const want = query.limit + 1;
 	const { hits, source } = await withFallback(
-		() =>
-			fromIndex(client(), indexes.commission.uid, {
+		client,
+		(engine) =>
+			fromIndex(engine, indexes.commission.uid, {
 				q: query.filters.q,
 				filter: commissionFilter(query),
 				near: query.near,
@@ -203,8 +212,9 @@ export async function nearbyWorkrooms(
 	const filter = [`_geoRadius(${query.near.lat}, ${query.near.lng}, ${Math.round(query.radiusKm * 1000)})`];
 	if (query.filters.specialty) filter.push(`specialties = ${quoted(query.filters.specialty)}`);
 	const { hits, source } = await withFallback(
-		() =>
-			fromIndex(client(), indexes.workroom.uid, {
+		client,
+		(engine) =>
+			fromIndex(engine, indexes.workroom.uid, {
 				q: query.filters.q,
 				filter,
 				near: query.near,
