@@ -115,6 +115,11 @@ function warnFallback(error: unknown) {
 export const unreachablePauseMs = 1000;
 const unreachableUntil = new WeakMap<Meilisearch, number>();
 
+/** Search answered (the sync job reached it): lists go back to it at once, without waiting out the pause. */
+export function reachable(client: Meilisearch) {
+	unreachableUntil.delete(client);
+}
+
 /** Whether search itself answered (an API error) rather than not at all. */
 const searchAnswered = (error: unknown) => error instanceof MeilisearchApiError;
 
