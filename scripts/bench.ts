@@ -3,7 +3,14 @@
  * template, box layout, SVGs) and the box layout alone, mean and p95 per call after a warm-up; then the
  * marker (real outlines nested) per garment on folded and open cloth against the box layout: time,
  * length and cloth used. Target: the marker under 2 s a garment and never behind the boxes.
+ *
+ * Then the search bench (`npm run bench:search`, scripts/bench-http.ts --search): its own database with
+ * 10 000 open commissions and 1 000 workrooms, the tailor's near-me page (SSR) and the search API at 50
+ * connections beside a node:http + pg baseline answering the same keyset query; req/s, p50 and p99.
+ * Options after `--` go to it (--rounds, --seconds, --connections, --only, --profile); `--no-search`
+ * runs the drafting part alone, `--search-only` the search part alone.
  */
+import { spawnSync } from 'node:child_process';
 import { performance } from 'node:perf_hooks';
 import {
 	draftGarmentMm,
@@ -18,6 +25,25 @@ import {
 } from '../src/lib/drafting/index';
 import { nestFabricEstimate } from '../src/lib/drafting/marker/index';
 import { hopperTurtonC1P1 } from '../src/lib/drafting/strip-packing-instances';
+
+const passed = process.argv.slice(2);
+const withSearch = !passed.includes('--no-search');
+const searchOnly = passed.includes('--search-only');
+const searchArgs = passed.filter((arg) => arg !== '--no-search' && arg !== '--search-only');
+
+/** The search bench in a process of its own (it builds and starts the app, and loads it with autocannon). */
+function searchBench() {
+	console.log('\nSearch near me: npm run bench:search\n');
+	const run = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/bench-http.ts', '--search', ...searchArgs], {
+		stdio: 'inherit'
+	});
+	if (run.status !== 0) process.exitCode = run.status ?? 1;
+}
+
+if (searchOnly) {
+	searchBench();
+	process.exit();
+}
 
 const warmUp = 200;
 const iterations = 2000;
@@ -119,3 +145,5 @@ printTable(rows);
 console.log('\nMarker on 115 cm cloth, mean of three runs after one (no budget; the draft API allows 2 s):\n');
 printTable(markerRows);
 console.log(`\npackStrip on Hopper–Turton C1-P1 (16 items): mean ${format(strip.mean)}, p95 ${format(strip.p95)}`);
+
+if (withSearch) searchBench();

@@ -1,5 +1,6 @@
 import MiniSearch from 'minisearch';
 import { compileFilter, FilterError, haversineMetres, type Doc, type Filter } from './search-filter';
+import { GeoGrid } from './search-geo';
 
 export interface Settings {
 	searchableAttributes: string[];
@@ -47,6 +48,7 @@ function stringFields(doc: Doc, prefix = ''): string[] {
 }
 
 function fieldValue(doc: Doc, field: string): unknown {
+	if (!field.includes('.')) return doc[field];
 	return field
 		.split('.')
 		.reduce<unknown>((v, part) => (v && typeof v === 'object' ? (v as Doc)[part] : undefined), doc);
@@ -69,33 +71,30 @@ export class SearchIndex {
 		return { uid: this.uid, primaryKey: this.primaryKey, createdAt: this.createdAt, updatedAt: this.updatedAt };
 	}
 
-	/** Documents with a point, by latitude: a radius filter then reads a band of them instead of every one. */
-	private byLatitude: { lat: number; key: string }[] | null = null;
+	/** Documents with a point, in grid cells: a radius search reads the cells near it, not every document. */
+	private readonly geo = new GeoGrid();
+	/** Each key's place in insertion order (kept when a document is replaced), the engine's last tie-break. */
+	private readonly order = new Map<string, number>();
+	private nextOrder = 0;
+	/** Text matches by query, until the next write: the same words asked again are not scored again. */
+	private readonly textHits = new Map<string, Map<string, number>>();
 
 	private touch() {
 		this.updatedAt = new Date().toISOString();
 		this.text = null;
-		this.byLatitude = null;
+		this.textHits.clear();
 	}
 
-	/** Keys of documents whose latitude is within the radius's north–south reach (a superset of the matches). */
-	private latitudeBand({ lat, metres }: { lat: number; metres: number }): string[] {
-		this.byLatitude ??= [...this.documents]
-			.map(([key, doc]) => ({ key, lat: Number((doc._geo as { lat?: unknown } | undefined)?.lat) }))
-			.filter((entry) => Number.isFinite(entry.lat))
-			.sort((a, b) => a.lat - b.lat);
-		const reach = ((metres * 1.01) / 6_371_008.8) * (180 / Math.PI);
-		const sorted = this.byLatitude;
-		let low = 0;
-		let high = sorted.length;
-		while (low < high) {
-			const middle = (low + high) >> 1;
-			if (sorted[middle].lat < lat - reach) low = middle + 1;
-			else high = middle;
-		}
-		const keys: string[] = [];
-		for (let i = low; i < sorted.length && sorted[i].lat <= lat + reach; i++) keys.push(sorted[i].key);
-		return keys;
+	private put(key: string, doc: Doc) {
+		this.documents.set(key, doc);
+		if (!this.order.has(key)) this.order.set(key, this.nextOrder++);
+		this.geo.set(key, doc);
+	}
+
+	private remove(key: string) {
+		this.documents.delete(key);
+		this.order.delete(key);
+		this.geo.delete(key);
 	}
 
 	updateSettings(patch: Partial<Settings>) {
@@ -122,24 +121,26 @@ export class SearchIndex {
 				throw new SearchError(`Document doesn't have a \`${this.primaryKey}\` attribute.`, 'missing_document_id');
 			const key = String(id);
 			const before = options.merge ? this.documents.get(key) : undefined;
-			this.documents.set(key, before ? { ...before, ...doc } : doc);
+			this.put(key, before ? { ...before, ...doc } : doc);
 		}
 		this.touch();
 	}
 
 	deleteDocuments(ids: (string | number)[]) {
-		for (const id of ids) this.documents.delete(String(id));
+		for (const id of ids) this.remove(String(id));
 		this.touch();
 	}
 
 	deleteWhere(filter: Filter) {
 		const match = this.compile(filter);
-		for (const [id, doc] of this.documents) if (match(doc)) this.documents.delete(id);
+		for (const [id, doc] of [...this.documents]) if (match(doc)) this.remove(id);
 		this.touch();
 	}
 
 	clear() {
 		this.documents.clear();
+		this.order.clear();
+		this.geo.clear();
 		this.touch();
 	}
 
@@ -171,24 +172,62 @@ export class SearchIndex {
 		return this.text;
 	}
 
+	/** Scores of the documents matching `q`, by key; remembered until the next write. */
+	private matchText(q: string) {
+		let hits = this.textHits.get(q);
+		if (!hits) {
+			hits = new Map(
+				this.textIndex()
+					.search(q)
+					.map((hit) => [String(hit.id), hit.score])
+			);
+			if (this.textHits.size >= 64) this.textHits.delete(this.textHits.keys().next().value!);
+			this.textHits.set(q, hits);
+		}
+		return hits;
+	}
+
+	/**
+	 * Filters first (a required radius through the grid, then the other conditions on what is inside it),
+	 * then text, then keeps only the first `offset + limit` in sort order instead of sorting every match.
+	 */
 	search(request: SearchRequest) {
 		const started = performance.now();
 		const match = this.compile(request.filter);
 		const q = request.q?.trim() ?? '';
-		let candidates: { key: string; doc: Doc; score: number; distance?: number; sortValues?: unknown[] }[];
-		if (q) {
-			candidates = this.textIndex()
-				.search(q)
-				.map((hit) => ({ key: String(hit.id), doc: this.documents.get(String(hit.id))!, score: hit.score }));
-		} else if (match.within) {
-			candidates = this.latitudeBand(match.within).map((key) => ({ key, doc: this.documents.get(key)!, score: 0 }));
+		const scores = q ? this.matchText(q) : null;
+		const filtered: Candidate[] = [];
+		const keep = (key: string, doc: Doc, test: (doc: Doc) => boolean, distance?: number) => {
+			let score = 0;
+			if (scores) {
+				const scored = scores.get(key);
+				if (scored === undefined) return;
+				score = scored;
+			}
+			if (!test(doc)) return;
+			filtered.push({
+				key,
+				doc,
+				score,
+				order: this.order.get(key)!,
+				distance,
+				origin: distance === undefined ? null : match.within!
+			});
+		};
+		if (match.within) {
+			const rest = match.rest!;
+			this.geo.within(match.within, match.within.metres, (entry, metres) => keep(entry.key, entry.doc, rest, metres));
+		} else if (scores) {
+			for (const key of scores.keys()) {
+				const doc = this.documents.get(key);
+				if (doc) keep(key, doc, match);
+			}
 		} else {
-			candidates = [...this.documents].map(([key, doc]) => ({ key, doc, score: 0 }));
+			for (const [key, doc] of this.documents) keep(key, doc, match);
 		}
-		const filtered = candidates.filter((c) => c.doc && match(c.doc));
 
 		let geoOrigin: { lat: number; lng: number } | null = null;
-		const comparators: ((a: (typeof filtered)[number], b: (typeof filtered)[number]) => number)[] = [];
+		const comparators: ((a: Candidate, b: Candidate) => number)[] = [];
 		for (const rule of request.sort ?? []) {
 			const geo = geoSort.exec(rule);
 			if (geo) {
@@ -197,9 +236,10 @@ export class SearchIndex {
 				const origin = { lat: Number(geo[1]), lng: Number(geo[2]) };
 				geoOrigin = origin;
 				const direction = geo[3] === 'asc' ? 1 : -1;
-				// Each hit's distance is worked out once, not at every comparison of the sort.
-				const distance = (c: { doc: Doc; distance?: number }) => (c.distance ??= distanceTo(c.doc, origin));
-				comparators.push((a, b) => direction * (distance(a) - distance(b)));
+				// Each hit's distance is worked out once (or taken from the radius filter when it has the same centre).
+				for (const c of filtered)
+					c.sortDistance = sameCentre(c.origin, origin) ? c.distance! : distanceTo(c.doc, origin);
+				comparators.push((a, b) => direction * (a.sortDistance! - b.sortDistance!) || 0);
 				continue;
 			}
 			const field = fieldSort.exec(rule);
@@ -212,33 +252,32 @@ export class SearchIndex {
 			const direction = field[2] === 'asc' ? 1 : -1;
 			// Read once per hit and rule, not at every comparison.
 			const slot = comparators.length;
-			const value = (c: { doc: Doc; sortValues?: unknown[] }) => {
-				c.sortValues ??= [];
-				if (!(slot in c.sortValues)) c.sortValues[slot] = fieldValue(c.doc, field[1]);
-				return c.sortValues[slot];
-			};
-			comparators.push((a, b) => direction * compareValues(value(a), value(b)));
+			for (const c of filtered) (c.sortValues ??= [])[slot] = fieldValue(c.doc, field[1]);
+			comparators.push((a, b) => direction * compareValues(a.sortValues![slot], b.sortValues![slot]));
 		}
 		comparators.push((a, b) => b.score - a.score);
-		filtered.sort((a, b) => {
-			for (const compare of comparators) {
-				const result = compare(a, b);
+		comparators.push((a, b) => a.order - b.order);
+		const compare = (a: Candidate, b: Candidate) => {
+			for (const comparator of comparators) {
+				const result = comparator(a, b);
 				if (result !== 0) return result;
 			}
 			return 0;
-		});
+		};
 
 		const offset = request.offset ?? 0;
 		const limit = request.limit ?? 20;
 		const retrieve = request.attributesToRetrieve;
-		const hits = filtered.slice(offset, offset + limit).map(({ doc }) => {
-			const shown: Doc =
-				retrieve && !retrieve.includes('*')
-					? Object.fromEntries(retrieve.filter((k) => k in doc).map((k) => [k, doc[k]]))
-					: { ...doc };
-			if (geoOrigin && doc._geo) shown._geoDistance = Math.round(distanceTo(doc, geoOrigin));
-			return shown;
-		});
+		const hits = firstInOrder(filtered, offset + limit, compare)
+			.slice(offset)
+			.map(({ doc }) => {
+				const shown: Doc =
+					retrieve && !retrieve.includes('*')
+						? Object.fromEntries(retrieve.filter((k) => k in doc).map((k) => [k, doc[k]]))
+						: { ...doc };
+				if (geoOrigin && doc._geo) shown._geoDistance = Math.round(distanceTo(doc, geoOrigin));
+				return shown;
+			});
 		return {
 			hits,
 			query: q,
@@ -275,6 +314,59 @@ export class SearchIndex {
 		}
 		return distribution;
 	}
+}
+
+type Candidate = {
+	key: string;
+	doc: Doc;
+	score: number;
+	/** Insertion order, the last tie-break. */
+	order: number;
+	/** Metres from the radius filter's centre, when the grid found this hit. */
+	distance?: number;
+	origin: { lat: number; lng: number } | null;
+	sortDistance?: number;
+	sortValues?: unknown[];
+};
+
+const sameCentre = (a: { lat: number; lng: number } | null, b: { lat: number; lng: number }) =>
+	a !== null && a.lat === b.lat && a.lng === b.lng;
+
+/**
+ * The first `count` items in order: a bounded max-heap keeps the best seen so far, so n matches cost
+ * O(n log count) comparisons, most of them one comparison against the heap's worst.
+ */
+export function firstInOrder<T>(items: T[], count: number, compare: (a: T, b: T) => number): T[] {
+	if (count <= 0) return [];
+	if (items.length <= count * 2) return items.sort(compare).slice(0, count);
+	const heap: T[] = [];
+	const down = (at: number) => {
+		for (;;) {
+			const left = 2 * at + 1;
+			const right = left + 1;
+			let worst = at;
+			if (left < heap.length && compare(heap[left], heap[worst]) > 0) worst = left;
+			if (right < heap.length && compare(heap[right], heap[worst]) > 0) worst = right;
+			if (worst === at) return;
+			[heap[at], heap[worst]] = [heap[worst], heap[at]];
+			at = worst;
+		}
+	};
+	for (const item of items) {
+		if (heap.length < count) {
+			heap.push(item);
+			for (let at = heap.length - 1; at > 0;) {
+				const parent = (at - 1) >> 1;
+				if (compare(heap[at], heap[parent]) <= 0) break;
+				[heap[at], heap[parent]] = [heap[parent], heap[at]];
+				at = parent;
+			}
+		} else if (compare(item, heap[0]) < 0) {
+			heap[0] = item;
+			down(0);
+		}
+	}
+	return heap.sort(compare);
 }
 
 function distanceTo(doc: Doc, origin: { lat: number; lng: number }) {

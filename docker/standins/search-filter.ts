@@ -220,47 +220,141 @@ function compare(actual: unknown, op: string, expected: string): boolean {
 	}
 }
 
-function matches(node: Node, doc: Doc): boolean {
-	switch (node.kind) {
-		case 'and':
-			return node.items.every((item) => matches(item, doc));
-		case 'or':
-			return node.items.some((item) => matches(item, doc));
-		case 'not':
-			return !matches(node.item, doc);
-		case 'compare': {
-			const values = valuesAt(doc, node.attribute);
-			if (node.op === '!=') return !values.some((v) => compare(v, '=', node.value));
-			return values.some((v) => compare(v, node.op, node.value));
+/**
+ * Whether any value a document holds at `attribute` passes `test`: a top-level field read directly (no
+ * array made for a single value), a dotted path walked.
+ */
+function anyAt(attribute: string): (doc: Doc, test: (value: unknown) => boolean) => boolean {
+	if (attribute.includes('.')) return (doc, test) => valuesAt(doc, attribute).some(test);
+	return (doc, test) => {
+		if (!(attribute in doc)) return false;
+		const value = doc[attribute];
+		return Array.isArray(value) ? value.some(test) : test(value);
+	};
+}
+
+/** One comparison against a fixed operand, with the operand's number and lower-case form worked out once. */
+function comparer(op: string, expected: string): (actual: unknown) => boolean {
+	const number = Number(expected);
+	const numeric = expected.trim() !== '' && Number.isFinite(number);
+	const lower = expected.toLowerCase();
+	return (actual) => {
+		if (numeric && typeof actual === 'number') {
+			switch (op) {
+				case '=':
+					return actual === number;
+				case '!=':
+					return actual !== number;
+				case '>':
+					return actual > number;
+				case '>=':
+					return actual >= number;
+				case '<':
+					return actual < number;
+				case '<=':
+					return actual <= number;
+			}
 		}
-		case 'range':
-			return valuesAt(doc, node.attribute).some((v) => compare(v, '>=', node.from) && compare(v, '<=', node.to));
-		case 'in':
-			return valuesAt(doc, node.attribute).some((v) => node.values.some((value) => compare(v, '=', value)));
+		if (op === '=' || op === '!=') {
+			const equal = String(actual).toLowerCase() === lower;
+			return op === '=' ? equal : !equal;
+		}
+		return compare(actual, op, expected);
+	};
+}
+
+/** A filter tree turned into closures once per search, so each document costs a few property reads. */
+function compileNode(node: Node): (doc: Doc) => boolean {
+	switch (node.kind) {
+		case 'and': {
+			const items = node.items.map(compileNode);
+			return (doc) => {
+				for (const item of items) if (!item(doc)) return false;
+				return true;
+			};
+		}
+		case 'or': {
+			const items = node.items.map(compileNode);
+			return (doc) => {
+				for (const item of items) if (item(doc)) return true;
+				return false;
+			};
+		}
+		case 'not': {
+			const item = compileNode(node.item);
+			return (doc) => !item(doc);
+		}
+		case 'compare': {
+			const any = anyAt(node.attribute);
+			if (node.op === '!=') {
+				const equal = comparer('=', node.value);
+				return (doc) => !any(doc, equal);
+			}
+			const test = comparer(node.op, node.value);
+			return (doc) => any(doc, test);
+		}
+		case 'range': {
+			const any = anyAt(node.attribute);
+			const from = comparer('>=', node.from);
+			const to = comparer('<=', node.to);
+			const test = (v: unknown) => from(v) && to(v);
+			return (doc) => any(doc, test);
+		}
+		case 'in': {
+			const any = anyAt(node.attribute);
+			const tests = node.values.map((value) => comparer('=', value));
+			const test = (v: unknown) => tests.some((t) => t(v));
+			return (doc) => any(doc, test);
+		}
 		case 'exists':
-			return valuesAt(doc, node.attribute).length > 0;
+			return (doc) => valuesAt(doc, node.attribute).length > 0;
 		case 'null':
-			return valuesAt(doc, node.attribute).some((v) => v === null);
+			return (doc) => valuesAt(doc, node.attribute).some((v) => v === null);
 		case 'empty': {
-			const raw = node.attribute
-				.split('.')
-				.reduce<unknown>((value, part) => (value && typeof value === 'object' ? (value as Doc)[part] : undefined), doc);
-			return raw === '' || (typeof raw === 'object' && raw !== null && Object.keys(raw).length === 0);
+			const parts = node.attribute.split('.');
+			return (doc) => {
+				const raw = parts.reduce<unknown>(
+					(value, part) => (value && typeof value === 'object' ? (value as Doc)[part] : undefined),
+					doc
+				);
+				return raw === '' || (typeof raw === 'object' && raw !== null && Object.keys(raw).length === 0);
+			};
 		}
 		case 'geoRadius': {
-			const geo = doc._geo as { lat?: unknown; lng?: unknown } | undefined;
-			if (!geo || geo.lat === undefined || geo.lng === undefined) return false;
-			return haversineMetres(node, { lat: Number(geo.lat), lng: Number(geo.lng) }) <= node.metres;
+			const centre = { lat: node.lat, lng: node.lng };
+			return (doc) => {
+				const geo = doc._geo as { lat?: unknown; lng?: unknown } | undefined;
+				if (!geo || geo.lat === undefined || geo.lng === undefined) return false;
+				return haversineMetres(centre, { lat: Number(geo.lat), lng: Number(geo.lng) }) <= node.metres;
+			};
 		}
 	}
 }
 
-/** A compiled filter; `within` is a radius every match lies in, when the filter requires one (for a prefilter). */
-export type Predicate = ((doc: Doc) => boolean) & { within?: { lat: number; lng: number; metres: number } };
+/**
+ * A compiled filter. `within` is a radius every match lies in, when the filter requires one; `rest` then
+ * tests the other conditions only, for an engine that has already kept the documents inside that radius.
+ */
+export type Predicate = ((doc: Doc) => boolean) & {
+	within?: { lat: number; lng: number; metres: number };
+	rest?: (doc: Doc) => boolean;
+};
 
-function requiredRadius(node: Node): Predicate['within'] {
-	if (node.kind === 'geoRadius') return { lat: node.lat, lng: node.lng, metres: node.metres };
-	if (node.kind === 'and') for (const item of node.items) if (item.kind === 'geoRadius') return requiredRadius(item);
+const always = () => true;
+
+/** The radius the whole filter requires (itself, or one term of a top-level AND), and the other terms. */
+function requiredRadius(node: Node): { within: NonNullable<Predicate['within']>; rest: Node[] } | undefined {
+	if (node.kind === 'geoRadius') return { within: { lat: node.lat, lng: node.lng, metres: node.metres }, rest: [] };
+	if (node.kind === 'and') {
+		const at = node.items.findIndex((item) => item.kind === 'geoRadius');
+		if (at >= 0) {
+			const geo = node.items[at] as Extract<Node, { kind: 'geoRadius' }>;
+			return {
+				within: { lat: geo.lat, lng: geo.lng, metres: geo.metres },
+				rest: node.items.filter((_, i) => i !== at)
+			};
+		}
+	}
 	return undefined;
 }
 
@@ -273,14 +367,32 @@ export function compileFilter(filter: Filter | undefined | null, filterable: rea
 				.join(' AND ')
 		: filter;
 	if (text.trim() === '') return () => true;
-	const node = new Parser(tokenize(text)).parse();
+	const node = flatten(new Parser(tokenize(text)).parse());
 	for (const attribute of attributesOf(node)) {
 		if (!filterable.includes(attribute))
 			throw new FilterError(
 				`Attribute \`${attribute}\` is not filterable. Available filterable attributes are: \`${filterable.join(', ')}\`.`
 			);
 	}
-	const predicate: Predicate = (doc) => matches(node, doc);
-	predicate.within = requiredRadius(node);
+	const predicate: Predicate = compileNode(node);
+	const required = requiredRadius(node);
+	if (required) {
+		predicate.within = required.within;
+		predicate.rest = required.rest.length ? compileNode({ kind: 'and', items: required.rest }) : always;
+	}
 	return predicate;
+}
+
+/** Nested ANDs (the array form wraps each part in parentheses) as one level, so a radius inside is found. */
+function flatten(node: Node): Node {
+	if (node.kind === 'and') {
+		const items = node.items.map(flatten).flatMap((item) => (item.kind === 'and' ? item.items : [item]));
+		return items.length === 1 ? items[0] : { kind: 'and', items };
+	}
+	if (node.kind === 'or') {
+		const items = node.items.map(flatten);
+		return items.length === 1 ? items[0] : { kind: 'or', items };
+	}
+	if (node.kind === 'not') return { kind: 'not', item: flatten(node.item) };
+	return node;
 }

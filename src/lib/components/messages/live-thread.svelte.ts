@@ -37,6 +37,12 @@ export class LiveThread {
 		return fresh;
 	}
 
+	/** The viewer's own messages sent up to `readAt` and not yet marked, marked read then. */
+	markRead(readAt: string) {
+		if (!this.messages.some((m) => m.mine && !m.readAt && m.createdAt <= readAt)) return;
+		this.messages = this.messages.map((m) => (m.mine && !m.readAt && m.createdAt <= readAt ? { ...m, readAt } : m));
+	}
+
 	start() {
 		this.#stopped = false;
 		this.#open();
@@ -62,6 +68,11 @@ export class LiveThread {
 		source.addEventListener('message', (event: MessageEvent<string>) => {
 			const message = JSON.parse(event.data) as MessageView;
 			for (const fresh of this.merge([message])) if (!fresh.mine) this.onIncoming(fresh);
+		});
+		// The other side read the conversation: what the viewer had sent by then shows as read.
+		source.addEventListener('read', (event: MessageEvent<string>) => {
+			const { readAt } = JSON.parse(event.data) as { readAt: string };
+			this.markRead(readAt);
 		});
 		source.addEventListener('error', () => {
 			if (source.readyState === EventSource.CONNECTING) {

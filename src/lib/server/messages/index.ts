@@ -6,7 +6,7 @@ export { openThread } from './threads';
 export { post, markRead, startQuestion, messagesChannel, type Actor, type AttachmentInput } from './transitions';
 export { list, threadsFor, getThread, threadIdFor, unreadCount, messagesAfter } from './queries';
 export { openAttachment } from './attachments';
-export { openStream } from './live';
+export { openStream, openUnreadStream } from './live';
 export { sendDigests, dueDigests, digestNotice, digestDelayMinutes, type Digest } from './digest';
 export { MessageError, errorStatus } from './errors';
 export * as schemas from './schemas';

@@ -199,7 +199,11 @@ describe('live notifications', () => {
 		try {
 			const posted = await messages.post(db, { threadId, actor: customer, body: 'Can you hear me?' });
 			await expect.poll(() => heard.length, { timeout: 5000 }).toBe(1);
-			expect(JSON.parse(heard[0])).toEqual({ threadId, messageId: posted.id });
+			expect(JSON.parse(heard[0])).toEqual({
+				threadId,
+				messageId: posted.id,
+				people: [customer.id, expect.any(String)]
+			});
 		} finally {
 			stop();
 		}

@@ -80,7 +80,11 @@ async function insertMessage(
 		);
 	}
 	await tx.execute(
-		sql`select pg_notify(${messagesChannel}, ${JSON.stringify({ threadId: facts.id, messageId: row.id })})`
+		sql`select pg_notify(${messagesChannel}, ${JSON.stringify({
+			threadId: facts.id,
+			messageId: row.id,
+			people: [facts.customerId, facts.tailorId]
+		})})`
 	);
 	const [view] = await toViews(tx, [row], actor.id);
 	return view;
@@ -138,7 +142,17 @@ export async function markRead(db: Executor, { threadId, viewer }: { threadId: s
 				sql`${message.authorId} is distinct from ${viewer.id}`
 			)
 		)
-		.returning({ id: message.id });
+		.returning({ id: message.id, readAt: message.readAt });
+	if (changed.length) {
+		// The other side's "read" marks and both sides' unread counts follow live (see live.ts).
+		const payload = {
+			threadId,
+			readBy: viewer.id,
+			readAt: changed[0].readAt!.toISOString(),
+			people: [facts.customerId, facts.tailorId]
+		};
+		await db.execute(sql`select pg_notify(${messagesChannel}, ${JSON.stringify(payload)})`);
+	}
 	return changed.length;
 }
 

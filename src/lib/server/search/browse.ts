@@ -1,3 +1,4 @@
+import type { OwnWorkroom } from '$lib/types/workroom';
 import type { Executor } from '../db';
 import * as workrooms from '../workrooms';
 import { nearbyCommissions } from './nearby';
@@ -21,10 +22,24 @@ const fallbackRadiusKm = 25;
  */
 export async function browseForTailor(
 	db: Executor,
-	{ tailorId, query }: { tailorId: string; query: NearbyCommissionsQuery }
+	{
+		tailorId,
+		query,
+		workroom
+	}: {
+		tailorId: string;
+		query: NearbyCommissionsQuery;
+		/** The tailor's workroom when the caller has already read it (null: none yet); read here otherwise. */
+		workroom?: OwnWorkroom | null;
+	}
 ) {
 	let origin: BrowseOrigin | null = null;
-	const own = query.near && query.radiusKm !== undefined ? null : await workrooms.getOwn(db, { tailorId });
+	const own =
+		workroom !== undefined
+			? workroom
+			: query.near && query.radiusKm !== undefined
+				? null
+				: await workrooms.getOwn(db, { tailorId });
 	if (query.near) {
 		origin = {
 			near: query.near,

@@ -1,4 +1,4 @@
-import type { Meilisearch } from 'meilisearch';
+import { MeilisearchApiError, type Meilisearch } from 'meilisearch';
 import type { LatLng } from '$lib/geo/coarsen';
 import * as commissions from '../commissions';
 import type { Executor } from '../db';
@@ -107,14 +107,40 @@ function warnFallback(error: unknown) {
 	console.warn(`[search] answering from PostgreSQL: ${error instanceof Error ? error.message : String(error)}`);
 }
 
+/**
+ * After search could not be reached (refused, reset, timed out), lists come from PostgreSQL for this long
+ * before search is tried again: requests during an outage do not each wait for the client's timeout.
+ * An answer from search (even an error) proves it reachable and does not trip this.
+ */
+export const unreachablePauseMs = 1000;
+const unreachableUntil = new WeakMap<Meilisearch, number>();
+
+/** Search answered (the sync job reached it): lists go back to it at once, without waiting out the pause. */
+export function reachable(client: Meilisearch) {
+	unreachableUntil.delete(client);
+}
+
+/** Whether search itself answered (an API error) rather than not at all. */
+const searchAnswered = (error: unknown) => error instanceof MeilisearchApiError;
+
 /** Tries the index, and on any failure answers the same list from PostgreSQL. */
-async function withFallback(index: () => Promise<Hit[]>, database: () => Promise<Hit[]>) {
+async function withFallback(
+	client: () => Meilisearch,
+	index: (client: Meilisearch) => Promise<Hit[]>,
+	database: () => Promise<Hit[]>
+) {
+	let engine: Meilisearch | null = null;
+	let failure: unknown = null;
 	try {
-		return { hits: await index(), source: 'index' as ListSource };
+		engine = client();
+		if (Date.now() >= (unreachableUntil.get(engine) ?? 0))
+			return { hits: await index(engine), source: 'index' as ListSource };
 	} catch (error) {
-		warnFallback(error);
-		return { hits: await database(), source: 'database' as ListSource };
+		failure = error;
+		if (engine && !searchAnswered(error)) unreachableUntil.set(engine, Date.now() + unreachablePauseMs);
 	}
+	if (failure) warnFallback(failure);
+	return { hits: await database(), source: 'database' as ListSource };
 }
 
 function keyOf(hit: Hit, sort: Sort): ListKey {
@@ -146,8 +172,9 @@ export async function nearbyCommissions(
 ): Promise<{ items: NearbyCommission[]; nextCursor: string | null; source: ListSource }> {
 	const want = query.limit + 1;
 	const { hits, source } = await withFallback(
-		() =>
-			fromIndex(client(), indexes.commission.uid, {
+		client,
+		(engine) =>
+			fromIndex(engine, indexes.commission.uid, {
 				q: query.filters.q,
 				filter: commissionFilter(query),
 				near: query.near,
@@ -190,8 +217,9 @@ export async function nearbyWorkrooms(
 	const filter = [`_geoRadius(${query.near.lat}, ${query.near.lng}, ${Math.round(query.radiusKm * 1000)})`];
 	if (query.filters.specialty) filter.push(`specialties = ${quoted(query.filters.specialty)}`);
 	const { hits, source } = await withFallback(
-		() =>
-			fromIndex(client(), indexes.workroom.uid, {
+		client,
+		(engine) =>
+			fromIndex(engine, indexes.workroom.uid, {
 				q: query.filters.q,
 				filter,
 				near: query.near,

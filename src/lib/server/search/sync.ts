@@ -6,6 +6,7 @@ import * as outbox from '../search-outbox';
 import { search } from '../services/search';
 import * as workrooms from '../workrooms';
 import { applied, exists, indexes, prepare } from './indexes';
+import { reachable } from './nearby';
 
 type Document = { id: string };
 
@@ -73,6 +74,7 @@ export async function reindex(db: Executor, client: Meilisearch = search()) {
  */
 export async function syncOutbox(db: Executor, client: Meilisearch = search(), { batch = 500 } = {}) {
 	for (const kind of kinds) if (!(await exists(client, kind))) await rebuild(db, client, kind);
+	reachable(client);
 	let synced = 0;
 	for (;;) {
 		const notes = await outbox.pending(db, { limit: batch });

@@ -33,7 +33,9 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 		query = new URL(query);
 		parsed = parseQuery(query, search.schemas.nearbyCommissionsQuery);
 	}
-	const list = parsed.ok ? await search.browseForTailor(locals.db, { tailorId: user.id, query: parsed.data }) : null;
+	const list = parsed.ok
+		? await search.browseForTailor(locals.db, { tailorId: user.id, query: parsed.data, workroom: own })
+		: null;
 	return {
 		filters,
 		issues,

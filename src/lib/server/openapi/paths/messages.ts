@@ -105,12 +105,35 @@ const paths: Paths = {
 					content: {
 						'text/event-stream': {
 							schema: z.string().meta({
-								description: 'Events of the form `id: <message id>`, `event: message`, `data: <Message as JSON>`.'
+								description:
+									'Events of the form `id: <message id>`, `event: message`, `data: <Message as JSON>`; and, when the other side reads the conversation, `event: read` with `data: {"readAt": <ISO time>}` (no id): what the viewer sent by then is read.'
 							})
 						}
 					}
 				},
 				...errors(400, 401, 404)
+			}
+		}
+	},
+	'/api/v1/threads/events': {
+		get: {
+			operationId: 'streamUnreadCount',
+			tags,
+			summary: 'Follow your unread count live',
+			...access(
+				'signedIn',
+				'Server-sent events: `event: unread` with `data: {"count": <messages waiting unread>}` at once, then whenever a message is posted or read in one of your conversations. A comment line every 20 seconds keeps the connection open.'
+			),
+			responses: {
+				'200': {
+					description: 'The event stream; it stays open.',
+					content: {
+						'text/event-stream': {
+							schema: z.string().meta({ description: 'Events of the form `event: unread`, `data: {"count": 3}`.' })
+						}
+					}
+				},
+				...errors(401)
 			}
 		}
 	}
