@@ -171,8 +171,14 @@ async function send(
 			...(cookie ? { cookie } : {})
 		}
 	});
+	const contentType = response.headers.get('content-type') ?? '';
+	// An event stream stays open for as long as the client listens: its status and headers are the answer.
+	if (contentType.startsWith('text/event-stream')) {
+		await response.body?.cancel();
+		return { status: response.status, text: '', contentType };
+	}
 	const text = await response.text();
-	return { status: response.status, text, contentType: response.headers.get('content-type') ?? '' };
+	return { status: response.status, text, contentType };
 }
 
 function check(target: Target, result: Awaited<ReturnType<typeof send>>) {

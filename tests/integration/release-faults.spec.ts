@@ -13,6 +13,7 @@ import { callJson } from './http';
 import {
 	accountBalance,
 	balancedLedger,
+	sdk,
 	deliver,
 	moneyAddsUp,
 	paidOrder,
@@ -111,4 +112,30 @@ describe('releases and refunds while the processor misbehaves', () => {
 			.where(and(eq(notification.userId, admin.id), eq(notification.event, 'money_stuck')));
 		expect(stuck).toHaveLength(1);
 	}, 300_000);
+
+	it('finds a transfer the processor already made once its idempotency key is forgotten, and makes no second one', async () => {
+		const o = await paidOrder(db, { priceMinor: 27_500 });
+		await deliver(o);
+		const [charge] = await paymentsOf(db, o.orderId, 'charge');
+		// As if an earlier attempt went through more than a day ago: the processor no longer knows its key.
+		const earlier = await sdk().transfers.create(
+			{
+				amount: o.payoutMinor,
+				currency: 'eur',
+				destination: o.accountId,
+				source_transaction: charge.processorId,
+				transfer_group: o.orderId,
+				metadata: { order_id: o.orderId, action: 'release' }
+			},
+			{ idempotencyKey: `forgotten:${o.orderId}` }
+		);
+
+		expect([200, 202]).toContain((await post(o.customerClient, o.orderId, 'confirm')).status);
+		const v = await viewUntil(o.customerClient, o.orderId, (x) => x.status === 'released', 60_000);
+		expect(v.money).toMatchObject({ heldMinor: 0, releasedMinor: o.payoutMinor });
+		expect((await transfersOf(o.orderId)).map((t) => t.id)).toEqual([earlier.id]);
+		const [release] = await paymentsOf(db, o.orderId, 'release_transfer');
+		expect(release.processorId).toBe(earlier.id);
+		expect(await accountBalance(o.accountId)).toBe(o.payoutMinor);
+	}, 120_000);
 });

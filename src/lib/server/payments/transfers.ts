@@ -5,6 +5,10 @@
  * `refund:<order>`, `reversal:advance:<order>`), so a retry of a call that did go through — its answer lost to
  * a timeout — gets the same object back instead of a second one. Transfers go to the tailor's connected account
  * with `source_transaction` = the order's charge and `transfer_group` = the order id.
+ *
+ * The processor forgets idempotency keys after a day, and a job may still be retrying then; so before each call the
+ * processor's own list is searched for an object this action made (its metadata names the order and the action),
+ * and that object is used instead of making another.
  */
 import { sql } from 'drizzle-orm';
 import type Stripe from 'stripe';
@@ -29,8 +33,23 @@ type TransferInput = {
 	action: 'release' | 'advance';
 };
 
+type Tagged = { metadata: Stripe.Metadata | null };
+
+/** The first object in a processor list that the given action on the order made, if any. */
+async function madeBefore<T extends Tagged>(list: AsyncIterable<T>, orderId: string, action: MoneyAction) {
+	for await (const item of list)
+		if (item.metadata?.order_id === orderId && item.metadata?.action === action) return item;
+	return null;
+}
+
 /** A Transfer to the tailor's connected account, funded by the order's charge. */
-export function transfer(input: TransferInput): Promise<Stripe.Transfer> {
+export async function transfer(input: TransferInput): Promise<Stripe.Transfer> {
+	const before = await madeBefore(
+		payments().transfers.list({ transfer_group: input.orderId, limit: 100 }),
+		input.orderId,
+		input.action
+	);
+	if (before) return before;
 	return payments().transfers.create(
 		{
 			amount: input.amountMinor,
@@ -46,11 +65,17 @@ export function transfer(input: TransferInput): Promise<Stripe.Transfer> {
 }
 
 /** Takes a paid advance back from the tailor's connected account. */
-export function reverseAdvance(input: {
+export async function reverseAdvance(input: {
 	orderId: string;
 	transferId: string;
 	amountMinor: number;
 }): Promise<Stripe.TransferReversal> {
+	const before = await madeBefore(
+		payments().transfers.listReversals(input.transferId, { limit: 100 }),
+		input.orderId,
+		'reversal:advance'
+	);
+	if (before) return before;
 	return payments().transfers.createReversal(
 		input.transferId,
 		{ amount: input.amountMinor, metadata: { order_id: input.orderId, action: 'reversal:advance' } },
@@ -59,7 +84,17 @@ export function reverseAdvance(input: {
 }
 
 /** Returns money from the order's charge to the customer's card. */
-export function refund(input: { orderId: string; chargeId: string; amountMinor: number }): Promise<Stripe.Refund> {
+export async function refund(input: {
+	orderId: string;
+	chargeId: string;
+	amountMinor: number;
+}): Promise<Stripe.Refund> {
+	const before = await madeBefore(
+		payments().refunds.list({ charge: input.chargeId, limit: 100 }),
+		input.orderId,
+		'refund'
+	);
+	if (before) return before;
 	return payments().refunds.create(
 		{
 			charge: input.chargeId,
