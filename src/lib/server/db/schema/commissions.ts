@@ -1,5 +1,6 @@
 import { sql } from 'drizzle-orm';
 import {
+	bigint,
 	char,
 	check,
 	date,
@@ -48,8 +49,8 @@ export const commission = pgTable(
 		styleNotes: text('style_notes').notNull().default(''),
 		fabricSource: fabricSource('fabric_source').notNull().default('tailor_sources'),
 		fabricNotes: text('fabric_notes').notNull().default(''),
-		budgetMinMinor: integer('budget_min_minor'),
-		budgetMaxMinor: integer('budget_max_minor'),
+		budgetMinMinor: bigint('budget_min_minor', { mode: 'number' }),
+		budgetMaxMinor: bigint('budget_max_minor', { mode: 'number' }),
 		currency: char('currency', { length: 3 }).notNull(),
 		dateNeeded: date('date_needed', { mode: 'string' }),
 		/** ISO 3166-1 alpha-2 of the chosen place. */

@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { char, check, index, integer, pgEnum, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import { bigint, char, check, index, pgEnum, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
 import { id, createdAt, updatedAt, instant } from './columns';
 import { user } from './auth';
 import { order } from './orders';
@@ -29,9 +29,9 @@ export const dispute = pgTable(
 		statement: text('statement').notNull(),
 		status: disputeStatus('status').notNull().default('open'),
 		/** Settlement: refund R to the customer, release P to the tailor, fee taken from P; R + P = held. */
-		refundMinor: integer('refund_minor'),
-		releaseMinor: integer('release_minor'),
-		feeMinor: integer('fee_minor'),
+		refundMinor: bigint('refund_minor', { mode: 'number' }),
+		releaseMinor: bigint('release_minor', { mode: 'number' }),
+		feeMinor: bigint('fee_minor', { mode: 'number' }),
 		currency: char('currency', { length: 3 }).notNull(),
 		// Who settled stays readable in the audit log; the row outlives an admin's account.
 		settledById: uuid('settled_by_id').references(() => user.id, { onDelete: 'set null' }),

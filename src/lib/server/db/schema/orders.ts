@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { char, check, date, index, integer, pgEnum, pgTable, text, uuid } from 'drizzle-orm/pg-core';
+import { bigint, char, check, date, index, integer, pgEnum, pgTable, text, uuid } from 'drizzle-orm/pg-core';
 import { id, createdAt, updatedAt, instant } from './columns';
 import { user } from './auth';
 import { commission } from './commissions';
@@ -40,9 +40,9 @@ export const order = pgTable(
 		tailorId: uuid('tailor_id')
 			.notNull()
 			.references(() => tailorProfile.userId, { onDelete: 'restrict' }),
-		priceMinor: integer('price_minor').notNull(),
-		platformFeeMinor: integer('platform_fee_minor').notNull(),
-		tailorPayoutMinor: integer('tailor_payout_minor').notNull(),
+		priceMinor: bigint('price_minor', { mode: 'number' }).notNull(),
+		platformFeeMinor: bigint('platform_fee_minor', { mode: 'number' }).notNull(),
+		tailorPayoutMinor: bigint('tailor_payout_minor', { mode: 'number' }).notNull(),
 		/** The platform fee rate in force at acceptance, in basis points (10 % is 1000). */
 		platformFeeBasisPoints: integer('platform_fee_basis_points').notNull().default(1000),
 		currency: char('currency', { length: 3 }).notNull(),
@@ -58,7 +58,7 @@ export const order = pgTable(
 		releasedAt: instant('released_at'),
 		autoReleaseAt: instant('auto_release_at'),
 		/** The materials advance agreed in the quote (0 when none): at most 30 % of the price. */
-		advanceMinor: integer('advance_minor').notNull().default(0),
+		advanceMinor: bigint('advance_minor', { mode: 'number' }).notNull().default(0),
 		/** When the customer approved the fabric the tailor showed, which releases the advance. */
 		fabricApprovedAt: instant('fabric_approved_at'),
 		workStartedAt: instant('work_started_at'),

@@ -1,5 +1,6 @@
 import { sql } from 'drizzle-orm';
 import {
+	bigint,
 	boolean,
 	char,
 	check,
@@ -28,7 +29,7 @@ export const quote = pgTable(
 		tailorId: uuid('tailor_id')
 			.notNull()
 			.references(() => tailorProfile.userId, { onDelete: 'cascade' }),
-		priceMinor: integer('price_minor').notNull(),
+		priceMinor: bigint('price_minor', { mode: 'number' }).notNull(),
 		currency: char('currency', { length: 3 }).notNull(),
 		deliveryDate: date('delivery_date', { mode: 'string' }).notNull(),
 		fittingsIncluded: integer('fittings_included').notNull().default(1),
@@ -36,7 +37,7 @@ export const quote = pgTable(
 		message: text('message').notNull().default(''),
 		validUntil: instant('valid_until').notNull(),
 		/** An advance for materials, released when the customer approves the fabric; only when the tailor sources it. */
-		advanceMinor: integer('advance_minor').notNull().default(0),
+		advanceMinor: bigint('advance_minor', { mode: 'number' }).notNull().default(0),
 		status: quoteStatus('status').notNull().default('sent'),
 		/** When it left `sent`: accepted, declined, withdrawn or lapsed. */
 		decidedAt: instant('decided_at'),

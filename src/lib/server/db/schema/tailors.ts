@@ -1,5 +1,6 @@
 import { sql } from 'drizzle-orm';
 import {
+	bigint,
 	boolean,
 	char,
 	check,
@@ -44,7 +45,7 @@ export const tailorProfile = pgTable(
 		/** Typical lead time per garment id, in days; `lead_time_days` covers garments not listed. */
 		leadTimes: jsonb('lead_times').$type<Record<string, number>>().notNull().default({}),
 		/** The quote helper's rates: labour per hour in minor units of `rate_currency`. */
-		hourlyRateMinor: integer('hourly_rate_minor'),
+		hourlyRateMinor: bigint('hourly_rate_minor', { mode: 'number' }),
 		rateCurrency: char('rate_currency', { length: 3 }),
 		/** Default labour hours per garment id (decimals allowed: hours are not money). */
 		labourHours: jsonb('labour_hours').$type<Record<string, number>>().notNull().default({}),
