@@ -290,7 +290,7 @@ const act = (kind: ActionKind, o: number, times = 1, side: Action['side'] = 'cus
 /**
  * Histories every run tries first, so the paths that move money are always among those checked: a release after
  * a paid advance with confirms sent five at once, an automatic release, and cancellations agreed by both sides at
- * the same moment (one after the fabric advance was approved).
+ * the same moment (one after the fabric advance was approved), and work pressed on after an agreed cancellation.
  */
 const examples: [Scenario][] = [
 	[
@@ -322,6 +322,20 @@ const examples: [Scenario][] = [
 				act('next', 1),
 				act('next', 1, 2),
 				act('autoRelease', 1, 3)
+			]
+		}
+	],
+	[
+		// Once both sides agree to cancel, work, delivery and release are refused: only the refund is left.
+		{
+			orders: [{ priceMinor: 101_221, advanceShare: 0 }],
+			steps: [
+				act('pay', 0),
+				act('cancel', 0, 1, 'both'),
+				act('progress', 0, 2, 'both'),
+				act('next', 0, 3, 'both'),
+				act('deliver', 0, 2, 'both'),
+				act('autoRelease', 0)
 			]
 		}
 	]

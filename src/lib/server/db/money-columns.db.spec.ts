@@ -11,7 +11,7 @@ describe('money columns', () => {
 		const { rows } = await db.execute<{ table_name: string; column_name: string; data_type: string }>(sql`
 			select table_name, column_name, data_type from information_schema.columns
 			where table_schema = 'public' and column_name like '%\_minor'`);
-		expect(rows.length).toBeGreaterThanOrEqual(15);
+		expect(rows.length).toBeGreaterThanOrEqual(14);
 		expect(rows.filter((row) => row.data_type !== 'bigint')).toEqual([]);
 	});
 });

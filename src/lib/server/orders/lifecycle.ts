@@ -78,6 +78,12 @@ async function lock(tx: Executor, orderId: string, actor: OrderActor | null): Pr
 	throw notFound();
 }
 
+/** Once both sides have agreed to cancel, the order takes no more work or delivery: only its refund is left. */
+function refuseWhileRefunding(row: Pick<Order, 'refundRequestedAt'>, doing: string) {
+	if (row.refundRequestedAt)
+		throw new OrderError('conflict', `This order is being cancelled and refunded, so it cannot ${doing}.`);
+}
+
 function only(as: Party, allowed: Party[], message: string) {
 	if (!allowed.includes(as)) throw new OrderError('forbidden', message);
 }
@@ -155,6 +161,7 @@ export async function postProgress(
 	return db.transaction(async (tx) => {
 		const { row, as } = await lock(tx, orderId, actor);
 		only(as, ['tailor'], 'Only the order’s tailor posts progress.');
+		refuseWhileRefunding(row, 'take progress updates');
 		if (!['funded', 'in_work', 'ready'].includes(row.status)) throw conflict(row, 'take progress updates');
 		const [repeat] = await tx
 			.select()
@@ -242,6 +249,7 @@ export async function markReady(
 	return db.transaction(async (tx) => {
 		const { row, as } = await lock(tx, orderId, actor);
 		only(as, ['tailor'], 'Only the order’s tailor marks it ready.');
+		refuseWhileRefunding(row, 'be marked ready');
 		if (row.status === 'ready') return row;
 		if (row.status !== 'in_work') throw conflict(row, 'be marked ready');
 		const updated = await save(tx, row, { status: 'ready', readyAt: now });
@@ -279,6 +287,7 @@ export async function markDelivered(
 	return db.transaction(async (tx) => {
 		const { row, as } = await lock(tx, orderId, actor);
 		only(as, ['tailor'], 'Only the order’s tailor marks it delivered.');
+		refuseWhileRefunding(row, 'be marked delivered');
 		const redelivery = row.status === 'delivered' && row.alterationRequestedAt !== null && !row.releaseRequestedAt;
 		if (row.status === 'delivered' && !redelivery) return row;
 		if (!redelivery && !['in_work', 'ready'].includes(row.status)) throw conflict(row, 'be marked delivered');
