@@ -6,7 +6,7 @@
 import { randomUUID } from 'node:crypto';
 import { Ajv2020 } from 'ajv/dist/2020.js';
 import addFormats from 'ajv-formats';
-import { eq } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
 import Stripe from 'stripe';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { TEST_CARDS } from '../../docker/standins/stripe-controller';
@@ -106,15 +106,15 @@ async function paidOrder(priceMinor: number) {
 	const { url } = (await started.json()) as { url: string };
 	expect((await control.pay(url, TEST_CARDS.success)).status).toBe(303);
 	const [funded] = await until(
-		() =>
-			db
-				.select({ status: order.status, paymentIntentId: order.paymentIntentId })
-				.from(order)
-				.where(eq(order.id, orderId)),
+		() => db.select({ status: order.status }).from(order).where(eq(order.id, orderId)),
 		([row]) => row.status === 'funded'
 	);
 	expect(funded.status).toBe('funded');
-	return { orderId, paymentIntentId: funded.paymentIntentId! };
+	const [charge] = await db
+		.select({ processorId: payment.processorId })
+		.from(payment)
+		.where(and(eq(payment.orderId, orderId), eq(payment.kind, 'charge')));
+	return { orderId, chargeId: charge.processorId };
 }
 
 describe('GET /api/v1/admin/escrow', () => {
@@ -149,10 +149,10 @@ describe('GET /api/v1/admin/escrow', () => {
 	});
 
 	it('flags money that left the processor without the ledger knowing, on the API and the desk page', async () => {
-		const { paymentIntentId } = await paidOrder(30_000);
+		const { chargeId } = await paidOrder(30_000);
 		const before = eur(await escrow());
 		// A refund made at the processor directly, not through Tackline: the ledger never hears of it.
-		await sdk().refunds.create({ payment_intent: paymentIntentId, amount: 1_234 }, { idempotencyKey: randomUUID() });
+		await sdk().refunds.create({ charge: chargeId, amount: 1_234 }, { idempotencyKey: randomUUID() });
 		const after = eur(await escrow());
 		expect(after.heldMinor).toBe(before.heldMinor);
 		expect(after.difference).toBe(before.difference! - 1_234);

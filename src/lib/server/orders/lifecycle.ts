@@ -458,7 +458,7 @@ export async function completeRelease(
 	const { row } = await lock(tx, orderId, null);
 	if (row.status !== 'delivered' || !row.releaseRequestedAt) return false;
 	const now = new Date();
-	await save(tx, row, { status: 'released', releasedAt: now, transferId, autoReleaseAt: null });
+	await save(tx, row, { status: 'released', releasedAt: now, autoReleaseAt: null });
 	await record(tx, row, null, 'order.released', { transferId, paidMinor, from: 'delivered', to: 'released' });
 	const title = await titleOf(tx, row);
 	await tell(

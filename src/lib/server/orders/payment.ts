@@ -46,16 +46,11 @@ export async function noteCheckoutSession(
  */
 export async function markFunded(
 	db: Executor,
-	{
-		orderId,
-		paymentIntentId,
-		chargeId,
-		now = new Date()
-	}: { orderId: string; paymentIntentId: string; chargeId: string; now?: Date }
+	{ orderId, now = new Date() }: { orderId: string; now?: Date }
 ): Promise<PayableOrder | null> {
 	const [row] = await db
 		.update(order)
-		.set({ status: 'funded', fundedAt: now, paymentIntentId, chargeId, updatedAt: now })
+		.set({ status: 'funded', fundedAt: now, updatedAt: now })
 		.where(and(eq(order.id, orderId), eq(order.status, 'awaiting_payment')))
 		.returning(payColumns);
 	return row ?? null;
@@ -80,15 +75,4 @@ export async function forMoney(
 	const query = db.select().from(order).where(eq(order.id, orderId)).limit(1);
 	const [row] = lock ? await query.for('update') : await query;
 	return row ?? null;
-}
-
-/** Keeps the charge of a payment that arrived after the order was cancelled, so it can be refunded. */
-export async function noteLateCharge(
-	db: Executor,
-	{ orderId, paymentIntentId, chargeId }: { orderId: string; paymentIntentId: string; chargeId: string }
-) {
-	await db
-		.update(order)
-		.set({ paymentIntentId, chargeId, updatedAt: new Date() })
-		.where(and(eq(order.id, orderId), eq(order.status, 'cancelled')));
 }

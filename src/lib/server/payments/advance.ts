@@ -2,7 +2,7 @@ import type { Executor } from '../db';
 import { completeAdvance } from '../orders/lifecycle';
 import { forMoney } from '../orders/payment';
 import * as payouts from '../payouts';
-import { paymentByKey, post, recordPayment } from './ledger';
+import { chargeOf, paymentByKey, post, recordPayment } from './ledger';
 import { moneyJob, moneyKey, transfer } from './transfers';
 
 /**
@@ -17,7 +17,8 @@ export async function runAdvance(db: Executor, { orderId }: { orderId: string })
 		const row = await forMoney(tx, { orderId });
 		if (!row || !row.fabricApprovedAt || row.advanceMinor <= 0) return;
 		if (await paymentByKey(tx, key)) return;
-		if (!row.chargeId) throw new Error(`Order ${orderId} has no charge to transfer from`);
+		const chargeId = await chargeOf(tx, orderId);
+		if (!chargeId) throw new Error(`Order ${orderId} has no charge to transfer from`);
 		const destination = await payouts.destinationOf(tx, row.tailorId);
 		if (!destination) throw new Error('The tailor’s payouts account cannot receive transfers yet');
 		const made = await transfer({
@@ -25,7 +26,7 @@ export async function runAdvance(db: Executor, { orderId }: { orderId: string })
 			amountMinor: row.advanceMinor,
 			currency: row.currency,
 			destination,
-			chargeId: row.chargeId,
+			chargeId,
 			action: 'advance'
 		});
 		const paymentId = await recordPayment(tx, {

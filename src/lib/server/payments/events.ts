@@ -5,7 +5,7 @@ import * as commissions from '../commissions';
 import type { Executor } from '../db';
 import { processedWebhookEvent } from '../db/schema';
 import { enqueue, queueNames } from '../jobs';
-import { forPayment, markFunded, noteLateCharge, type PayableOrder } from '../orders/payment';
+import { forPayment, markFunded, type PayableOrder } from '../orders/payment';
 import { notify } from '../notifications';
 import * as payouts from '../payouts';
 import { payments } from '../services/payments';
@@ -83,11 +83,7 @@ async function fund(tx: Executor, paid: Paid, via: string): Promise<boolean> {
 		});
 		return false;
 	}
-	const funded = await markFunded(tx, {
-		orderId: row.id,
-		paymentIntentId: paid.paymentIntentId,
-		chargeId: paid.chargeId
-	});
+	const funded = await markFunded(tx, { orderId: row.id });
 	if (!funded) return false;
 	const key = `charge:${row.id}`;
 	const paymentId = await recordPayment(tx, {
@@ -145,7 +141,6 @@ async function refundLatePayment(tx: Executor, row: PayableOrder, paid: Paid, vi
 		idempotencyKey: key
 	});
 	if (!paymentId) return false;
-	await noteLateCharge(tx, { orderId: row.id, paymentIntentId: paid.paymentIntentId, chargeId: paid.chargeId });
 	await post(tx, {
 		orderId: row.id,
 		currency,

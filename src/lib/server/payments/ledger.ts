@@ -93,6 +93,11 @@ export async function moneyOf(db: Executor, orderId: string): Promise<OrderMoney
 	return money;
 }
 
+/** The processor id of the order's charge (`charge:<order>`), once one has been taken. */
+export async function chargeOf(db: Executor, orderId: string): Promise<string | null> {
+	return (await paymentByKey(db, `charge:${orderId}`))?.processorId ?? null;
+}
+
 /** Records a processor object for an order; a second record under the same key or id changes nothing. */
 export async function recordPayment(
 	tx: Executor,

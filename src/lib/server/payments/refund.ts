@@ -1,7 +1,7 @@
 import type { Executor } from '../db';
 import { completeRefund } from '../orders/lifecycle';
 import { forMoney } from '../orders/payment';
-import { moneyOf, paymentByKey, post, recordPayment } from './ledger';
+import { chargeOf, moneyOf, paymentByKey, post, recordPayment } from './ledger';
 import { moneyJob, moneyKey, refund, reverseAdvance } from './transfers';
 
 /**
@@ -56,8 +56,9 @@ export async function runRefund(db: Executor, { orderId }: { orderId: string }):
 		}
 		const held = (await moneyOf(tx, orderId)).heldMinor;
 		if (held <= 0) return;
-		if (!row.chargeId) throw new Error(`Order ${orderId} has no charge to refund`);
-		const made = await refund({ orderId, chargeId: row.chargeId, amountMinor: held });
+		const chargeId = await chargeOf(tx, orderId);
+		if (!chargeId) throw new Error(`Order ${orderId} has no charge to refund`);
+		const made = await refund({ orderId, chargeId, amountMinor: held });
 		const paymentId = await recordPayment(tx, {
 			orderId,
 			kind: 'refund',

@@ -2,7 +2,7 @@ import type { Executor } from '../db';
 import { completeRelease } from '../orders/lifecycle';
 import { forMoney } from '../orders/payment';
 import * as payouts from '../payouts';
-import { moneyOf, paymentByKey, post, posted, recordPayment, type Posting } from './ledger';
+import { chargeOf, moneyOf, paymentByKey, post, posted, recordPayment, type Posting } from './ledger';
 import { moneyJob, moneyKey, transfer } from './transfers';
 
 /**
@@ -23,7 +23,8 @@ export async function runRelease(db: Executor, { orderId }: { orderId: string })
 			return;
 		}
 		if (row.status !== 'delivered') return;
-		if (!row.chargeId) throw new Error(`Order ${orderId} has no charge to transfer from`);
+		const chargeId = await chargeOf(tx, orderId);
+		if (!chargeId) throw new Error(`Order ${orderId} has no charge to transfer from`);
 		const money = await moneyOf(tx, orderId);
 		if (row.fabricApprovedAt && row.advanceMinor > 0 && money.advancedMinor === 0)
 			throw new Error('The materials advance is still on its way; the release waits for it');
@@ -43,7 +44,7 @@ export async function runRelease(db: Executor, { orderId }: { orderId: string })
 				amountMinor: amount,
 				currency: row.currency,
 				destination,
-				chargeId: row.chargeId,
+				chargeId,
 				action: 'release'
 			});
 			transferId = made.id;

@@ -49,9 +49,6 @@ export const order = pgTable(
 		/** The delivery date agreed in the quote. */
 		dueDate: date('due_date', { mode: 'string' }).notNull(),
 		checkoutSessionId: text('checkout_session_id').unique(),
-		paymentIntentId: text('payment_intent_id').unique(),
-		chargeId: text('charge_id').unique(),
-		transferId: text('transfer_id').unique(),
 		status: orderStatus('status').notNull().default('awaiting_payment'),
 		fundedAt: instant('funded_at'),
 		deliveredAt: instant('delivered_at'),
