@@ -19,6 +19,7 @@ const nodeAdapterWithOwnEntry = {
 		builder.copy('src/lib/server/http/protective-headers.js', 'build/protective-headers.js');
 		builder.copy('server/public-pages.js', 'build/public-pages.js');
 		builder.copy('server/shared-answers.js', 'build/shared-answers.js');
+		builder.copy('server/private-answers.js', 'build/private-answers.js');
 		// Public pages go where only our entry serves them (to requests without a session); adapter-node
 		// finds its prerendered folder empty and hands a signed-in request to SvelteKit instead.
 		builder.copy('build/prerendered', 'build/public-pages');
@@ -32,9 +33,10 @@ const config = {
 	preprocess: vitePreprocess(),
 	kit: {
 		adapter: nodeAdapterWithOwnEntry,
-		// Kit adds hashes/nonces for its own inline scripts; nothing is loaded from other origins.
+		// Kit adds hashes for its own inline scripts (hashes, not nonces: a signed-in page may be sent again
+		// from server/private-answers.js); nothing is loaded from other origins.
 		csp: {
-			mode: 'auto',
+			mode: 'hash',
 			directives: {
 				'default-src': ['self'],
 				'script-src': ['self'],

@@ -6,6 +6,7 @@ import http from 'node:http';
 import process from 'node:process';
 import { protectiveHeaders } from './protective-headers.js';
 import { loadPublicPages, servePublicPage } from './public-pages.js';
+import { privateAnswers } from './private-answers.js';
 import { sharedAnswers } from './shared-answers.js';
 
 // The largest body any request may carry: one 15 MB photo upload with its multipart framing. Each route
@@ -14,6 +15,8 @@ process.env.BODY_SIZE_LIMIT ??= '16M';
 const { handler } = await import('./handler.js');
 const publicPages = loadPublicPages(new URL('./public-pages', import.meta.url).pathname);
 const shared = sharedAnswers();
+const kept = privateAnswers({ databaseUrl: process.env.DATABASE_URL });
+process.once('sveltekit:shutdown', () => void kept.close());
 
 const host = process.env.HOST ?? '0.0.0.0';
 const port = Number(process.env.PORT ?? 3000);
@@ -85,11 +88,20 @@ const server = http.createServer((req, res) => {
 	}
 	if (servePublicPage(publicPages, req, res)) return;
 	if (shared.serve(req, res)) return;
+	kept.serve(req, res).then(
+		(sent) => sent || toApp(req, res),
+		() => toApp(req, res)
+	);
+});
+
+/** @param {http.IncomingMessage} req @param {http.ServerResponse} res */
+function toApp(req, res) {
 	shared.watch(req, res);
+	kept.watch(req, res);
 	handler(req, res, () => {
 		res.writeHead(404, { 'content-type': 'text/plain' }).end('Not found');
 	});
-});
+}
 
 server.listen({ host, port }, () => console.log(`Listening on http://${host}:${port}`));
 

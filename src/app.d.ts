@@ -31,6 +31,10 @@ declare global {
 			guarded: boolean;
 			/** Signed in through an emailed link in the last few minutes (may reset the password). */
 			recentLinkSignIn: boolean;
+			/** The count of committed changes, read with the session before anything else (see freshness/). */
+			dataVersion: string | null;
+			/** When the session's token ends, in ms since the epoch. */
+			sessionEndsAt: number | null;
 		}
 	}
 }

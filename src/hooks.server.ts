@@ -1,9 +1,10 @@
 import { sequence } from '@sveltejs/kit/hooks';
 import type { Handle, HandleServerError, ServerInit } from '@sveltejs/kit';
-import { building } from '$app/environment';
+import { building, dev } from '$app/environment';
 import { gateAreas } from '$lib/server/auth/area-gate';
 import { authEndpoints } from '$lib/server/auth/endpoints';
 import { loadUser } from '$lib/server/auth/handle';
+import { keepSignedInAnswers } from '$lib/server/freshness';
 import { db } from '$lib/server/db';
 import { httpHandles } from '$lib/server/http';
 import { isDatabaseUnavailable, noteDatabaseOutage } from '$lib/server/http/outage';
@@ -50,7 +51,10 @@ const provideDb: Handle = ({ event, resolve }) => {
 	return resolve(event);
 };
 
-export const handle = sequence(httpHandles, provideDb, limitPublicApi, authEndpoints, loadUser, gateAreas);
+// Signed-in pages carry what server/private-answers.js needs to send them again while nothing has changed.
+const keepAnswers = keepSignedInAnswers({ enabled: !dev });
+
+export const handle = sequence(httpHandles, provideDb, limitPublicApi, authEndpoints, keepAnswers, loadUser, gateAreas);
 
 const clientErrors: Record<number, App.Error> = {
 	404: { message: 'There is nothing at this address.', code: 'not_found' },

@@ -3,6 +3,7 @@ import type { Executor } from '../db';
 import { session, user, type LengthUnit, type UserRole } from '../db/schema';
 import * as mail from '../mail';
 import * as audit from '../audit';
+import { dataVersionColumn } from '../freshness';
 import { noteWorkroomChanged } from '../search-outbox';
 import type { SessionUser } from '$lib/types/user';
 import { hashPassword, verifyAgainstNothing, verifyPassword } from './password';
@@ -20,10 +21,17 @@ const sessionColumns = {
 	suspendedAt: user.suspendedAt
 };
 
-/** The user behind a session token, whether the account is suspended, and whether the session is still live. */
+/**
+ * The user behind a session token, whether the account is suspended, whether the session is still live, and
+ * the count of committed changes (freshness) as this statement saw it, before the request reads anything else.
+ */
 export async function getSessionUser(db: Executor, { id, sessionId }: { id: string; sessionId: string | undefined }) {
 	const [row] = await db
-		.select({ ...sessionColumns, live: sql<boolean>`${session.sessionToken} is not null` })
+		.select({
+			...sessionColumns,
+			live: sql<boolean>`${session.sessionToken} is not null`,
+			dataVersion: dataVersionColumn()
+		})
 		.from(user)
 		.leftJoin(
 			session,
@@ -32,8 +40,13 @@ export async function getSessionUser(db: Executor, { id, sessionId }: { id: stri
 		.where(eq(user.id, id))
 		.limit(1);
 	if (!row) return null;
-	const { suspendedAt, live, ...rest } = row;
-	return { user: rest satisfies SessionUser, suspended: suspendedAt !== null, live: Boolean(live) };
+	const { suspendedAt, live, dataVersion, ...rest } = row;
+	return {
+		user: rest satisfies SessionUser,
+		suspended: suspendedAt !== null,
+		live: Boolean(live),
+		dataVersion: String(dataVersion)
+	};
 }
 
 export async function findByEmail(db: Executor, { email }: { email: string }) {

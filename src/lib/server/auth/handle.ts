@@ -22,6 +22,8 @@ export const loadUser: Handle = async ({ event, resolve }) => {
 	event.locals.suspended = false;
 	event.locals.guarded = false;
 	event.locals.recentLinkSignIn = false;
+	event.locals.dataVersion = null;
+	event.locals.sessionEndsAt = null;
 	const cookies = event.request.headers.get('cookie');
 	if (!cookies?.includes(sessionCookieName)) return resolve(event);
 	const token = await readSessionToken(cookies, { secure: event.url.protocol === 'https:', secret: env.AUTH_SECRET });
@@ -33,6 +35,8 @@ export const loadUser: Handle = async ({ event, resolve }) => {
 			event.locals.user = found.user;
 			event.locals.sessionId = token.sessionId ?? null;
 			event.locals.recentLinkSignIn = isRecentLinkSignIn(token);
+			event.locals.dataVersion = found.dataVersion;
+			event.locals.sessionEndsAt = token.exp ? token.exp * 1000 : null;
 		}
 	}
 	return resolve(event);

@@ -1,5 +1,6 @@
 import type { Meilisearch } from 'meilisearch';
 import * as commissions from '../commissions';
+import * as freshness from '../freshness';
 import type { Executor } from '../db';
 import type { SearchDocumentKind } from '../db/schema';
 import * as outbox from '../search-outbox';
@@ -54,6 +55,8 @@ async function rebuild(db: Executor, client: Meilisearch, kind: SearchDocumentKi
 		if (page.results.length < 1000) break;
 	}
 	if (stale.length) await applied(index.deleteDocuments(stale));
+	// Lists answered from the index while it was being refilled may be kept: the count moves, they are dropped.
+	await freshness.touch(db);
 	return { kind, documents: total, removed: stale.length, ms: Date.now() - startedAt };
 }
 

@@ -13,3 +13,4 @@ export * from './audit';
 export * from './places';
 export * from './search';
 export * from './notifications';
+export * from './freshness';

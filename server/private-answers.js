@@ -1,0 +1,207 @@
+// Signed-in pages sent again from memory while they are still what the app would render.
+//
+// The app marks an answer it may be sent again (src/lib/server/freshness/handle.ts) with the data version it
+// read together with the session, before reading anything else, and with that session and user. Every
+// committed change to what pages show moves the version (migration 0011, a deferred trigger on each table).
+// Before a kept answer is sent again, one query checks that its session is still live, its account not
+// suspended, and the version unchanged; otherwise the request goes to the app as usual. Each app process keeps
+// its own answers, and they never disagree, because every use is checked against the one database. An answer
+// is kept for at most `maxAgeMs` besides, for what the clock alone changes ("due in 2 days").
+import pg from 'pg';
+import { brotliCompressSync, constants, gzipSync } from 'node:zlib';
+
+/** Set by the app on a keepable answer; always removed here, so it never reaches the browser. */
+const markHeader = 'x-tackline-keep';
+/** Auth.js's session cookie, whatever its prefix or chunk number. */
+const sessionCookie = 'authjs.session-token';
+const maxAgeMs = 30_000;
+const maxEntries = 2000;
+const maxBodyBytes = 1024 * 1024;
+const maxKeptBytes = 64 * 1024 * 1024;
+/** Headers sent again with a kept answer (the protective headers are set for every response anyway). */
+const keptHeaders = ['content-type', 'cache-control', 'content-security-policy', 'link', 'vary', 'x-robots-tag'];
+
+const check = {
+	name: 'tackline-kept-answer-check',
+	text: `select d.value::text as version
+		from data_version d
+		where d.id = 1 and exists (
+			select 1 from session s join "user" u on u.id = s.user_id
+			where s.session_token = $1 and s.user_id = $2 and s.expires > now() and u.suspended_at is null
+		)`
+};
+
+/**
+ * @typedef {{ version: string; sessionId: string; userId: string; endsAt: number; until: number;
+ *   headers: Record<string, string>; etag: string; identity: Buffer; gzip?: Buffer; br?: Buffer }} Kept
+ */
+
+/** @param {import('node:http').IncomingMessage} req */
+function keyOf(req) {
+	if (req.method !== 'GET' && req.method !== 'HEAD') return null;
+	const cookie = String(req.headers.cookie ?? '');
+	if (req.headers.authorization || !cookie.includes(sessionCookie)) return null;
+	return [req.url, cookie, req.headers.accept ?? '', req.headers['accept-language'] ?? ''].join('\n');
+}
+
+/** @param {string | undefined} header @param {string} etag */
+const matchesTag = (header, etag) => Boolean(header?.split(',').some((tag) => tag.trim().replace(/^W\//, '') === etag));
+
+/** @param {string} value */
+function readMark(value) {
+	try {
+		const mark = JSON.parse(decodeURIComponent(value));
+		const valid = ['v', 's', 'u'].every((name) => typeof mark[name] === 'string') && typeof mark.e === 'number';
+		return valid ? /** @type {{ v: string; s: string; u: string; e: number }} */ (mark) : null;
+	} catch {
+		return null;
+	}
+}
+
+/** @param {{ databaseUrl: string | undefined }} options */
+export function privateAnswers({ databaseUrl }) {
+	/** @type {Map<string, Kept>} */
+	const kept = new Map();
+	let keptBytes = 0;
+	const pool = databaseUrl ? new pg.Pool({ connectionString: databaseUrl, max: 4, idleTimeoutMillis: 30_000 }) : null;
+	pool?.on('error', () => {}); // a dropped idle connection is replaced on the next check
+
+	/** @param {string} key */
+	function drop(key) {
+		const answer = kept.get(key);
+		if (!answer) return;
+		kept.delete(key);
+		keptBytes -= answer.identity.length + (answer.gzip?.length ?? 0) + (answer.br?.length ?? 0);
+	}
+
+	/** @param {string} key @param {Kept} answer */
+	function keep(key, answer) {
+		drop(key);
+		while (kept.size >= maxEntries || (kept.size && keptBytes + answer.identity.length > maxKeptBytes)) {
+			drop(/** @type {string} */ (kept.keys().next().value));
+		}
+		kept.set(key, answer);
+		keptBytes += answer.identity.length;
+	}
+
+	/** Whether the answer may still be sent: its session live, its account not suspended, nothing changed. */
+	async function stillCurrent(/** @type {Kept} */ answer) {
+		if (!pool || answer.until <= Date.now() || (answer.endsAt && answer.endsAt <= Date.now())) return false;
+		try {
+			const { rows } = await pool.query({ ...check, values: [answer.sessionId, answer.userId] });
+			return rows[0]?.version === answer.version;
+		} catch {
+			return false; // the app answers, and reports the database's state its own way
+		}
+	}
+
+	/** @param {Kept} answer @param {'gzip' | 'br'} encoding */
+	function encoded(answer, encoding) {
+		if (!answer[encoding]) {
+			answer[encoding] =
+				encoding === 'br'
+					? brotliCompressSync(answer.identity, { params: { [constants.BROTLI_PARAM_QUALITY]: 5 } })
+					: gzipSync(answer.identity);
+			keptBytes += answer[encoding].length;
+		}
+		return /** @type {Buffer} */ (answer[encoding]);
+	}
+
+	/**
+	 * Sends the kept answer to this request when it is still current; false when the app must answer.
+	 * @param {import('node:http').IncomingMessage} req @param {import('node:http').ServerResponse} res
+	 */
+	async function serve(req, res) {
+		const key = keyOf(req);
+		const answer = key ? kept.get(key) : undefined;
+		if (!key || !answer) return false;
+		if (!(await stillCurrent(answer))) {
+			if (kept.get(key) === answer) drop(key);
+			return false;
+		}
+		for (const [name, value] of Object.entries(answer.headers)) res.setHeader(name, value);
+		res.setHeader('etag', answer.etag);
+		res.setHeader('age', String(Math.floor((Date.now() - (answer.until - maxAgeMs)) / 1000)));
+		if (matchesTag(/** @type {string | undefined} */ (req.headers['if-none-match']), answer.etag)) {
+			res.writeHead(304).end();
+			return true;
+		}
+		const accepted = String(req.headers['accept-encoding'] ?? '');
+		const large = answer.identity.length > 1024;
+		const encoding = large && /\bbr\b/.test(accepted) ? 'br' : large && /\bgzip\b/.test(accepted) ? 'gzip' : null;
+		const body = encoding ? encoded(answer, encoding) : answer.identity;
+		if (encoding) res.setHeader('content-encoding', encoding);
+		res.setHeader('vary', [answer.headers.vary, 'Accept-Encoding', 'Cookie'].filter(Boolean).join(', '));
+		res.setHeader('content-length', body.length);
+		res.writeHead(200);
+		res.end(req.method === 'HEAD' ? undefined : body);
+		return true;
+	}
+
+	/**
+	 * Removes the app's mark from every answer, and keeps a marked one for the request's key.
+	 * @param {import('node:http').IncomingMessage} req @param {import('node:http').ServerResponse} res
+	 */
+	function watch(req, res) {
+		const key = keyOf(req);
+		/** @type {ReturnType<typeof readMark>} */
+		let mark = null;
+		const writeHead = res.writeHead;
+		res.writeHead = /** @type {typeof res.writeHead} */ (
+			function (/** @type {any[]} */ ...args) {
+				const value = res.getHeader(markHeader);
+				if (value !== undefined) {
+					res.removeHeader(markHeader);
+					mark = readMark(String(value));
+				}
+				return writeHead.apply(res, /** @type {any} */ (args));
+			}
+		);
+		if (!key || req.method !== 'GET' || !pool) return;
+		/** @type {Buffer[]} */
+		const chunks = [];
+		let size = 0;
+		const collect = (/** @type {unknown} */ chunk) => {
+			if (!mark || size > maxBodyBytes || chunk == null || typeof chunk === 'function') return;
+			const buffer = typeof chunk === 'string' ? Buffer.from(chunk) : Buffer.from(/** @type {Uint8Array} */ (chunk));
+			size += buffer.length;
+			chunks.push(buffer);
+		};
+		const write = res.write;
+		const end = res.end;
+		res.write = /** @type {typeof res.write} */ (
+			function (/** @type {unknown} */ chunk, /** @type {any[]} */ ...rest) {
+				collect(chunk);
+				return write.call(res, /** @type {any} */ (chunk), ...rest);
+			}
+		);
+		res.end = /** @type {typeof res.end} */ (
+			function (/** @type {unknown} */ chunk, /** @type {any[]} */ ...rest) {
+				collect(chunk);
+				const found = /** @type {ReturnType<typeof readMark>} */ (mark);
+				if (found && res.statusCode === 200 && size <= maxBodyBytes && !res.getHeader('set-cookie')) {
+					/** @type {Record<string, string>} */
+					const headers = {};
+					for (const name of keptHeaders) {
+						const value = res.getHeader(name);
+						if (value !== undefined) headers[name] = String(value);
+					}
+					const identity = Buffer.concat(chunks);
+					keep(key, {
+						version: found.v,
+						sessionId: found.s,
+						userId: found.u,
+						endsAt: found.e,
+						until: Date.now() + maxAgeMs,
+						headers,
+						etag: `"k${found.v}-${identity.length.toString(36)}-${Date.now().toString(36)}"`,
+						identity
+					});
+				}
+				return end.call(res, /** @type {any} */ (chunk), ...rest);
+			}
+		);
+	}
+
+	return { serve, watch, close: () => pool?.end() };
+}
