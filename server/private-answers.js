@@ -1,26 +1,62 @@
-// Signed-in pages sent again from memory while they are still what the app would render.
+// Pages and lists sent again from memory while they are still what the app would render.
 //
 // The app marks an answer it may be sent again (src/lib/server/freshness/handle.ts) with the data version it
-// read together with the session, before reading anything else, and with that session and user. Every
-// committed change to what pages show moves the version (migration 0011, a deferred trigger on each table).
-// Before a kept answer is sent again, one query checks that its session is still live, its account not
-// suspended, and the version unchanged; otherwise the request goes to the app as usual. Each app process keeps
-// its own answers, and they never disagree, because every use is checked against the one database. An answer
-// is kept for at most `maxAgeMs` besides, for what the clock alone changes ("due in 2 days").
+// read before reading anything else (with the session, when there is one) and with that session and user.
+// Every committed change to what pages show moves the version (migration 0011, a deferred trigger on each
+// table). Before a kept answer is sent again, one query checks that the version is unchanged and, for a
+// signed-in answer, that its session is still live and its account not suspended; a kept API answer also
+// counts against the app's own per-address limit. Otherwise the request goes to the app as usual. Each app
+// process keeps its own answers, and they never disagree, because every use is checked against the one
+// database. An answer is kept for at most `maxAgeMs` besides, for what the clock alone changes ("due in 2
+// days"). A request that asks for no cached answer (`Cache-Control: no-cache`, a reload) goes to the app.
 import pg from 'pg';
 import { brotliCompressSync, constants, gzipSync } from 'node:zlib';
 
 /** Set by the app on a keepable answer; always removed here, so it never reaches the browser. */
 const markHeader = 'x-tackline-keep';
-/** Auth.js's session cookie, whatever its prefix or chunk number. */
-const sessionCookie = 'authjs.session-token';
 const maxAgeMs = 30_000;
 const maxEntries = 2000;
 const maxBodyBytes = 1024 * 1024;
 const maxKeptBytes = 64 * 1024 * 1024;
 /** Headers sent again with a kept answer (the protective headers are set for every response anyway). */
-const keptHeaders = ['content-type', 'cache-control', 'content-security-policy', 'link', 'vary', 'x-robots-tag'];
+const keptHeaders = [
+	'content-type',
+	'cache-control',
+	'content-security-policy',
+	'link',
+	'vary',
+	'x-robots-tag',
+	'x-search-source'
+];
+/** Set by the app once it runs (src/lib/server/freshness/front-door.ts). */
+const frontDoorKey = Symbol.for('tackline.front-door');
 
+// The caller's address as adapter-node works it out (ADDRESS_HEADER, XFF_DEPTH), for the API's limit.
+const addressHeader = (process.env.ADDRESS_HEADER ?? '').toLowerCase();
+const forwardedDepth = Number.parseInt(process.env.XFF_DEPTH ?? '1', 10);
+
+/** @param {import('node:http').IncomingMessage} req */
+function clientAddress(req) {
+	if (!addressHeader) return req.socket.remoteAddress ?? 'unknown';
+	const value = String(req.headers[addressHeader] ?? '');
+	if (!value) return 'unknown';
+	if (addressHeader !== 'x-forwarded-for') return value;
+	const addresses = value.split(',');
+	return addresses[addresses.length - forwardedDepth]?.trim() || 'unknown';
+}
+
+/** Whether the public API's limit lets this request through; false also before the app has started. */
+async function withinApiLimit(/** @type {import('node:http').IncomingMessage} */ req) {
+	const door = /** @type {{ allowApi?: (address: string) => Promise<boolean> } | undefined} */ (
+		/** @type {Record<symbol, unknown>} */ (globalThis)[frontDoorKey]
+	);
+	return door?.allowApi ? door.allowApi(clientAddress(req)) : false;
+}
+
+const versionOnly = {
+	name: 'tackline-kept-answer-version',
+	text: 'select value::text as version from data_version where id = 1'
+};
 const check = {
 	name: 'tackline-kept-answer-check',
 	text: `select d.value::text as version
@@ -38,9 +74,11 @@ const check = {
 
 /** @param {import('node:http').IncomingMessage} req */
 function keyOf(req) {
-	if (req.method !== 'GET' && req.method !== 'HEAD') return null;
+	if ((req.method !== 'GET' && req.method !== 'HEAD') || req.headers.authorization) return null;
+	const asked = `${req.headers['cache-control'] ?? ''} ${req.headers.pragma ?? ''}`;
+	if (/no-cache|no-store|max-age=0/.test(asked)) return null;
 	const cookie = String(req.headers.cookie ?? '');
-	if (req.headers.authorization || !cookie.includes(sessionCookie)) return null;
+	// A request without a session shares answers rendered without one; the cookie header is part of the key.
 	return [req.url, cookie, req.headers.accept ?? '', req.headers['accept-language'] ?? ''].join('\n');
 }
 
@@ -88,7 +126,9 @@ export function privateAnswers({ databaseUrl }) {
 	async function stillCurrent(/** @type {Kept} */ answer) {
 		if (!pool || answer.until <= Date.now() || (answer.endsAt && answer.endsAt <= Date.now())) return false;
 		try {
-			const { rows } = await pool.query({ ...check, values: [answer.sessionId, answer.userId] });
+			const { rows } = answer.sessionId
+				? await pool.query({ ...check, values: [answer.sessionId, answer.userId] })
+				: await pool.query(versionOnly);
 			return rows[0]?.version === answer.version;
 		} catch {
 			return false; // the app answers, and reports the database's state its own way
@@ -115,6 +155,8 @@ export function privateAnswers({ databaseUrl }) {
 		const key = keyOf(req);
 		const answer = key ? kept.get(key) : undefined;
 		if (!key || !answer) return false;
+		const path = (req.url ?? '').split('?')[0];
+		if ((path === '/api' || path.startsWith('/api/')) && !(await withinApiLimit(req))) return false;
 		if (!(await stillCurrent(answer))) {
 			if (kept.get(key) === answer) drop(key);
 			return false;

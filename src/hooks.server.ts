@@ -4,7 +4,9 @@ import { building, dev } from '$app/environment';
 import { gateAreas } from '$lib/server/auth/area-gate';
 import { authEndpoints } from '$lib/server/auth/endpoints';
 import { loadUser } from '$lib/server/auth/handle';
-import { keepSignedInAnswers } from '$lib/server/freshness';
+import { markKeepableAnswers, openFrontDoor } from '$lib/server/freshness';
+import { sessionCookieName } from '$lib/server/auth/session-token';
+import { publicApi } from '$lib/server/limits';
 import { db } from '$lib/server/db';
 import { httpHandles } from '$lib/server/http';
 import { isDatabaseUnavailable, noteDatabaseOutage } from '$lib/server/http/outage';
@@ -25,6 +27,8 @@ import { requestSync } from '$lib/server/search-outbox';
 /** Background jobs (mail and later ones) run in the app process; adapter-node's shutdown lets them finish. */
 export const init: ServerInit = async () => {
 	if (building) return; // prerendering public pages needs no database
+	// A kept API answer counts against the same per-address limit as one the app renders.
+	openFrontDoor({ allowApi: async (address) => (await publicApi({ address })).allowed });
 	process.once('sveltekit:shutdown', () => void stopJobs());
 	// Quotes create orders, so orders cannot import quotes: cancelling an unpaid order is wired to them here.
 	orders.onUnpaidCancelled(quotes.reopenAfterCancelledOrder);
@@ -51,8 +55,8 @@ const provideDb: Handle = ({ event, resolve }) => {
 	return resolve(event);
 };
 
-// Signed-in pages carry what server/private-answers.js needs to send them again while nothing has changed.
-const keepAnswers = keepSignedInAnswers({ enabled: !dev });
+// Keepable answers carry what server/private-answers.js needs to send them again while nothing has changed.
+const keepAnswers = markKeepableAnswers({ enabled: !dev && !building, sessionCookie: sessionCookieName });
 
 export const handle = sequence(httpHandles, provideDb, limitPublicApi, authEndpoints, keepAnswers, loadUser, gateAreas);
 

@@ -47,10 +47,10 @@ export function newClient(address = `198.18.${randomInt(0, 255)}.${randomInt(1, 
 			return response;
 		},
 		/** A JSON API call; `body` is sent as JSON when given. */
-		async json(method: string, path: string, body?: unknown) {
+		async json(method: string, path: string, body?: unknown, extra: Record<string, string> = {}) {
 			const response = await fetch(base + path, {
 				method,
-				headers: headers(body === undefined ? {} : { 'content-type': 'application/json' }),
+				headers: headers({ ...(body === undefined ? {} : { 'content-type': 'application/json' }), ...extra }),
 				body: body === undefined ? undefined : JSON.stringify(body),
 				redirect: 'manual'
 			});

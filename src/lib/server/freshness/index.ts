@@ -1,20 +1,3 @@
-import { eq, sql } from 'drizzle-orm';
-import type { Executor } from '../db';
-import { dataVersion } from '../db/schema';
-
-export { keepSignedInAnswers, keptAnswerHeader, keepableRoutes } from './handle';
-
-/**
- * The count of committed changes as a column of the caller's own query, so that it is read in the same
- * statement as the session, before the request reads anything else.
- */
-export const dataVersionColumn = () =>
-	sql<string>`(select ${dataVersion.value} from ${dataVersion} where ${dataVersion.id} = 1)`;
-
-/** Counts a change the database did not see (a search index rebuilt from nothing), so kept answers are dropped. */
-export async function touch(db: Executor) {
-	await db
-		.update(dataVersion)
-		.set({ value: sql`${dataVersion.value} + 1` })
-		.where(eq(dataVersion.id, 1));
-}
+export { currentVersion, dataVersionColumn, touch } from './version';
+export { keepableRoutes, keptAnswerHeader, markKeepableAnswers } from './handle';
+export { openFrontDoor } from './front-door';
