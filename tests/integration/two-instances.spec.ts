@@ -44,6 +44,22 @@ describe('two app processes on one database', () => {
 		expect(await page.text()).toContain('customer@tackline.test');
 	});
 
+	it('show a change made through one on a page the other kept', async () => {
+		const email = uniqueEmail('replica-kept');
+		const first = newClient();
+		expect((await signUp(first, { email, role: 'customer' })).status).toBe(303);
+		const there = onSecond(first);
+		expect((await there.get('/commissions')).status).toBe(200);
+		const kept = await there.get('/commissions');
+		expect(kept.headers.has('age')).toBe(true);
+
+		const saved = await first.post('/account?/profile', { name: 'Ottoline Vessey', units: 'cm', timeZone: 'UTC' });
+		expect(saved.status).toBe(200);
+		const after = await there.get('/commissions');
+		expect(after.headers.has('age')).toBe(false);
+		expect(await after.text()).toContain('Ottoline Vessey');
+	});
+
 	it('end a session everywhere when it is signed out on one', async () => {
 		const email = uniqueEmail('replica');
 		const first = newClient();
