@@ -27,9 +27,15 @@ export function firstNameAndInitial(name: string | null | undefined) {
 	return parts.length > 1 ? `${parts[0]} ${parts.at(-1)![0].toUpperCase()}.` : parts[0];
 }
 
+/**
+ * The listed commission's id, qualified: in a select from one table Drizzle writes columns bare, and a bare
+ * `"id"` inside a subquery would name the subquery's own row.
+ */
+const listedId = sql`${commission}.${sql.identifier('id')}`;
+
 const bandJson = sql<SizeBandRange[]>`coalesce((
 	select json_agg(json_build_object('dimension', b.dimension, 'lowerMm', b.lower_mm, 'upperMm', b.upper_mm) order by b.position)
-	from ${commissionSizeBand} b where b.commission_id = ${commission.id}
+	from ${commissionSizeBand} b where b.commission_id = ${listedId}
 ), '[]'::json)`;
 
 const customerListStatement = preparedPer((db) =>
@@ -49,7 +55,8 @@ const customerListStatement = preparedPer((db) =>
 			approxLng: commission.approxLng,
 			city: commission.city,
 			quoteCount: sql<number>`(
-				select count(*)::int from ${quote} q where q.commission_id = ${commission.id} and q.status = 'sent'
+				select count(*)::int from ${quote} q
+				where q.commission_id = ${listedId} and q.status = 'sent'
 			)`.mapWith(Number)
 		})
 		.from(commission)
@@ -261,10 +268,9 @@ export async function listOpen(db: Executor, { limit = 20 }: { limit?: number } 
 			handover: commission.handover,
 			publishedAt: commission.publishedAt,
 			expiresAt: commission.expiresAt,
-			photoCount:
-				sql<number>`(select count(*) from ${commissionPhoto} p where p.commission_id = ${commission.id})`.mapWith(
-					Number
-				)
+			photoCount: sql<number>`(select count(*) from ${commissionPhoto} p where p.commission_id = ${listedId})`.mapWith(
+				Number
+			)
 		})
 		.from(commission)
 		.where(eq(commission.status, 'open'))

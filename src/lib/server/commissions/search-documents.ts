@@ -205,14 +205,20 @@ export type CommissionCard = {
 	photo: { id: string; altText: string } | null;
 };
 
+/**
+ * The listed commission's id, qualified: in a select from one table Drizzle writes columns bare, and a bare
+ * `"id"` inside a subquery would name the subquery's own row.
+ */
+const listedId = sql`${commission}.${sql.identifier('id')}`;
+
 const bandJson = sql<SizeBandRange[]>`coalesce((
 	select json_agg(json_build_object('dimension', b.dimension, 'lowerMm', b.lower_mm, 'upperMm', b.upper_mm) order by b.position)
-	from ${commissionSizeBand} b where b.commission_id = ${commission.id}
+	from ${commissionSizeBand} b where b.commission_id = ${listedId}
 ), '[]'::json)`;
 
 const firstPhoto = sql<{ id: string; altText: string } | null>`(
 	select json_build_object('id', p.id, 'altText', p.alt_text) from ${commissionPhoto} p
-	where p.commission_id = ${commission.id} order by p.sort_order, p.created_at limit 1
+	where p.commission_id = ${listedId} order by p.sort_order, p.created_at limit 1
 )`;
 
 const cardsStatement = preparedPer((db) =>

@@ -222,7 +222,8 @@ const homeStatement = preparedPer((db) =>
 	db
 		.select({
 			...ownColumns,
-			hasPortfolioPhoto: portfolio.hasPhotoExpression(tailorProfile.userId),
+			// Qualified: Drizzle writes a one-table select's columns bare, and the subquery has tables of its own.
+			hasPortfolioPhoto: portfolio.hasPhotoExpression(sql`${tailorProfile}.${sql.identifier('user_id')}`),
 			payoutsReady: payoutsReadyColumn
 		})
 		.from(tailorProfile)
