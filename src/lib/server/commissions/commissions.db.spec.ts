@@ -66,9 +66,9 @@ describe("the customer's list judges drafts' dates in their own day", () => {
 		let reads = 0;
 		const list = await listForCustomer(db, {
 			customerId,
-			today: async () => {
+			today: () => {
 				reads += 1;
-				return utcDay(0);
+				return Promise.resolve(utcDay(0));
 			}
 		});
 		expect(reads).toBe(0);
@@ -83,9 +83,9 @@ describe("the customer's list judges drafts' dates in their own day", () => {
 		const listOn = (day: string) =>
 			listForCustomer(db, {
 				customerId,
-				today: async () => {
+				today: () => {
 					reads += 1;
-					return day;
+					return Promise.resolve(day);
 				}
 			});
 		// Where it is already tomorrow, the date needed has come: back to the budget step.
