@@ -96,3 +96,23 @@ describe("the workroom home's one read", () => {
 		expect(inside).toEqual(await workrooms.home(db, { tailorId: tailor.id }));
 	});
 });
+
+describe("a near-me list's origin", () => {
+	it("is the workroom's place, reach and rates' currency, as getOwn has them", async () => {
+		const tailor = await createWorkroom(db, { profile: { serviceRadiusKm: 18 } });
+		const own = (await workrooms.getOwn(db, { tailorId: tailor.id }))!;
+		expect(await workrooms.listOrigin(db, { tailorId: tailor.id })).toEqual({
+			location: { town: own.location.town, lat: own.location.lat, lng: own.location.lng },
+			serviceRadiusKm: 18,
+			currency: own.rates!.currency
+		});
+	});
+
+	it('has no currency without a rate, and is null without a workroom', async () => {
+		const unrated = await createWorkroom(db, { profile: { hourlyRateMinor: null, rateCurrency: 'GBP' } });
+		expect((await workrooms.listOrigin(db, { tailorId: unrated.id }))?.currency).toBeNull();
+		expect((await workrooms.getOwn(db, { tailorId: unrated.id }))?.rates).toBeNull();
+		const newcomer = await createUser(db, { role: 'tailor' });
+		expect(await workrooms.listOrigin(db, { tailorId: newcomer.id })).toBeNull();
+	});
+});

@@ -173,6 +173,41 @@ async function syncOnboarding(tx: Executor, tailorId: string, row: OwnRow | null
 	return { status, onboardedAt };
 }
 
+/** Where a tailor's near-me list starts from: the workroom's place and reach, and the currency it quotes in. */
+export type ListOrigin = Pick<OwnWorkroom, 'serviceRadiusKm'> & {
+	location: Pick<OwnWorkroom['location'], 'town' | 'lat' | 'lng'>;
+	/** The rates' currency, null while no rates are set. */
+	currency: string | null;
+};
+
+const originStatement = preparedPer((db) =>
+	db
+		.select({
+			town: tailorProfile.city,
+			lat: tailorProfile.lat,
+			lng: tailorProfile.lng,
+			serviceRadiusKm: tailorProfile.serviceRadiusKm,
+			hourlyRateMinor: tailorProfile.hourlyRateMinor,
+			rateCurrency: tailorProfile.rateCurrency
+		})
+		.from(tailorProfile)
+		.where(eq(tailorProfile.userId, sql.placeholder('tailorId')))
+		.prepare('workroom_list_origin')
+);
+
+/** The few columns of the tailor's workroom a near-me list needs (null before the first section is saved). */
+export async function listOrigin(db: Executor, { tailorId }: { tailorId: string }): Promise<ListOrigin | null> {
+	const [row] = await originStatement(db).execute({ tailorId });
+	if (!row) return null;
+	const { town, lat, lng, serviceRadiusKm, hourlyRateMinor, rateCurrency } = row;
+	return {
+		location: { town, lat, lng },
+		serviceRadiusKm,
+		// As `getOwn` has it: a currency only with a rate.
+		currency: hourlyRateMinor !== null && rateCurrency !== null ? rateCurrency : null
+	};
+}
+
 /** The tailor's own workroom, or null before the first section is saved. */
 export async function getOwn(db: Executor, { tailorId }: { tailorId: string }): Promise<OwnWorkroom | null> {
 	const row = await readRow(db, tailorId);
