@@ -4,7 +4,8 @@ import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ locals, url }) => {
 	const user = requireRole('customer');
-	const today = commissions.todayIn(await commissions.customerTimeZone(locals.db, user.id));
+	// The customer's day is read only when a draft's date needed must be judged against it.
+	const today = async () => commissions.todayIn(await commissions.customerTimeZone(locals.db, user.id));
 	return {
 		user,
 		commissions: await commissions.listForCustomer(locals.db, { customerId: user.id, today }),

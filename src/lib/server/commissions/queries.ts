@@ -3,6 +3,7 @@ import { formatSizeBand, type SizeBandRange } from '$lib/format/size-band';
 import { toUnitValue, type Unit } from '$lib/drafting';
 import * as accounts from '../accounts';
 import type { Executor } from '../db';
+import { preparedPer } from '../db/prepared';
 import {
 	commission,
 	commissionMeasurements,
@@ -26,14 +27,19 @@ export function firstNameAndInitial(name: string | null | undefined) {
 	return parts.length > 1 ? `${parts[0]} ${parts.at(-1)![0].toUpperCase()}.` : parts[0];
 }
 
+/**
+ * The listed commission's id, qualified: in a select from one table Drizzle writes columns bare, and a bare
+ * `"id"` inside a subquery would name the subquery's own row.
+ */
+const listedId = sql`${commission}.${sql.identifier('id')}`;
+
 const bandJson = sql<SizeBandRange[]>`coalesce((
 	select json_agg(json_build_object('dimension', b.dimension, 'lowerMm', b.lower_mm, 'upperMm', b.upper_mm) order by b.position)
-	from ${commissionSizeBand} b where b.commission_id = ${commission.id}
+	from ${commissionSizeBand} b where b.commission_id = ${listedId}
 ), '[]'::json)`;
 
-/** The customer's commissions, newest first; each draft says which step to continue at. */
-export async function listForCustomer(db: Executor, { customerId, today }: { customerId: string; today?: string }) {
-	const rows = await db
+const customerListStatement = preparedPer((db) =>
+	db
 		.select({
 			id: commission.id,
 			title: commission.title,
@@ -48,29 +54,58 @@ export async function listForCustomer(db: Executor, { customerId, today }: { cus
 			approxLat: commission.approxLat,
 			approxLng: commission.approxLng,
 			city: commission.city,
-			publishedAt: commission.publishedAt,
-			expiresAt: commission.expiresAt,
-			updatedAt: commission.updatedAt,
-			quoteCount: sql<number>`count(${quote.id}) filter (where ${quote.status} = 'sent')`.mapWith(Number)
+			quoteCount: sql<number>`(
+				select count(*)::int from ${quote} q
+				where q.commission_id = ${listedId} and q.status = 'sent'
+			)`.mapWith(Number)
 		})
 		.from(commission)
-		.leftJoin(quote, eq(quote.commissionId, commission.id))
-		.where(eq(commission.customerId, customerId))
-		.groupBy(commission.id)
+		.where(eq(commission.customerId, sql.placeholder('customerId')))
 		.orderBy(desc(commission.updatedAt), desc(commission.id))
-		.limit(100);
-	const day = today ?? new Date().toISOString().slice(0, 10);
-	return rows.map(({ measurementProfileId, approxLat, approxLng, ...row }) => {
-		if (row.status !== 'draft') return { ...row, continueAt: null };
-		// The profile is judged at publish time; here only whether one is chosen.
-		const gaps = missingForPublish(
-			{ ...row, measurementProfileId, approxLat, approxLng },
-			measurementProfileId ? { valuesMm: {} } : null,
-			day
-		).filter((issue) => issue.path !== 'measurements');
-		const continueAt: StepId = gaps.length ? stepOfField[gaps[0].path] : 'review';
-		return { ...row, continueAt };
-	});
+		.limit(100)
+		.prepare('commissions_of_customer')
+);
+
+const dayMs = 86_400_000;
+const utcDay = (offsetDays = 0) => new Date(Date.now() + offsetDays * dayMs).toISOString().slice(0, 10);
+
+/**
+ * The day drafts' dates needed are judged against. Every time zone's date is within a day of UTC's, so the
+ * customer's own day (`today()`, a read) is needed only for a draft needed within a day of UTC's date; for
+ * any other date, UTC's day gives the same answer.
+ */
+async function dayFor(rows: { status: string; dateNeeded: string | null }[], today: () => Promise<string>) {
+	const [earliest, latest] = [utcDay(-1), utcDay(1)];
+	const close = rows.some(
+		(row) => row.status === 'draft' && row.dateNeeded !== null && row.dateNeeded >= earliest && row.dateNeeded <= latest
+	);
+	return close ? today() : utcDay();
+}
+
+/**
+ * The customer's commissions, newest first, with what their list shows; each draft says which step to
+ * continue at. `today` is the customer's day; as a function it is called only when a draft's date needed
+ * is close enough for the time zone to matter.
+ */
+export async function listForCustomer(
+	db: Executor,
+	{ customerId, today }: { customerId: string; today?: string | (() => Promise<string>) }
+) {
+	const rows = await customerListStatement(db).execute({ customerId });
+	const day = typeof today === 'function' ? await dayFor(rows, today) : (today ?? utcDay());
+	return rows.map(
+		({ measurementProfileId, budgetMinMinor, budgetMaxMinor, currency, approxLat, approxLng, city, ...row }) => {
+			if (row.status !== 'draft') return { ...row, continueAt: null };
+			// The profile is judged at publish time; here only whether one is chosen.
+			const gaps = missingForPublish(
+				{ ...row, measurementProfileId, budgetMinMinor, budgetMaxMinor, currency, approxLat, approxLng, city },
+				measurementProfileId ? { valuesMm: {} } : null,
+				day
+			).filter((issue) => issue.path !== 'measurements');
+			const continueAt: StepId = gaps.length ? stepOfField[gaps[0].path] : 'review';
+			return { ...row, continueAt };
+		}
+	);
 }
 
 /** A draft or open commission for its owner's edit steps; null for anyone else (the page answers 404). */
@@ -233,10 +268,9 @@ export async function listOpen(db: Executor, { limit = 20 }: { limit?: number } 
 			handover: commission.handover,
 			publishedAt: commission.publishedAt,
 			expiresAt: commission.expiresAt,
-			photoCount:
-				sql<number>`(select count(*) from ${commissionPhoto} p where p.commission_id = ${commission.id})`.mapWith(
-					Number
-				)
+			photoCount: sql<number>`(select count(*) from ${commissionPhoto} p where p.commission_id = ${listedId})`.mapWith(
+				Number
+			)
 		})
 		.from(commission)
 		.where(eq(commission.status, 'open'))

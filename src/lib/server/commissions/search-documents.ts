@@ -3,6 +3,7 @@ import type { SizeBandRange } from '$lib/format/size-band';
 import { boundingBox } from '$lib/geo/distance';
 import type { LatLng } from '$lib/geo/coarsen';
 import type { Executor } from '../db';
+import { preparedPer } from '../db/prepared';
 import { commission, commissionPhoto, commissionSizeBand, type FabricSource } from '../db/schema';
 
 /** What the search index holds for an open commission: enough to filter, sort and match text; no measurements. */
@@ -204,20 +205,24 @@ export type CommissionCard = {
 	photo: { id: string; altText: string } | null;
 };
 
+/**
+ * The listed commission's id, qualified: in a select from one table Drizzle writes columns bare, and a bare
+ * `"id"` inside a subquery would name the subquery's own row.
+ */
+const listedId = sql`${commission}.${sql.identifier('id')}`;
+
 const bandJson = sql<SizeBandRange[]>`coalesce((
 	select json_agg(json_build_object('dimension', b.dimension, 'lowerMm', b.lower_mm, 'upperMm', b.upper_mm) order by b.position)
-	from ${commissionSizeBand} b where b.commission_id = ${commission.id}
+	from ${commissionSizeBand} b where b.commission_id = ${listedId}
 ), '[]'::json)`;
 
 const firstPhoto = sql<{ id: string; altText: string } | null>`(
 	select json_build_object('id', p.id, 'altText', p.alt_text) from ${commissionPhoto} p
-	where p.commission_id = ${commission.id} order by p.sort_order, p.created_at limit 1
+	where p.commission_id = ${listedId} order by p.sort_order, p.created_at limit 1
 )`;
 
-/** Cards for the given ids that are still open, by id; a commission closed since the index saw it is left out. */
-export async function cardsByIds(db: Executor, ids: string[]): Promise<Map<string, CommissionCard>> {
-	if (ids.length === 0) return new Map();
-	const rows = await db
+const cardsStatement = preparedPer((db) =>
+	db
 		.select({
 			id: commission.id,
 			title: commission.title,
@@ -236,7 +241,14 @@ export async function cardsByIds(db: Executor, ids: string[]): Promise<Map<strin
 			photo: firstPhoto
 		})
 		.from(commission)
-		.where(and(eq(commission.status, 'open'), inArray(commission.id, ids)));
+		.where(and(eq(commission.status, 'open'), sql`${commission.id} = any(${sql.placeholder('ids')}::uuid[])`))
+		.prepare('commission_cards_by_ids')
+);
+
+/** Cards for the given ids that are still open, by id; a commission closed since the index saw it is left out. */
+export async function cardsByIds(db: Executor, ids: string[]): Promise<Map<string, CommissionCard>> {
+	if (ids.length === 0) return new Map();
+	const rows = await cardsStatement(db).execute({ ids });
 	return new Map(
 		rows.map(({ budgetMinMinor, budgetMaxMinor, currency, ...row }) => [
 			row.id,

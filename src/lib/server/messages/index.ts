@@ -4,7 +4,7 @@
  */
 export { openThread } from './threads';
 export { post, markRead, startQuestion, messagesChannel, type Actor, type AttachmentInput } from './transitions';
-export { list, threadsFor, getThread, threadIdFor, unreadCount, messagesAfter } from './queries';
+export { list, threadsFor, getThread, threadIdFor, unreadCount, unreadCounts, messagesAfter } from './queries';
 export { openAttachment } from './attachments';
 export { openStream, openUnreadStream } from './live';
 export { sendDigests, dueDigests, digestNotice, digestDelayMinutes, type Digest } from './digest';

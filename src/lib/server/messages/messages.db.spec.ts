@@ -3,9 +3,10 @@ import PgBoss from 'pg-boss';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { createCommission, createUser, createWorkroom } from '../../../../tests/factories';
 import { createDb } from '../db/client';
-import { message } from '../db/schema';
+import { message, notification } from '../db/schema';
 import { queueNames } from '../jobs';
 import { listen } from '../services/notifications';
+import * as notifications from '../notifications';
 import * as messages from '.';
 
 // Kit's env module is fixed when vitest starts; this file's database is chosen by the setup after that.
@@ -90,6 +91,39 @@ describe('posting and reading', () => {
 		expect(await messages.markRead(db, { threadId, viewer: customer })).toBe(2);
 		expect(await messages.unreadCount(db, customer)).toBe(0);
 		expect(await messages.unreadCount(db, tailor)).toBe(1);
+	});
+
+	it("gives the header's two counts in one read, as the two counts do apart", async () => {
+		const { customer, tailor, threadId } = await conversation();
+		await messages.post(db, { threadId, actor: tailor, body: 'Shall I line the skirt?' });
+		await messages.post(db, { threadId, actor: tailor, body: 'Silk or viscose?' });
+		const apart = async (person: { id: string }) => ({
+			messages: await messages.unreadCount(db, person),
+			notices: await notifications.unreadCount(db, { userId: person.id })
+		});
+		expect((await messages.unreadCounts(db, customer)).messages).toBe(2);
+		expect(await messages.unreadCounts(db, customer)).toEqual(await apart(customer));
+		expect(await messages.unreadCounts(db, tailor)).toEqual({
+			messages: 0,
+			notices: await apart(tailor).then((a) => a.notices)
+		});
+
+		// Notices count up to the bell's cap, read ones not at all.
+		const notice = {
+			userId: customer.id,
+			event: 'message_waiting' as const,
+			title: 'A notice',
+			body: '',
+			href: '/messages'
+		};
+		await db
+			.insert(notification)
+			.values([
+				...Array.from({ length: notifications.unreadCap + 5 }, () => notice),
+				{ ...notice, readAt: new Date() }
+			]);
+		expect(await messages.unreadCounts(db, customer)).toEqual({ messages: 2, notices: notifications.unreadCap });
+		expect(await messages.unreadCounts(db, customer)).toEqual(await apart(customer));
 	});
 
 	it('lists unread conversations first, then by latest message, paged by thread', async () => {

@@ -7,7 +7,9 @@ import {
 	type ThreadView
 } from '$lib/types/messages';
 import { firstNameAndInitial } from '../commissions';
+import * as notifications from '../notifications';
 import type { Executor } from '../db';
+import { preparedPer } from '../db/prepared';
 import { message, messageAttachment, type Message } from '../db/schema';
 import { openness, sideOf, threadFacts, type Participant } from './access';
 import { noSuchThread } from './errors';
@@ -204,7 +206,7 @@ function summaryOf(row: ThreadRow, viewerId: string): ThreadSummary {
 }
 
 /** The viewer's threads, as ids: those they tailor, and those on their commissions. */
-function threadsOf(viewerId: string) {
+function threadsOf(viewerId: unknown) {
 	return sql`(
 		select t.id from message_thread t where t.tailor_id = ${viewerId}
 		union
@@ -302,10 +304,33 @@ export async function threadIdFor(
 	return result.rows[0]?.id ?? null;
 }
 
+const unreadMessagesOf = (viewerId: unknown) => sql<number>`(
+	select count(*)::int from message m
+	where m.thread_id in ${threadsOf(viewerId)} and m.read_at is null and m.author_id is distinct from ${viewerId}
+)`;
+
 /** How many messages wait unread for the viewer across all their threads (the navigation's badge). */
 export async function unreadCount(db: Executor, viewer: Participant) {
-	const result = await db.execute<{ count: number }>(sql`
-		select count(*)::int as count from message m
-		where m.thread_id in ${threadsOf(viewer.id)} and m.read_at is null and m.author_id is distinct from ${viewer.id}`);
+	const result = await db.execute<{ count: number }>(sql`select ${unreadMessagesOf(viewer.id)} as count`);
 	return Number(result.rows[0]?.count ?? 0);
+}
+
+const headerCountsStatement = preparedPer((db) => {
+	const viewerId = sql.placeholder('viewerId');
+	return db
+		.select({
+			messages: unreadMessagesOf(viewerId).mapWith(Number),
+			notices: notifications.unreadCountExpression(viewerId).mapWith(Number)
+		})
+		.from(sql`(values (1)) as one (x)`)
+		.prepare('header_unread_counts');
+});
+
+/**
+ * What the header's badges show, in one statement: the messages waiting unread (as `unreadCount`) and the
+ * notices waiting unread (as `notifications.unreadCount`, capped the same way).
+ */
+export async function unreadCounts(db: Executor, viewer: Participant): Promise<{ messages: number; notices: number }> {
+	const [row] = await headerCountsStatement(db).execute({ viewerId: viewer.id });
+	return { messages: row?.messages ?? 0, notices: row?.notices ?? 0 };
 }

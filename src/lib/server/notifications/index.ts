@@ -11,7 +11,7 @@ import { wants } from './preferences';
 export type { NotificationEvent } from '../db/schema';
 export { catalogue, eventsFor, groups, notificationEvents } from './catalogue';
 export { escapeHtml, isInternalPath, noticeMail, preferencesPath } from './layout';
-export { list, markRead, unreadCount, unreadCap, hrefOf } from './queries';
+export { list, markRead, unreadCount, unreadCountExpression, unreadCap, hrefOf } from './queries';
 export * as preferences from './preferences';
 export { PreferenceRefused, type EventPreference, type PreferenceChange, type PreferenceGroup } from './preferences';
 export * as schemas from './schemas';

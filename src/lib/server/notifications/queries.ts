@@ -1,4 +1,4 @@
-import { and, desc, eq, inArray, isNull, sql } from 'drizzle-orm';
+import { and, desc, eq, inArray, isNull, sql, type SQL } from 'drizzle-orm';
 import type { Executor } from '../db';
 import { notification, type NotificationEvent } from '../db/schema';
 import type { NotificationDto, NotificationPage } from '$lib/types/notifications';
@@ -37,6 +37,16 @@ function toDto(row: Row): NotificationDto<NotificationEvent> {
 		readAt: row.readAt?.toISOString() ?? null,
 		createdAt: row.createdAt.toISOString()
 	};
+}
+
+/**
+ * `unreadCount` as an expression, for a caller that reads it in the same statement as other header counts;
+ * `userId` may be a placeholder of a prepared statement.
+ */
+export function unreadCountExpression(userId: unknown): SQL<number> {
+	return sql<number>`(select count(*)::int from (
+		select 1 from ${notification} n where n.user_id = ${userId} and n.read_at is null limit ${sql.raw(String(unreadCap))}
+	) unread)`;
 }
 
 /** How many notices wait unread, counted up to `unreadCap` (one index-only scan of the unread index). */

@@ -1,4 +1,4 @@
-import { eq } from 'drizzle-orm';
+import { eq, sql } from 'drizzle-orm';
 import type Stripe from 'stripe';
 import * as audit from '../audit';
 import { publicOrigin } from '../auth/origin';
@@ -50,6 +50,9 @@ export async function stateOf(db: Executor, tailorId: string): Promise<PayoutSta
 export async function ready(db: Executor, tailorId: string): Promise<boolean> {
 	return (await stateOf(db, tailorId))?.status === 'enabled';
 }
+
+/** `ready` as a column of the tailor's workroom row, for a caller reading that row anyway. */
+export const readyColumn = sql<boolean>`(${tailorProfile.payoutStatus} = 'enabled')`;
 
 /** The connected account of a ready tailor (for transfers), or null when they cannot be paid yet. */
 export async function destinationOf(db: Executor, tailorId: string): Promise<string | null> {

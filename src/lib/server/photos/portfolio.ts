@@ -1,4 +1,4 @@
-import { and, asc, count, eq, inArray, max, sql } from 'drizzle-orm';
+import { and, asc, count, eq, inArray, max, sql, type SQL } from 'drizzle-orm';
 import { photoLimits, type PhotoView, type PortfolioItemView } from '$lib/types/photos';
 import * as audit from '../audit';
 import type { Executor } from '../db';
@@ -23,6 +23,16 @@ export async function photoCount(db: Executor, tailorId: string): Promise<number
 		.innerJoin(portfolioItem, eq(portfolioItem.id, portfolioPhoto.itemId))
 		.where(eq(portfolioItem.tailorId, tailorId));
 	return row?.photos ?? 0;
+}
+
+/**
+ * Whether the workroom holds a portfolio photo (all onboarding asks), as an expression for a caller that
+ * reads it in the same statement as the workroom row.
+ */
+export function hasPhotoExpression(tailorId: unknown): SQL<boolean> {
+	return sql<boolean>`exists (
+		select 1 from ${portfolioPhoto} p join ${portfolioItem} i on i.id = p.item_id where i.tailor_id = ${tailorId}
+	)`;
 }
 
 /** A workroom's portfolio, items and photos in their order. */

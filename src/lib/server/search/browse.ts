@@ -1,4 +1,3 @@
-import type { OwnWorkroom } from '$lib/types/workroom';
 import type { Executor } from '../db';
 import * as workrooms from '../workrooms';
 import { nearbyCommissions } from './nearby';
@@ -29,8 +28,8 @@ export async function browseForTailor(
 	}: {
 		tailorId: string;
 		query: NearbyCommissionsQuery;
-		/** The tailor's workroom when the caller has already read it (null: none yet); read here otherwise. */
-		workroom?: OwnWorkroom | null;
+		/** The tailor's workroom (its place and reach) when the caller has read it (null: none yet); read here otherwise. */
+		workroom?: Pick<workrooms.ListOrigin, 'location' | 'serviceRadiusKm'> | null;
 	}
 ) {
 	let origin: BrowseOrigin | null = null;
@@ -39,7 +38,7 @@ export async function browseForTailor(
 			? workroom
 			: query.near && query.radiusKm !== undefined
 				? null
-				: await workrooms.getOwn(db, { tailorId });
+				: await workrooms.listOrigin(db, { tailorId });
 	if (query.near) {
 		origin = {
 			near: query.near,

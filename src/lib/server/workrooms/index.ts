@@ -3,10 +3,12 @@ import type { GarmentId } from '$lib/drafting';
 import type { DirectoryEntry, OnboardingStatus, OwnWorkroom, PublicWorkroom, WorkroomRates } from '$lib/types/workroom';
 import * as audit from '../audit';
 import type { Executor } from '../db';
+import { preparedPer } from '../db/prepared';
 import { tailorProfile, user, type NewTailorProfile } from '../db/schema';
 import { cardColumns, listed, reviewsOf, toCards } from './cards';
 import { resolveLocation, type WorkroomPlace } from './location';
 import { statusOf, type OnboardingFacts } from './onboarding';
+import { readyColumn as payoutsReadyColumn } from '../payouts';
 import { portfolio } from '../photos';
 import { noteWorkroomChanged } from '../search-outbox';
 import type { WorkroomInput } from './schemas';
@@ -49,9 +51,17 @@ const selectOwn = (db: Executor, tailorId: string) =>
 	db.select(ownColumns).from(tailorProfile).where(eq(tailorProfile.userId, tailorId));
 type OwnRow = Awaited<ReturnType<typeof selectOwn>>[number];
 
+/** The unlocked read of `readRow`, prepared once (the workroom pages and the near-me list all start with it). */
+const ownStatement = preparedPer((db) =>
+	db
+		.select(ownColumns)
+		.from(tailorProfile)
+		.where(eq(tailorProfile.userId, sql.placeholder('tailorId')))
+		.prepare('workroom_own')
+);
+
 async function readRow(db: Executor, tailorId: string, { lock = false } = {}): Promise<OwnRow | null> {
-	const query = selectOwn(db, tailorId);
-	const [row] = await (lock ? query.for('update') : query);
+	const [row] = await (lock ? selectOwn(db, tailorId).for('update') : ownStatement(db).execute({ tailorId }));
 	return row ?? null;
 }
 
@@ -163,6 +173,41 @@ async function syncOnboarding(tx: Executor, tailorId: string, row: OwnRow | null
 	return { status, onboardedAt };
 }
 
+/** Where a tailor's near-me list starts from: the workroom's place and reach, and the currency it quotes in. */
+export type ListOrigin = Pick<OwnWorkroom, 'serviceRadiusKm'> & {
+	location: Pick<OwnWorkroom['location'], 'town' | 'lat' | 'lng'>;
+	/** The rates' currency, null while no rates are set. */
+	currency: string | null;
+};
+
+const originStatement = preparedPer((db) =>
+	db
+		.select({
+			town: tailorProfile.city,
+			lat: tailorProfile.lat,
+			lng: tailorProfile.lng,
+			serviceRadiusKm: tailorProfile.serviceRadiusKm,
+			hourlyRateMinor: tailorProfile.hourlyRateMinor,
+			rateCurrency: tailorProfile.rateCurrency
+		})
+		.from(tailorProfile)
+		.where(eq(tailorProfile.userId, sql.placeholder('tailorId')))
+		.prepare('workroom_list_origin')
+);
+
+/** The few columns of the tailor's workroom a near-me list needs (null before the first section is saved). */
+export async function listOrigin(db: Executor, { tailorId }: { tailorId: string }): Promise<ListOrigin | null> {
+	const [row] = await originStatement(db).execute({ tailorId });
+	if (!row) return null;
+	const { town, lat, lng, serviceRadiusKm, hourlyRateMinor, rateCurrency } = row;
+	return {
+		location: { town, lat, lng },
+		serviceRadiusKm,
+		// As `getOwn` has it: a currency only with a rate.
+		currency: hourlyRateMinor !== null && rateCurrency !== null ? rateCurrency : null
+	};
+}
+
 /** The tailor's own workroom, or null before the first section is saved. */
 export async function getOwn(db: Executor, { tailorId }: { tailorId: string }): Promise<OwnWorkroom | null> {
 	const row = await readRow(db, tailorId);
@@ -205,9 +250,45 @@ export async function save(
  * something outside this area changed it (the last portfolio photo removed, say): call it after such changes.
  */
 export async function onboardingStatus(db: Executor, { tailorId }: { tailorId: string }): Promise<OnboardingStatus> {
-	return db.transaction(
-		async (tx) => (await syncOnboarding(tx, tailorId, await readRow(tx, tailorId, { lock: true }))).status
-	);
+	return (await home(db, { tailorId })).onboarding;
+}
+
+const homeStatement = preparedPer((db) =>
+	db
+		.select({
+			...ownColumns,
+			// Qualified: Drizzle writes a one-table select's columns bare, and the subquery has tables of its own.
+			hasPortfolioPhoto: portfolio.hasPhotoExpression(sql`${tailorProfile}.${sql.identifier('user_id')}`),
+			payoutsReady: payoutsReadyColumn
+		})
+		.from(tailorProfile)
+		.where(eq(tailorProfile.userId, sql.placeholder('tailorId')))
+		.prepare('workroom_home')
+);
+
+/**
+ * What the workroom home shows about the tailor's own workroom, in one statement: the workroom (null before
+ * the first section is saved), its onboarding status and whether payouts are ready. Like `onboardingStatus`,
+ * it brings `onboarded_at` back in step when that has drifted (then, and only then, in a transaction).
+ */
+export async function home(
+	db: Executor,
+	{ tailorId }: { tailorId: string }
+): Promise<{ workroom: OwnWorkroom | null; onboarding: OnboardingStatus; payoutsReady: boolean }> {
+	const [found] = await homeStatement(db).execute({ tailorId });
+	if (!found) return { workroom: null, onboarding: statusOf(null, 0), payoutsReady: false };
+	const { hasPortfolioPhoto, payoutsReady, ...row } = found;
+	let onboarding = statusOf(factsOf(row), hasPortfolioPhoto ? 1 : 0);
+	let workroom: OwnWorkroom | null = toOwn(row);
+	if (onboarding.complete !== (row.onboardedAt !== null)) {
+		const synced = await db.transaction(async (tx) => {
+			const locked = await readRow(tx, tailorId, { lock: true });
+			return { row: locked, ...(await syncOnboarding(tx, tailorId, locked)) };
+		});
+		onboarding = synced.status;
+		workroom = synced.row && toOwn({ ...synced.row, onboardedAt: synced.onboardedAt });
+	}
+	return { workroom, onboarding, payoutsReady };
 }
 
 /** Whether the tailor may send quotes: every onboarding step done. */

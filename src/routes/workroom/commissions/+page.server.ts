@@ -14,8 +14,8 @@ type Issue = { path: string; message: string };
  */
 export const load: PageServerLoad = async ({ locals, url }) => {
 	const user = requireRole('tailor');
-	const own = await workrooms.getOwn(locals.db, { tailorId: user.id });
-	const currency = own?.rates?.currency ?? 'EUR';
+	const own = await workrooms.listOrigin(locals.db, { tailorId: user.id });
+	const currency = own?.currency ?? 'EUR';
 	const exponent = minorUnitExponent(currency);
 	const filters = Object.fromEntries(
 		filterNames.map((name) => [name, (url.searchParams.get(name) ?? '').slice(0, 200)])
