@@ -1,19 +1,9 @@
-import {
-	draftGarmentMm,
-	fabricWidthPresets,
-	formatForInput,
-	getTemplate,
-	metricDefaultMm,
-	parseLength,
-	parseLengths,
-	retypeLengths,
-	toMm,
-	type DraftResponse,
-	type GarmentId,
-	type MeasurementCode,
-	type Measurements,
-	type Unit
-} from '$lib/drafting';
+import type { DraftResponse, GarmentId, MeasurementCode, Measurements, Unit } from '$lib/drafting';
+import { draftGarmentMm } from '$lib/drafting/draft';
+import { fabricWidthPresets } from '$lib/drafting/fabric';
+import { metricDefaultMm } from '$lib/drafting/options';
+import { getTemplate } from '$lib/drafting/templates';
+import { formatForInput, parseLength, parseLengths, retypeLengths, toMm } from '$lib/drafting/units';
 
 type Texts = Record<string, string>;
 
