@@ -42,14 +42,15 @@ const details = argv.includes('--details');
 
 const environment = await startBenchEnvironment();
 const commissionPath = await demoCommissionPath(environment.databaseUrl);
-const pages: Page[] = [
+const allPages: Page[] = [
 	{ name: 'home', path: '/' },
 	{ name: 'how it works', path: '/how-it-works' },
 	{ name: 'draft calculator', path: '/draft-calculator' },
 	{ name: 'commissions (customer)', path: '/commissions', as: 'customer' },
 	...(commissionPath ? [{ name: 'a commission (customer)', path: commissionPath, as: 'customer' as const }] : []),
 	{ name: 'workroom (tailor)', path: '/workroom', as: 'tailor' }
-].filter((page) => !only || only.test(page.name));
+];
+const pages = allPages.filter((page) => !only || only.test(page.name));
 const chrome = await chromeLauncher.launch({
 	chromePath: chromiumPath,
 	chromeFlags: ['--headless=new', ...chromiumFlags]
