@@ -33,9 +33,16 @@ async function demoCommissionPath(databaseUrl: string) {
 
 type Audit = { numericValue?: number; details?: { items?: { resourceType?: string; transferSize?: number }[] } };
 
+// `--only REGEX` measures only the pages whose name matches; `--details` also lists what shifted the layout and
+// which scripts took the main thread's time, to find what a score is lost on.
+const argv = process.argv.slice(2);
+const onlyAt = argv.indexOf('--only');
+const only = onlyAt >= 0 && argv[onlyAt + 1] ? new RegExp(argv[onlyAt + 1], 'i') : null;
+const details = argv.includes('--details');
+
 const environment = await startBenchEnvironment();
 const commissionPath = await demoCommissionPath(environment.databaseUrl);
-const pages: Page[] = [
+const allPages: Page[] = [
 	{ name: 'home', path: '/' },
 	{ name: 'how it works', path: '/how-it-works' },
 	{ name: 'draft calculator', path: '/draft-calculator' },
@@ -43,6 +50,7 @@ const pages: Page[] = [
 	...(commissionPath ? [{ name: 'a commission (customer)', path: commissionPath, as: 'customer' as const }] : []),
 	{ name: 'workroom (tailor)', path: '/workroom', as: 'tailor' }
 ];
+const pages = allPages.filter((page) => !only || only.test(page.name));
 const chrome = await chromeLauncher.launch({
 	chromePath: chromiumPath,
 	chromeFlags: ['--headless=new', ...chromiumFlags]
@@ -84,6 +92,10 @@ try {
 			if (weighs && audit.score !== null && audit.score < 0.9 && !id.includes('paint') && id !== 'total-blocking-time')
 				log(`  ${page.name}: ${id} — ${audit.title}${audit.displayValue ? ` (${audit.displayValue})` : ''}`);
 			if (id === 'inspector-issues' && audit.score === 0) log(`    ${JSON.stringify(audit.details).slice(0, 600)}`);
+			if (details && ['layout-shifts', 'bootup-time', 'long-tasks', 'mainthread-work-breakdown'].includes(id))
+				log(
+					`    ${id}: ${JSON.stringify(audit.details ?? audit.errorMessage ?? audit.scoreDisplayMode).slice(0, 1500)}`
+				);
 		}
 	}
 	console.log(`\nTackline pages under Lighthouse (mobile, Node ${process.version})\n`);

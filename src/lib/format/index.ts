@@ -1,4 +1,5 @@
-import { garments } from '../drafting/templates/index';
+// The names alone: the templates would bring every garment's drafting code into each page that names one.
+import { garmentNames, isGarmentId } from '../drafting/garment-names';
 import { utcOffset } from './time-zones';
 
 const dateFormat = new Intl.DateTimeFormat('en-GB', {
@@ -27,7 +28,7 @@ export function formatDateTime(at: Date, timeZone: string) {
 }
 
 export function garmentName(id: string) {
-	return garments.find((g) => g.id === id)?.name ?? id.replace(/[_-]+/g, ' ');
+	return isGarmentId(id) ? garmentNames[id] : id.replace(/[_-]+/g, ' ');
 }
 
 export { formatMoney, formatMoneyRange } from './money';

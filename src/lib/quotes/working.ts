@@ -3,7 +3,8 @@
  * tailor edits a figure): fabric metres × price per metre, the workroom's mark-up on fabric it sources,
  * labour hours × hourly rate, and the total. Integer minor units throughout, through `estimateQuote`.
  */
-import { estimateQuote, minorUnitExponent, type QuoteLine } from '$lib/drafting';
+import type { QuoteLine } from '$lib/drafting';
+import { estimateQuote, minorUnitExponent } from '$lib/drafting/quote';
 
 export type WorkingInput = {
 	currency: string;

@@ -1,4 +1,6 @@
-import { formatForInput, garmentIds, measurementCodes, type Measurements, type Unit } from '$lib/drafting';
+import type { Measurements, Unit } from '$lib/drafting';
+import { garmentIds, measurementCodes } from '$lib/drafting/measurements';
+import { formatForInput } from '$lib/drafting/units';
 import type { ProfileFormValues } from '$lib/types/measurements';
 
 export function storedValues(profile: {

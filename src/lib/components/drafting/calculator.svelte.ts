@@ -1,21 +1,34 @@
-import {
-	draftGarmentMm,
-	fabricWidthPresets,
-	formatForInput,
-	getTemplate,
-	metricDefaultMm,
-	parseLength,
-	parseLengths,
-	retypeLengths,
-	toMm,
-	type DraftResponse,
-	type GarmentId,
-	type MeasurementCode,
-	type Measurements,
-	type Unit
-} from '$lib/drafting';
+import type { DraftResponse, GarmentId, MeasurementCode, Measurements, Unit } from '$lib/drafting';
+import type { draftGarmentMm } from '$lib/drafting/draft';
+import { fabricWidthPresets } from '$lib/drafting/fabric';
+import { metricDefaultMm } from '$lib/drafting/options';
+import { getTemplate } from '$lib/drafting/templates';
+import { formatForInput, parseLength, parseLengths, retypeLengths, toMm } from '$lib/drafting/units';
 
 type Texts = Record<string, string>;
+type Drafter = typeof draftGarmentMm;
+
+/**
+ * The drafting code (templates' geometry, checks, schemas, nesting) is most of the page's script; it is loaded
+ * apart (`load()`) so the page shows and hydrates without waiting for it. Until it arrives there is no draft
+ * and nothing to report: what a draft of an empty form shows, before anything is typed.
+ */
+function notYetDrafted(garment: GarmentId, unit: Unit, name: string): DraftResponse {
+	return {
+		garment,
+		name,
+		unit,
+		method: '',
+		pieces: [],
+		fabric: null,
+		sizeBand: null,
+		allowances: [],
+		notes: [],
+		cautions: [],
+		warnings: [],
+		errors: []
+	};
+}
 
 /** Worked examples: the dressmaker's method in inches for templates 1 and 2, the 88-72-96 body in cm otherwise. */
 const examples: Record<GarmentId, { unit: Unit; measurements: Texts; options?: Texts }> = {
@@ -113,7 +126,13 @@ export class DraftCalculator {
 		return defaults;
 	});
 
+	/** The drafting function, once `load()` has brought it in. */
+	drafter = $state.raw<Drafter | null>(null);
+	#loading: Promise<void> | null = null;
+
 	result: DraftResponse = $derived.by(() => {
+		const draftGarmentMm = this.drafter;
+		if (!draftGarmentMm) return notYetDrafted(this.garment, this.unit, this.template.name);
 		const bodyMm: Measurements = {};
 		for (const code of this.fields) {
 			const value = this.measurements.mm[code];
@@ -151,6 +170,20 @@ export class DraftCalculator {
 	constructor(garment?: GarmentId, unit?: Unit) {
 		if (garment) this.garment = garment;
 		if (unit) this.unit = unit;
+	}
+
+	/** Bring in the drafting code; the draft follows what is typed from then on. Safe to call more than once. */
+	load() {
+		this.#loading ??= import('$lib/drafting/draft').then(
+			(drafting) => {
+				this.drafter = drafting.draftGarmentMm;
+			},
+			(error: unknown) => {
+				this.#loading = null; // a later call tries again
+				throw error;
+			}
+		);
+		return this.#loading;
 	}
 
 	/** Switch units, rewriting every readable entry in the new unit so nothing changes size. */

@@ -1,4 +1,5 @@
-import { fromMm, type DraftRequest } from '$lib/drafting';
+import type { DraftRequest } from '$lib/drafting';
+import { fromMm } from '$lib/drafting/units';
 import type { DraftCalculator } from './calculator.svelte';
 
 /** What the calculator shows, as the draft API's request in the calculator's unit. */

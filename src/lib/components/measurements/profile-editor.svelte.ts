@@ -1,12 +1,6 @@
-import {
-	checkMeasurements,
-	formatForInput,
-	parseLengths,
-	retypeLengths,
-	type MeasurementCode,
-	type Measurements,
-	type Unit
-} from '$lib/drafting';
+import type { MeasurementCode, Measurements, Unit } from '$lib/drafting';
+import { checkMeasurements } from '$lib/drafting/checks';
+import { formatForInput, parseLengths, retypeLengths } from '$lib/drafting/units';
 
 /** The measurement half of the profile form: what is typed, read in the chosen unit, checked as it is typed. */
 export class ProfileEditor {

@@ -1,15 +1,8 @@
 import { garmentName } from '$lib/format';
 import type { MissingStep, OnboardingStep } from '$lib/types/workroom';
+import { setupSections, type SetupSection } from './sections';
 
-/** The setup pages, in order; each covers one or more onboarding steps. */
-export const setupSections = [
-	{ id: 'workroom', label: 'Name and place', steps: ['name', 'location', 'capacity'] },
-	{ id: 'about', label: 'About your workroom', steps: ['bio'] },
-	{ id: 'garments', label: 'Garments and lead times', steps: ['specialties', 'lead_times'] },
-	{ id: 'rates', label: 'Rates', steps: ['rates'] }
-] as const satisfies readonly { id: string; label: string; steps: readonly OnboardingStep[] }[];
-
-export type SetupSection = (typeof setupSections)[number]['id'];
+export { setupSections, type SetupSection } from './sections';
 
 export const portfolioPath = '/workroom/portfolio';
 
