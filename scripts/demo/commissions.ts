@@ -205,7 +205,8 @@ const demoCommissionList: DemoCommission[] = [
 		district: 'oldQuay',
 		garmentType: 'shift-dress',
 		title: 'Linen shift dress with pockets',
-		styleNotes: 'Round neck, cap sleeves, side-seam pockets and a hem just above the knee. Unlined, seams bound inside.',
+		styleNotes:
+			'Round neck, cap sleeves, side-seam pockets and a hem just above the knee. Unlined, seams bound inside.',
 		fabricSource: 'tailor_sources',
 		fabricNotes: 'Washed linen in a soft ochre or terracotta.',
 		budget: [16000, 22000],
@@ -220,7 +221,8 @@ const demoCommissionList: DemoCommission[] = [
 		district: 'oldQuay',
 		garmentType: 'wide-leg-trousers',
 		title: 'Charcoal wool trousers for the office',
-		styleNotes: 'High waist, one pleat each side, slant pockets and a hook-and-bar waistband. Full length with a plain hem.',
+		styleNotes:
+			'High waist, one pleat each side, slant pockets and a hook-and-bar waistband. Full length with a plain hem.',
 		fabricSource: 'tailor_sources',
 		fabricNotes: 'Charcoal worsted, not too heavy.',
 		budget: [15000, 21000],

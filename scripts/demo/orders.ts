@@ -14,6 +14,7 @@ import { DateTime } from 'luxon';
 import { StripeStandinController, TEST_CARDS } from '../../docker/standins/stripe-controller';
 import type { Database } from '../../src/lib/server/db/client';
 import { quote, type NewQuote } from '../../src/lib/server/db/schema';
+import { openThread } from '../../src/lib/server/messages/threads';
 import { currency, timeZone } from './city';
 import { demoId } from './ids';
 import { personId } from './people';
@@ -42,7 +43,13 @@ type DemoOrder = {
 	/** Fitting times offered (days ahead, wall-clock in the workroom's zone); `book` books the first one. */
 	fittings?: { days: number; time: string }[];
 	book?: boolean;
+	/** Where and when to collect it, as the tailor writes it when marking the order delivered. */
+	pickupNote?: string;
+	/** Sent by courier instead, with this tracking reference. */
+	courier?: string;
 };
+
+const atObi = 'Obi Cut & Stitch, 4 Harbour Steps, Old Quay — Tuesday to Saturday, 10:00 to 18:00. Ring the top bell.';
 
 const customer = 'customer@tackline.test';
 const tailor = 'tailor@tackline.test';
@@ -119,6 +126,7 @@ const demoOrders: DemoOrder[] = [
 		fittingsIncluded: 1,
 		fabricIncluded: false,
 		message: 'For the making, in the twill you bring. Patch pockets topstitched in a matching thread.',
+		pickupNote: atObi,
 		progress: [
 			{ step: 'pattern_drafted', note: 'Drafted a straight skirt block from your measurements.' },
 			{ step: 'sewing', note: 'Zip set by hand; pockets topstitched twice.' }
@@ -135,6 +143,7 @@ const demoOrders: DemoOrder[] = [
 		fittingsIncluded: 1,
 		fabricIncluded: true,
 		message: 'A cream cotton-linen that does not show through; one fitting for the length.',
+		pickupNote: atObi,
 		progress: [
 			{ step: 'fabric_sourced', note: 'Cream cotton-linen, washed twice so it will not shrink on you.' },
 			{ step: 'cutting', note: 'Cut; the elastic back is a 3 cm soft waistband elastic.' },
@@ -165,6 +174,7 @@ const demoOrders: DemoOrder[] = [
 		fittingsIncluded: 2,
 		fabricIncluded: true,
 		message: 'A dusty-blue crepe, tried first in calico. Lined in cotton lawn so it breathes in a warm church.',
+		courier: 'MGP 4471 2093 KX',
 		progress: [
 			{ step: 'fabric_sourced', note: 'Dusty-blue crepe and cotton lawn lining.' },
 			{ step: 'pattern_drafted', note: 'Bodice darts placed from the calico fitting.' },
@@ -264,7 +274,9 @@ async function takeThrough(db: Database, d: Domain, o: DemoOrder, standin: Strip
 		await d.orders.markDelivered(db, {
 			orderId,
 			actor: maker,
-			input: { method: 'pickup', note: 'Collected at the workroom, pressed and on a hanger.' }
+			input: o.courier
+				? { method: 'courier', trackingReference: o.courier, note: 'Merrowgate Parcel Post, signed for.' }
+				: { method: 'pickup', note: o.pickupNote ?? '' }
 		});
 	if (reached(o.stage, 'released')) {
 		await d.orders.confirmDelivery(db, { orderId, actor: buyer });
@@ -280,7 +292,10 @@ function standinController(): StripeStandinController | null {
 
 /** Makes each demo order whose commission has none yet. Returns how many were made. */
 export async function seedDemoOrders(db: Database, now: Date): Promise<number> {
-	await db.insert(quote).values(demoOrderQuotes(now)).onConflictDoNothing();
+	const quotes = demoOrderQuotes(now);
+	await db.insert(quote).values(quotes).onConflictDoNothing();
+	// Sending a quote opens the conversation between the two; the order page links to it.
+	for (const q of quotes) await openThread(db, { commissionId: q.commissionId, tailorId: q.tailorId });
 	const d = await domain();
 	const waiting: DemoOrder[] = [];
 	for (const o of demoOrders) {

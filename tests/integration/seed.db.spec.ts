@@ -107,7 +107,12 @@ describe('demo orders', () => {
 		const fittings = await db
 			.select({ status: fitting.status })
 			.from(fitting)
-			.where(inArray(fitting.orderId, theirs.map((o) => o.id)));
+			.where(
+				inArray(
+					fitting.orderId,
+					theirs.map((o) => o.id)
+				)
+			);
 		expect(fittings.map((f) => f.status).sort()).toEqual(['confirmed', 'proposed', 'proposed', 'proposed']);
 		const notices = await db
 			.select({ n: sql<number>`count(*)::int` })

@@ -30,5 +30,5 @@ export function garmentName(id: string) {
 	return garments.find((g) => g.id === id)?.name ?? id.replace(/[_-]+/g, ' ');
 }
 
-export { formatMoney, formatMoneyRange } from './money';
+export { formatMoney, formatMoneyAmong, formatMoneyRange } from './money';
 export { formatSizeBand, type SizeBandRange } from './size-band';

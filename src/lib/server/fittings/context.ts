@@ -50,8 +50,7 @@ export async function orderFor(db: Executor, orderId: string, actor: Actor) {
 export async function orderForReader(db: Executor, orderId: string, actor: Actor) {
 	const order = await orders.getForViewer(db, { viewer: actor, orderId });
 	if (!order) throw noSuchOrder();
-	const side: Reader =
-		order.customerId === actor.id ? 'customer' : order.tailorId === actor.id ? 'tailor' : 'admin';
+	const side: Reader = order.customerId === actor.id ? 'customer' : order.tailorId === actor.id ? 'tailor' : 'admin';
 	return { order, side };
 }
 

@@ -83,7 +83,13 @@ async function viewpointOf(db: Executor, ctx: OrderContext, side: Reader, actor:
 	return { side, me: await readerPerson(db, actor.id), other: ctx.customer };
 }
 
-function view(row: Fitting, ctx: OrderContext, { side, me, other }: Viewpoint, now: Date, cutoffHours: number): FittingView {
+function view(
+	row: Fitting,
+	ctx: OrderContext,
+	{ side, me, other }: Viewpoint,
+	now: Date,
+	cutoffHours: number
+): FittingView {
 	const until = changeableUntil(row.startsAt, cutoffHours);
 	const beforeCutoff = now < until;
 	const active = fittingStatuses.has(ctx.order.status);
