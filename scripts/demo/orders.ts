@@ -204,14 +204,15 @@ export function demoOrderQuotes(now: Date): NewQuote[] {
 async function domain() {
 	// Under Vitest, Vite already resolves them.
 	if (!process.env.VITEST) await import('../lib/kit-modules');
-	const [quotes, orders, payments, fittings, runner] = await Promise.all([
+	const [quotes, orders, payments, fittings, notifications, runner] = await Promise.all([
 		import('../../src/lib/server/quotes'),
 		import('../../src/lib/server/orders'),
 		import('../../src/lib/server/payments'),
 		import('../../src/lib/server/fittings'),
+		import('../../src/lib/server/notifications'),
 		import('../../src/lib/server/jobs/runner')
 	]);
-	return { quotes, orders, payments, fittings, runner };
+	return { quotes, orders, payments, fittings, notifications, runner };
 }
 
 type Domain = Awaited<ReturnType<typeof domain>>;
@@ -285,6 +286,26 @@ async function takeThrough(db: Database, d: Domain, o: DemoOrder, standin: Strip
 	}
 }
 
+/**
+ * Someone coming back to the demo has read what came before: of the notices about each page, only the newest
+ * stays unread (marked read as the notifications page does), so the bell counts what is new, not the whole week.
+ */
+async function leaveNewestUnread(db: Database, d: Domain, userId: string) {
+	const seen = new Set<string>();
+	const older: string[] = [];
+	let cursor: string | undefined;
+	do {
+		const page = await d.notifications.list(db, { userId, cursor, limit: 100 });
+		for (const notice of page.items) {
+			if (notice.read) continue;
+			if (seen.has(notice.href)) older.push(notice.id);
+			else seen.add(notice.href);
+		}
+		cursor = page.nextCursor ?? undefined;
+	} while (cursor);
+	await d.notifications.markRead(db, { userId, ids: older });
+}
+
 function standinController(): StripeStandinController | null {
 	const url = process.env.STRIPE_STANDIN_URL;
 	return url && process.env.STRIPE_API_HOST ? new StripeStandinController(url) : null;
@@ -315,6 +336,8 @@ export async function seedDemoOrders(db: Database, now: Date): Promise<number> {
 		if (!d.runner.jobsRunning()) throw new Error('The job queue could not be started for the demo orders');
 		const standin = standinController();
 		for (const o of waiting) await takeThrough(db, d, o, standin);
+		const people = new Set(waiting.flatMap((o) => [personId(o.customer), personId(o.tailor)]));
+		for (const userId of people) await leaveNewestUnread(db, d, userId);
 	} finally {
 		await d.runner.stopJobs();
 	}
