@@ -47,6 +47,8 @@ type DemoOrder = {
 	pickupNote?: string;
 	/** Sent by courier instead, with this tracking reference. */
 	courier?: string;
+	/** A few messages on the order's conversation, oldest first; the last one waits unread for the other person. */
+	chat?: { from: 'customer' | 'tailor'; body: string }[];
 };
 
 const atObi = 'Obi Cut & Stitch, 4 Harbour Steps, Old Quay — Tuesday to Saturday, 10:00 to 18:00. Ring the top bell.';
@@ -88,6 +90,13 @@ const demoOrders: DemoOrder[] = [
 		fittings: [
 			{ days: 5, time: '10:00' },
 			{ days: 6, time: '17:30' }
+		],
+		chat: [
+			{
+				from: 'tailor',
+				body: 'The linen is cut. I have offered two fitting times; the bodice will be tacked, so wear a thin top.'
+			},
+			{ from: 'customer', body: 'Lovely, thank you. I will book once I know my shifts for next week.' }
 		]
 	},
 	{
@@ -113,7 +122,11 @@ const demoOrders: DemoOrder[] = [
 			{ days: 3, time: '11:00' },
 			{ days: 4, time: '18:00' }
 		],
-		book: true
+		book: true,
+		chat: [
+			{ from: 'customer', body: 'I have booked Saturday morning. Should I bring the loafers or the boots?' },
+			{ from: 'tailor', body: 'The loafers, please: they are what you will wear most with these. See you on Saturday.' }
+		]
 	},
 	{
 		commission: 14,
@@ -127,6 +140,9 @@ const demoOrders: DemoOrder[] = [
 		fabricIncluded: false,
 		message: 'For the making, in the twill you bring. Patch pockets topstitched in a matching thread.',
 		pickupNote: atObi,
+		chat: [
+			{ from: 'tailor', body: 'It is ready on the rail by the door. Try it on at home and tell me how the waist sits.' }
+		],
 		progress: [
 			{ step: 'pattern_drafted', note: 'Drafted a straight skirt block from your measurements.' },
 			{ step: 'sewing', note: 'Zip set by hand; pockets topstitched twice.' }
@@ -212,7 +228,8 @@ async function domain() {
 		import('../../src/lib/server/notifications'),
 		import('../../src/lib/server/jobs/runner')
 	]);
-	return { quotes, orders, payments, fittings, notifications, runner };
+	const messages = await import('../../src/lib/server/messages');
+	return { quotes, orders, payments, fittings, notifications, messages, runner };
 }
 
 type Domain = Awaited<ReturnType<typeof domain>>;
@@ -270,6 +287,7 @@ async function takeThrough(db: Database, d: Domain, o: DemoOrder, standin: Strip
 		});
 		if (o.book) await d.fittings.book(db, { fittingId: offered[0].id, actor: buyer });
 	}
+	await converse(db, d, o, { customer: buyer, tailor: maker });
 	if (reached(o.stage, 'ready')) await d.orders.markReady(db, { orderId, actor: maker });
 	if (reached(o.stage, 'delivered'))
 		await d.orders.markDelivered(db, {
@@ -304,6 +322,18 @@ async function leaveNewestUnread(db: Database, d: Domain, userId: string) {
 		cursor = page.nextCursor ?? undefined;
 	} while (cursor);
 	await d.notifications.markRead(db, { userId, ids: older });
+}
+
+/** Posts the order's messages as the two people would, and has each read what came before their own last word. */
+async function converse(db: Database, d: Domain, o: DemoOrder, people: Record<'customer' | 'tailor', Actor>) {
+	if (!o.chat?.length) return;
+	const threadId = await d.messages.threadIdFor(db, {
+		commissionId: demoId('commission', o.commission),
+		tailorId: people.tailor.id
+	});
+	if (!threadId) return;
+	for (const line of o.chat) await d.messages.post(db, { threadId, actor: people[line.from], body: line.body });
+	await d.messages.markRead(db, { threadId, viewer: people[o.chat[o.chat.length - 1].from] });
 }
 
 function standinController(): StripeStandinController | null {
