@@ -59,12 +59,14 @@ export function readerPerson(db: Executor, id: string): Promise<Person> {
 	return person(db, id);
 }
 
+/**
+ * The order's two people and its workroom. One read after another: inside a transaction `db` is a single
+ * connection, which must not be handed several queries at once (pg deprecates it, and pg 9 refuses it).
+ */
 export async function contextOf(db: Executor, order: OrderSummary): Promise<OrderContext> {
-	const [customer, tailor, workroom] = await Promise.all([
-		person(db, order.customerId),
-		person(db, order.tailorId),
-		workrooms.getOwn(db, { tailorId: order.tailorId })
-	]);
+	const customer = await person(db, order.customerId);
+	const tailor = await person(db, order.tailorId);
+	const workroom = await workrooms.getOwn(db, { tailorId: order.tailorId });
 	return {
 		order,
 		customer,
