@@ -52,6 +52,8 @@ const standins = await startStandins(
 );
 // The seed stores demo photos in the S3 stand-in, so it runs once the stand-ins are up.
 Object.assign(process.env, standins.env);
+// The demo orders' payment pages and notices link back to the app.
+process.env.ORIGIN = origin;
 await migrateAndSeed(database.url, { seed: true });
 if (!dev) await buildIfNeeded({ devTools });
 

@@ -15,6 +15,7 @@ import { demoCommissionMeasurements, demoCommissions } from './commissions';
 import { seedDemoPhotos, storageConfigured } from './images';
 import { demoMeasurementProfiles } from './measurements';
 import { seedDemoMessages } from './messages';
+import { seedDemoOrders } from './orders';
 import { adminEmail, demoPassword, demoUsers } from './people';
 import { seedDemoPayouts } from './payouts';
 import { demoPlaces } from './places';
@@ -94,5 +95,7 @@ export async function seedDemo(db: Database): Promise<SeedResult> {
 			demoTailorProfiles(now).map((t) => ({ userId: t.userId, specialties: t.specialties ?? [] }))
 		);
 	}
+	// Last: the orders go through the product's own functions, which need the workrooms' payouts set up.
+	await seedDemoOrders(db, now);
 	return marker ? 'already-seeded' : 'seeded';
 }

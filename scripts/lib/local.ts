@@ -58,9 +58,18 @@ export async function migrateAndSeed(url: string, options: { seed: boolean }) {
 		await migrate(db, { migrationsFolder: join(root, 'drizzle') });
 		log(`Migrations applied (${Math.round(performance.now() - started)} ms)`);
 		if (options.seed) {
-			const { seedDemo } = await import('../demo/seed-demo');
-			const result = await seedDemo(db);
-			log(result === 'already-seeded' ? 'Demo data already present' : 'Demo data seeded');
+			// The seed takes its demo orders through the app's own functions, whose job queue reads DATABASE_URL;
+			// it is put back afterwards, so nothing started later inherits this database by accident.
+			const previous = process.env.DATABASE_URL;
+			process.env.DATABASE_URL = url;
+			try {
+				const { seedDemo } = await import('../demo/seed-demo');
+				const result = await seedDemo(db);
+				log(result === 'already-seeded' ? 'Demo data already present' : 'Demo data seeded');
+			} finally {
+				if (previous === undefined) delete process.env.DATABASE_URL;
+				else process.env.DATABASE_URL = previous;
+			}
 		}
 	} finally {
 		await pool.end();

@@ -121,7 +121,10 @@ describe('GET /api/v1/admin/escrow', () => {
 	it('answers the totals per currency in the documented shape, and the processor agrees with the seeded books', async () => {
 		const body = await escrow();
 		expect(body.processorAvailable).toBe(true);
+		// The demo seed's orders were paid in euros through the processor, so there is money to reconcile.
 		expect(body.currencies.length).toBeGreaterThan(0);
+		expect(eur(body).heldMinor).toBeGreaterThan(0);
+		expect(eur(body).releasedMinor).toBeGreaterThan(0);
 		for (const row of body.currencies) {
 			expect(Object.keys(row).sort()).toEqual(
 				[
@@ -197,6 +200,18 @@ describe('GET /api/v1/admin/escrow', () => {
 });
 
 describe('the desk page', () => {
+	it('gives a card only to currencies with money in them', async () => {
+		const body = await escrow();
+		const html = await (await admin.get('/desk/escrow')).text();
+		const cards = [...html.matchAll(/id="currency-([A-Z]{3})"/g)].map((m) => m[1]);
+		expect(cards).toContain('EUR');
+		const withMoney = body.currencies
+			.filter((c) => c.heldMinor || c.releasedMinor || c.refundedMinor || c.feesMinor || c.processorBalanceMinor)
+			.map((c) => c.currency);
+		expect(cards.sort()).toEqual(withMoney.sort());
+		expect(html).not.toContain('No money yet');
+	});
+
 	it('lists an order whose processor payment the ledger never recorded, and money stuck for over an hour', async () => {
 		const { orderId: unrecorded } = await paidOrder(20_000);
 		await db.insert(payment).values({

@@ -6,7 +6,7 @@
 import { eq } from 'drizzle-orm';
 import { DateTime } from 'luxon';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
-import { fitting } from '../../src/lib/server/db/schema';
+import { fitting, user } from '../../src/lib/server/db/schema';
 import { sendDueReminders } from '../../src/lib/server/fittings';
 import { createFundedOrder, type FundedOrder } from '../factories/fittings';
 import { createUser } from '../factories';
@@ -215,5 +215,38 @@ describe('input', () => {
 		});
 		expect(offered.status).toBe(200);
 		expect(await offered.text()).toContain('The time was offered');
+	});
+});
+
+describe('an administrator', () => {
+	it('reads the fittings, in their own zone, and changes nothing', async () => {
+		const [open] = await offerTimes([londonStart(14, '09:30')]);
+		const person = await createUser(db, { role: 'admin' });
+		await db.update(user).set({ timeZone: 'Asia/Tokyo' }).where(eq(user.id, person.id));
+		const admin = await signedIn(person);
+
+		const listed = await callJson(admin, 'GET', `/api/v1/orders/${o.orderId}/fittings`);
+		expect(listed.status).toBe(200);
+		const seen = listed.body.items.find((f: { id: string }) => f.id === open.id);
+		expect(seen.when[0]).toMatch(/\(Asia\/Tokyo\)$/);
+		expect(seen.when.slice(1).join(' ')).toContain('Europe/London');
+		expect(seen.when.slice(1).join(' ')).toContain('America/New York');
+
+		const page = await admin.get(`/orders/${o.orderId}/fittings`);
+		expect(page.status).toBe(200);
+		const html = await page.text();
+		expect(html).toContain('You are reading as an administrator');
+		expect(html).not.toContain('Book this time');
+		expect(html).not.toContain('Offer fitting times');
+		expect(html).not.toContain('Withdraw this time');
+
+		const book = await callJson(admin, 'POST', `/api/v1/fittings/${open.id}/book`);
+		expect(book.status).toBe(403);
+		const [row] = await db.select({ status: fitting.status }).from(fitting).where(eq(fitting.id, open.id));
+		expect(row.status).toBe('proposed');
+
+		const order = await admin.get(`/orders/${o.orderId}`);
+		expect(order.status).toBe(200);
+		expect(await order.text()).toContain(`/orders/${o.orderId}/fittings`);
 	});
 });

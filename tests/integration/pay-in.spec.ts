@@ -203,9 +203,12 @@ describe('paying with a card that works', () => {
 		const receipt = await waitForMail(world.customer.email);
 		expect(receipt.subject).toMatch(/^Payment received for/);
 		expect(receipt.text).toContain('€482.50');
+		// Both notices lead to the order page, where the payment, the progress and the fittings are.
+		expect(receipt.text).toContain(`/orders/${world.orderId}`);
 		const startNow = await waitForMail(world.tailor.email);
 		expect(startNow.subject).toMatch(/is paid — you can start$/);
 		expect(startNow.text).toContain('€434.25');
+		expect(startNow.text).toContain(`/orders/${world.orderId}`);
 	});
 
 	it('refuses a new checkout for a paid order', async () => {

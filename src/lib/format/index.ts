@@ -31,5 +31,5 @@ export function garmentName(id: string) {
 	return isGarmentId(id) ? garmentNames[id] : id.replace(/[_-]+/g, ' ');
 }
 
-export { formatMoney, formatMoneyRange } from './money';
+export { formatMoney, formatMoneyAmong, formatMoneyRange } from './money';
 export { formatSizeBand, type SizeBandRange } from './size-band';

@@ -39,6 +39,15 @@ export function formatMoney(amountMinor: number, currency: string, locale = 'en'
 	return formatter.format(toDecimal(amountMinor, exponent) as Exact);
 }
 
+/**
+ * One amount written alike with the others shown beside it (a column of figures): whole units only when every
+ * one of them is whole, so "€192" never sits above "€19.20".
+ */
+export function formatMoneyAmong(amountMinor: number, amountsShownMinor: number[], currency: string, locale = 'en') {
+	const { formatter, exponent } = formatterFor([amountMinor, ...amountsShownMinor], currency, locale);
+	return formatter.format(toDecimal(amountMinor, exponent) as Exact);
+}
+
 /** Ranges written so far, by locale, currency and both ends. */
 const rangesWritten = new Map<string, string>();
 

@@ -6,5 +6,6 @@ export type FittingsSummary = {
 	openCount: number;
 	/** Whether fittings can be offered and booked on the order now. */
 	active: boolean;
-	side: 'customer' | 'tailor';
+	/** `admin`: an administrator reading the order (they change nothing). */
+	side: 'customer' | 'tailor' | 'admin';
 };

@@ -14,6 +14,9 @@ export type Actor = { id: string; role: 'customer' | 'tailor' | 'admin'; ip?: st
 
 export type Side = 'customer' | 'tailor';
 
+/** Who reads an order's fittings: one of its two people, or an admin (read-only, e.g. settling a dispute). */
+export type Reader = Side | 'admin';
+
 export type Person = { id: string; name: string | null; timeZone: string };
 
 /** An order with both people and the workroom, as fitting changes and their notices need them. */
@@ -43,12 +46,27 @@ export async function orderFor(db: Executor, orderId: string, actor: Actor) {
 	return { order, side };
 }
 
+/** The order for reading its fittings: its two people, and admins read-only; anyone else finds no order. */
+export async function orderForReader(db: Executor, orderId: string, actor: Actor) {
+	const order = await orders.getForViewer(db, { viewer: actor, orderId });
+	if (!order) throw noSuchOrder();
+	const side: Reader = order.customerId === actor.id ? 'customer' : order.tailorId === actor.id ? 'tailor' : 'admin';
+	return { order, side };
+}
+
+/** The admin reading an order's fittings, as a person whose zone their times are shown in. */
+export function readerPerson(db: Executor, id: string): Promise<Person> {
+	return person(db, id);
+}
+
+/**
+ * The order's two people and its workroom. One read after another: inside a transaction `db` is a single
+ * connection, which must not be handed several queries at once (pg deprecates it, and pg 9 refuses it).
+ */
 export async function contextOf(db: Executor, order: OrderSummary): Promise<OrderContext> {
-	const [customer, tailor, workroom] = await Promise.all([
-		person(db, order.customerId),
-		person(db, order.tailorId),
-		workrooms.getOwn(db, { tailorId: order.tailorId })
-	]);
+	const customer = await person(db, order.customerId);
+	const tailor = await person(db, order.tailorId);
+	const workroom = await workrooms.getOwn(db, { tailorId: order.tailorId });
 	return {
 		order,
 		customer,

@@ -1,6 +1,6 @@
 export * from './errors';
 export * from './schemas';
-export type { Actor, Side } from './context';
+export type { Actor, Reader, Side } from './context';
 export { offer, book, cancel, markDone, changeableUntil } from './transitions';
 export {
 	listForOrder,

@@ -8,12 +8,15 @@ import {
 	contextOf,
 	fittingStatuses,
 	fittingsHref,
-	orderFor,
 	noSuchFitting,
+	orderForReader,
 	partyForFitting,
 	placeText,
+	readerPerson,
 	type Actor,
 	type OrderContext,
+	type Person,
+	type Reader,
 	type Side
 } from './context';
 import { FittingError } from './errors';
@@ -57,7 +60,8 @@ export type FittingView = {
 
 export type FittingsPage = {
 	order: { id: string; status: string; commissionId: string; dueDate: string };
-	side: Side;
+	/** `admin`: an administrator reading the order's fittings; they change nothing. */
+	side: Reader;
 	/** Whether fittings can be offered and booked on the order now (paid, not yet delivered). */
 	active: boolean;
 	cutoffHours: number;
@@ -70,9 +74,22 @@ export type FittingsPage = {
 	fittings: FittingView[];
 };
 
-function view(row: Fitting, ctx: OrderContext, side: Side, now: Date, cutoffHours: number): FittingView {
-	const me = side === 'customer' ? ctx.customer : ctx.tailor;
-	const other = side === 'customer' ? ctx.tailor : ctx.customer;
+/** Whose zone comes first and whose beside it: an admin sees their own zone, the fitting's and the customer's. */
+type Viewpoint = { side: Reader; me: Person; other: Person };
+
+async function viewpointOf(db: Executor, ctx: OrderContext, side: Reader, actor: Actor): Promise<Viewpoint> {
+	if (side === 'customer') return { side, me: ctx.customer, other: ctx.tailor };
+	if (side === 'tailor') return { side, me: ctx.tailor, other: ctx.customer };
+	return { side, me: await readerPerson(db, actor.id), other: ctx.customer };
+}
+
+function view(
+	row: Fitting,
+	ctx: OrderContext,
+	{ side, me, other }: Viewpoint,
+	now: Date,
+	cutoffHours: number
+): FittingView {
 	const until = changeableUntil(row.startsAt, cutoffHours);
 	const beforeCutoff = now < until;
 	const active = fittingStatuses.has(ctx.order.status);
@@ -106,7 +123,8 @@ function view(row: Fitting, ctx: OrderContext, side: Side, now: Date, cutoffHour
 			cancelBooking: side === 'tailor' && row.status === 'confirmed',
 			markDone: side === 'tailor' && row.status === 'confirmed' && !upcoming,
 			calendar:
-				row.status === 'confirmed' || row.status === 'done' || (row.status === 'cancelled' && row.bookedAt !== null)
+				side !== 'admin' &&
+				(row.status === 'confirmed' || row.status === 'done' || (row.status === 'cancelled' && row.bookedAt !== null))
 		}
 	};
 }
@@ -115,16 +133,19 @@ async function rowsOf(db: Executor, orderId: string) {
 	return db.select().from(fitting).where(eq(fitting.orderId, orderId)).orderBy(asc(fitting.startsAt));
 }
 
-/** The order's fittings for one of its parties, or a `not_found` FittingError for anyone else. */
+/**
+ * The order's fittings for one of its parties, or read-only for an admin; a `not_found` FittingError for
+ * anyone else.
+ */
 export async function listForOrder(
 	db: Executor,
 	{ orderId, actor, now = new Date() }: { orderId: string; actor: Actor; now?: Date }
 ): Promise<FittingsPage> {
-	const { order, side } = await orderFor(db, orderId, actor);
+	const { order, side } = await orderForReader(db, orderId, actor);
 	const [ctx, rows] = await Promise.all([contextOf(db, order), rowsOf(db, orderId)]);
 	const cutoffHours = fittingChangeCutoffHours();
-	const me = side === 'customer' ? ctx.customer : ctx.tailor;
-	const other = side === 'customer' ? ctx.tailor : ctx.customer;
+	const viewpoint = await viewpointOf(db, ctx, side, actor);
+	const { me, other } = viewpoint;
 	return {
 		order: { id: order.id, status: order.status, commissionId: order.commissionId, dueDate: order.dueDate },
 		side,
@@ -135,7 +156,7 @@ export async function listForOrder(
 		fittingZone: ctx.tailor.timeZone,
 		workroomName: ctx.workroom.name,
 		workroomPlace: [ctx.workroom.district, ctx.workroom.town].filter(Boolean).join(', '),
-		fittings: rows.map((row) => view(row, ctx, side, now, cutoffHours))
+		fittings: rows.map((row) => view(row, ctx, viewpoint, now, cutoffHours))
 	};
 }
 
@@ -147,7 +168,7 @@ export async function getForParty(
 	const { order, side } = await partyForFitting(db, fittingId, actor);
 	const ctx = await contextOf(db, order);
 	const [row] = await db.select().from(fitting).where(eq(fitting.id, fittingId));
-	return view(row, ctx, side, now, fittingChangeCutoffHours());
+	return view(row, ctx, await viewpointOf(db, ctx, side, actor), now, fittingChangeCutoffHours());
 }
 
 /** The `.ics` of a fitting for one of its parties: REQUEST while booked, CANCEL once a booking was cancelled. */
@@ -164,14 +185,17 @@ export async function calendarForParty(
 	return calendarFile(db, row, ctx);
 }
 
-/** What the order page shows about fittings: the next booked one and how many times are open. Null for non-parties. */
+/**
+ * What the order page shows about fittings: the next booked one and how many times are open. For the two
+ * parties and admins; null for anyone else.
+ */
 export async function summaryFor(
 	db: Executor,
 	{ orderId, actor, now = new Date() }: { orderId: string; actor: Actor; now?: Date }
 ): Promise<FittingsSummary | null> {
-	const order = await orders.getForParty(db, { viewerId: actor.id, orderId });
+	const order = await orders.getForViewer(db, { viewer: actor, orderId });
 	if (!order) return null;
-	const side: Side = order.customerId === actor.id ? 'customer' : 'tailor';
+	const side: Reader = order.customerId === actor.id ? 'customer' : order.tailorId === actor.id ? 'tailor' : 'admin';
 	const rows = await db
 		.select()
 		.from(fitting)
@@ -182,8 +206,7 @@ export async function summaryFor(
 	let next: FittingsSummary['next'] = null;
 	if (booked) {
 		const ctx = await contextOf(db, order);
-		const me = side === 'customer' ? ctx.customer : ctx.tailor;
-		const other = side === 'customer' ? ctx.tailor : ctx.customer;
+		const { me, other } = await viewpointOf(db, ctx, side, actor);
 		next = { when: whenLines(booked, me, other), place: placeText(booked, ctx.workroom) };
 	}
 	return {

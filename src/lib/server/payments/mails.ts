@@ -11,7 +11,7 @@ export function paymentReceivedNotice(customerId: string, paid: Paid): Notice {
 		event: 'payment_received',
 		title: `Payment received for “${paid.title}”`,
 		body: `We have received your payment of ${amount} for “${paid.title}”. Tackline holds it and pays your tailor only when you confirm the garment was delivered.\n\nYour tailor has been told they can start. Follow the order here:`,
-		href: `/commissions/${paid.commissionId}`
+		href: `/orders/${paid.orderId}`
 	};
 }
 
@@ -24,7 +24,7 @@ export function orderFundedNotice(
 		userId: tailorId,
 		event: 'payment_received',
 		title: `“${paid.title}” is paid — you can start`,
-		body: `The customer has paid ${formatMoney(paid.priceMinor, paid.currency)} for “${paid.title}”. Tackline holds the money and transfers your payout of ${formatMoney(paid.tailorPayoutMinor, paid.currency)} when the customer confirms delivery.\n\nThe garment is due ${formatDate(paid.dueDate)}. The measurements and cutting draft are on the commission page:`,
-		href: `/commissions/${paid.commissionId}`
+		body: `The customer has paid ${formatMoney(paid.priceMinor, paid.currency)} for “${paid.title}”. Tackline holds the money and transfers your payout of ${formatMoney(paid.tailorPayoutMinor, paid.currency)} when the customer confirms delivery.\n\nThe garment is due ${formatDate(paid.dueDate)}. Post your progress, offer fitting times and find the measurements and cutting draft on the order page:`,
+		href: `/orders/${paid.orderId}`
 	};
 }

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { requireRole } from '$lib/server/auth/guard';
 import * as payments from '$lib/server/payments';
+import { currenciesWithMoney } from './shown';
 import type { PageServerLoad } from './$types';
 
 const pageSize = 25;
@@ -16,7 +17,7 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 	]);
 	return {
 		checkedAt: new Date().toISOString(),
-		reconciliation,
+		reconciliation: { ...reconciliation, currencies: currenciesWithMoney(reconciliation.currencies) },
 		unbalanced: {
 			total: unbalanced.total,
 			from,

@@ -30,7 +30,7 @@ export async function orderPageData(db: Db, { orderId, user }: { orderId: string
 			labelsOf(db, [order.tailorId]),
 			messages.threadIdFor(db, { commissionId: order.commissionId, tailorId: order.tailorId }),
 			accounts.getProfile(db, { id: user.id }),
-			audience === 'admin' ? null : fittings.summaryFor(db, { orderId, actor: user }),
+			fittings.summaryFor(db, { orderId, actor: user }),
 			order.status === 'funded' ? orders.openCancellationRequest(db, orderId) : null
 		]);
 	const awarded = audience === 'tailor' && view?.viewer === 'awarded' ? view : null;
