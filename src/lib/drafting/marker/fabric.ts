@@ -31,6 +31,14 @@ function laidOutline(p: FabricPlacement): Point[] {
 
 const near = (a: number, b: number) => Math.abs(a - b) < 1e-6;
 
+/** A band the boxes laid across the cloth: its laid length runs across where the drafted one runs along. */
+function crosswiseAsLaid(piece: DraftPiece, outline: readonly Point[]): boolean {
+	if (!piece.mayCut?.crosswise) return false;
+	const drafted = boundingBox(piece.outline);
+	const laid = boundingBox(outline);
+	return drafted.height >= drafted.width ? laid.width > laid.height : laid.height > laid.width;
+}
+
 /**
  * The grainline on the outline as laid: the piece's own when the piece lies as drafted (moved with it), else
  * — a band cut across the cloth or in two — the cloth's lengthwise grain through the middle of the piece.
@@ -56,7 +64,7 @@ function laidGrainline(piece: DraftPiece, p: FabricPlacement, outline: readonly 
  */
 export function markerItems(estimate: FabricEstimate, pieces: readonly DraftPiece[], spec: FabricSpec) {
 	const byId = new Map(pieces.map((p) => [p.id, p]));
-	const groups = new Map<string, { item: MarkerItem; yields: number; unfolded: boolean }>();
+	const groups = new Map<string, { item: MarkerItem; yields: number; unfolded: boolean; crosswiseLaid: boolean }>();
 	for (const p of estimate.placements) {
 		const key = `${p.pieceId}|${p.unfolded}`;
 		// A box laid head to tail holds two copies; an opened-out fold piece is one cut drawn in two halves.
@@ -80,8 +88,11 @@ export function markerItems(estimate: FabricEstimate, pieces: readonly DraftPiec
 				quantity: copies,
 				rotation: spec.directional ? 'none' : '180',
 				onFold: estimate.folded && piece.cut.onFold,
-				mirrorPairs: !estimate.folded && piece.cut.pair
-			}
+				mirrorPairs: !estimate.folded && piece.cut.pair,
+				eitherHand: estimate.folded && piece.cut.pair && !piece.cut.onFold,
+				crosswise: piece.mayCut?.crosswise ?? false
+			},
+			crosswiseLaid: p.unfolded ? false : crosswiseAsLaid(piece, outline)
 		});
 	}
 	return [...groups.values()];
@@ -141,6 +152,22 @@ function nestCloth(
 	const lengthMm = marker.length / (1 - shrink);
 	const buyUnit = estimate.rounded.buyUnit;
 	const rounded = roundUpFabric(lengthMm, buyUnit);
+	// A band the marker turned a quarter from how the boxes laid it: the note says which way it is cut now.
+	const notes = [...estimate.notes];
+	for (const [i, g] of groups.entries()) {
+		const turned = marker.placements.filter((m) => m.item === i && (m.turn === 90 || m.turn === 270)).length;
+		if (!turned) continue;
+		const all = marker.placements.filter((m) => m.item === i).length;
+		const across = `${g.item.label}: cut across the cloth (crosswise grain)`;
+		const at = notes.findIndex((n) => n.startsWith(across));
+		if (at >= 0) notes.splice(at, 1);
+		const some = turned < all ? `${turned} of the ${all} pieces` : all > 1 ? 'every piece' : 'it';
+		notes.push(
+			g.crosswiseLaid
+				? `${g.item.label}: cut along the grain (${some}), as the marker shows; that saves cloth.`
+				: `${g.item.label}: cut across the cloth (crosswise grain) — ${some} — where the marker shows it; that saves cloth.`
+		);
+	}
 	const placements: FabricPlacement[] = marker.placements.map((m) => {
 		const { item, yields, unfolded } = groups[m.item];
 		return {
@@ -166,6 +193,7 @@ function nestCloth(
 		// The same cuts on a shorter length: the cloth used rises in the ratio of the lengths.
 		efficiency: (estimate.efficiency * estimate.packedMm) / marker.length,
 		placements,
+		notes,
 		nested: { boxLengthMm: estimate.packedMm, areaBoundMm: marker.areaBound }
 	};
 }

@@ -71,6 +71,8 @@ interface Unit {
 	variants: Variant[];
 	onFold: boolean;
 	area: number;
+	/** A pair on open cloth: at most this many copies of the item in each hand (either may come first). */
+	perHand?: number;
 }
 
 interface Placed {
@@ -82,7 +84,6 @@ interface Placed {
 
 interface Context {
 	width: number;
-	margin: number;
 	yStep: number;
 	yLimit: number;
 	nfps: Map<Variant, Map<Variant, Paths64>>;
@@ -92,7 +93,14 @@ function noFit(context: Context, fixed: Variant, moving: Variant): Paths64 {
 	let row = context.nfps.get(fixed);
 	if (!row) context.nfps.set(fixed, (row = new Map<Variant, Paths64>()));
 	let nfp = row.get(moving);
-	if (!nfp) row.set(moving, (nfp = noFitPolygon(fixed.shape, moving.shape)));
+	if (!nfp) {
+		// Overlap, or a curve of either within the cutting gap of the other (straight runs may share a cut line).
+		const plainOnly = fixed.clear === fixed.shape && moving.clear === moving.shape;
+		nfp = plainOnly
+			? noFitPolygon(fixed.shape, moving.shape)
+			: union([...noFitPolygon(fixed.clear, moving.shape), ...noFitPolygon(fixed.shape, moving.clear)]);
+		row.set(moving, nfp);
+	}
 	return nfp;
 }
 
@@ -103,13 +111,14 @@ const stepUp = (y: number, step: number) => Math.ceil(y / step - 1e-9) * step;
 
 /** Lowest, then leftmost, free reference positions for one variant among the placed pieces. */
 function candidates(context: Context, placed: Placed[], unit: Unit, variant: Variant, seen: Blocked): Point[] {
-	const { width, margin, yStep, yLimit } = context;
+	const { width, yStep, yLimit } = context;
 	// Copies of one item share their variants, so the region they may not take grows by the pieces placed since.
 	const known = seen.get(variant);
 	const fresh = placed.slice(known?.upTo ?? 0).flatMap((p) => translate(noFit(context, p.variant, variant), p.x, p.y));
 	const blocked = known && !fresh.length ? known.blocked : union([...(known?.blocked ?? []), ...fresh]);
 	seen.set(variant, { upTo: placed.length, blocked });
-	const top = -margin;
+	// The fold, the selvedges and the cut end need no gap: the piece's own edge is the cut line there.
+	const top = 0;
 	if (unit.onFold) {
 		if (variant.width > width) return [];
 		return lineOutside({ x: 0, y: top }, { x: 0, y: yLimit }, blocked).flatMap((segment) => {
@@ -118,8 +127,8 @@ function candidates(context: Context, placed: Placed[], unit: Unit, variant: Var
 			return y <= b ? [{ x: 0, y }] : [];
 		});
 	}
-	const left = -margin;
-	const right = width + margin - variant.width;
+	const left = 0;
+	const right = width - variant.width;
 	if (right < left) return [];
 	if (yStep > 0) {
 		// The cutting line's top, not the grown shape's, lands on the repeat.
@@ -171,10 +180,13 @@ function placeAll(context: Context, units: Unit[], rule: Rule, overdue: () => bo
 	// How far down the cloth the grown shapes placed so far reach.
 	let reach = 0;
 	const seen: Blocked = new Map();
+	const hands = new Map<string, number>();
+	const handKey = (item: number, mirrored: boolean) => `${item}|${mirrored}`;
 	for (const unit of units) {
 		if (overdue()) return null;
 		let best: Placed | null = null;
 		for (const variant of unit.variants) {
+			if (unit.perHand !== undefined && (hands.get(handKey(unit.item, variant.mirrored)) ?? 0) >= unit.perHand) continue;
 			for (const c of candidates(context, placed, unit, variant, seen)) {
 				if (!best || better(rule, c, variant, best, reach)) {
 					best = { unit, variant, x: c.x, y: c.y };
@@ -183,6 +195,8 @@ function placeAll(context: Context, units: Unit[], rule: Rule, overdue: () => bo
 		}
 		if (!best) return null;
 		placed.push(best);
+		const key = handKey(unit.item, best.variant.mirrored);
+		hands.set(key, (hands.get(key) ?? 0) + 1);
 		reach = Math.max(reach, best.y + best.variant.height);
 	}
 	return placed;
@@ -237,17 +251,19 @@ export function nestMarker(items: readonly MarkerItem[], options: MarkerOptions)
 	const tolerance = options.toleranceMm ?? flatteningToleranceMm;
 	const units: Unit[] = [];
 	items.forEach((item, index) => {
-		const [plain, mirrored] = variantsFor(item, tolerance, gap / 2);
+		const [plain, mirrored] = variantsFor(item, tolerance, gap);
 		const area = polygonArea(item.outline);
+		// A pair on open cloth: half the copies in each hand, whichever is laid first.
+		const paired = item.mirrorPairs && !item.eitherHand && item.quantity > 1;
 		for (let copy = 0; copy < item.quantity; copy++) {
-			const variants = copy % 2 && item.mirrorPairs ? mirrored : plain;
-			units.push({ item: index, copy, variants, onFold: item.onFold, area });
+			const variants = paired ? [...plain, ...mirrored] : copy % 2 && item.mirrorPairs ? mirrored : plain;
+			const perHand = paired ? Math.ceil(item.quantity / 2) : undefined;
+			units.push({ item: index, copy, variants, onFold: item.onFold, area, perHand });
 		}
 	});
 	if (!units.length) return null;
 	const context: Context = {
 		width: Math.round(options.width * unitsPerMm),
-		margin: Math.round((gap / 2) * unitsPerMm),
 		yStep: Math.round((options.yStep ?? 0) * unitsPerMm),
 		yLimit: units.reduce((sum, u) => sum + Math.max(...u.variants.map((v) => Math.max(v.width, v.height))), 0) * 2,
 		nfps: new Map()

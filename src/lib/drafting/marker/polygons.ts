@@ -31,16 +31,125 @@ export function toPoints(path: Path64): Point[] {
 	return path.map((p) => ({ x: p.x / unitsPerMm, y: p.y / unitsPerMm }));
 }
 
+/** A straight run of the outline at least this long is a cut line another piece may share. */
+export const sharedLineMinMm = 40;
+/** How far a point may stray from a straight run and still lie on it, in shape units (0.05 mm). */
+const straightSlack = 5;
+
 /**
- * The outline as straight segments no further than `toleranceMm` from it (Ramer–Douglas–Peucker),
- * grown by `growMm` so that it still contains the outline. Mitred corners keep the vertex count low.
+ * The outline split into its straight runs (collinear vertices over at least `sharedLineMinMm`) and the
+ * chains between them, in order round the outline, each chain an open path from run to run. With no
+ * straight run the whole outline is one closed chain.
  */
-export function nestingShape(outline: readonly Point[], toleranceMm: number, growMm: number): Path64 {
+export function splitOutline(path: Path64): { runs: Array<{ points: Path64; straight: boolean }>; closed: boolean } {
+	const n = path.length;
+	const minLength = sharedLineMinMm * unitsPerMm;
+	// Start the walk at the sharpest corner, so that no straight run wraps past the start.
+	let start = 0;
+	let sharpest = -Infinity;
+	for (let i = 0; i < n; i++) {
+		const a = path[(i + n - 1) % n];
+		const b = path[i];
+		const c = path[(i + 1) % n];
+		const turn = Math.abs(
+			Math.atan2((b.x - a.x) * (c.y - b.y) - (b.y - a.y) * (c.x - b.x), (b.x - a.x) * (c.x - b.x) + (b.y - a.y) * (c.y - b.y))
+		);
+		if (turn > sharpest) [sharpest, start] = [turn, i];
+	}
+	const ring = [...path.slice(start), ...path.slice(0, start), path[start]];
+	const straightEdge = new Array<boolean>(n).fill(false);
+	for (let i = 0; i < n; ) {
+		let j = i + 1;
+		while (j + 1 <= n && collinear(ring, i, j + 1)) j++;
+		if (Math.hypot(ring[j].x - ring[i].x, ring[j].y - ring[i].y) >= minLength) {
+			for (let k = i; k < j; k++) straightEdge[k] = true;
+			i = j;
+		} else i++;
+	}
+	if (!straightEdge.some(Boolean)) return { runs: [{ points: path, straight: false }], closed: true };
+	const runs: Array<{ points: Path64; straight: boolean }> = [];
+	let current: Path64 = [ring[0]];
+	let kind = straightEdge[0];
+	for (let k = 0; k < n; k++) {
+		if (straightEdge[k] !== kind) {
+			runs.push({ points: current, straight: kind });
+			current = [ring[k]];
+			kind = straightEdge[k];
+		}
+		current.push(ring[k + 1]);
+	}
+	runs.push({ points: current, straight: kind });
+	return { runs, closed: false };
+}
+
+/** Every vertex from i to j lies within the slack of the line from ring[i] to ring[j]. */
+function collinear(ring: Path64, i: number, j: number): boolean {
+	const a = ring[i];
+	const b = ring[j];
+	const length = Math.hypot(b.x - a.x, b.y - a.y);
+	if (!length) return false;
+	for (let k = i + 1; k < j; k++) {
+		const p = ring[k];
+		if (Math.abs((b.x - a.x) * (p.y - a.y) - (b.y - a.y) * (p.x - a.x)) / length > straightSlack) return false;
+		const along = ((p.x - a.x) * (b.x - a.x) + (p.y - a.y) * (b.y - a.y)) / length;
+		if (along < 0 || along > length) return false;
+	}
+	return true;
+}
+
+/** Two integer shapes for one outline: `shape` covers the cutting line, `clear` adds the gap around curves. */
+export interface NestingShapes {
+	shape: Path64;
+	clear: Path64;
+}
+
+/**
+ * The shapes the marker nests with. The cutting gap (common practice: room for the blade between two cut
+ * lines) is kept like this:
+ * - a straight run of the outline (at least `sharedLineMinMm`) may lie on another piece's straight run: the
+ *   two pieces share one cutting line (common practice: a "common cut line"), so it carries no gap;
+ * - every other part of the outline, the curves, keeps `gapMm` from every other piece (`clear` is the shape
+ *   with the curved chains grown by the gap; two pieces may not have one's `clear` overlap the other's `shape`);
+ * - the fold and the selvedges need no gap: the piece's edge is the cut line there (see nest.ts).
+ * The curved chains are flattened to `toleranceMm` (Ramer–Douglas–Peucker) and grown by however far the
+ * flattening strayed inside, so `shape` still contains the outline; straight runs are kept exact.
+ */
+export function nestingShapes(outline: readonly Point[], toleranceMm: number, gapMm: number): NestingShapes {
 	const original = toPath(outline);
-	const simplified = Clipper.ramerDouglasPeucker(original, toleranceMm * unitsPerMm);
-	const grow = growMm * unitsPerMm + shortfall(original, simplified);
-	if (grow <= 0) return simplified;
-	return largest(Clipper.inflatePaths([simplified], grow, JoinType.Miter, EndType.Polygon, 2));
+	const { runs, closed } = splitOutline(original);
+	const epsilon = toleranceMm * unitsPerMm;
+	const flat = runs.map((r) => ({
+		...r,
+		flat: r.straight || r.points.length <= 2 ? r.points : Clipper.ramerDouglasPeucker(r.points, epsilon)
+	}));
+	const chains = flat.filter((r) => !r.straight).map((r) => r.flat);
+	let stray = 0;
+	let body: Path64;
+	if (closed) {
+		body = chains[0];
+		stray = shortfall(original, body);
+	} else {
+		// The outline again from its runs in order, each run's last point being the next one's first.
+		body = flat.flatMap((r) => r.flat.slice(0, -1));
+		for (const r of flat) if (!r.straight) stray = Math.max(stray, chainShortfall(r.points, r.flat));
+	}
+	const end = closed ? EndType.Polygon : EndType.Butt;
+	const grow = (delta: number) =>
+		delta > 0 ? Clipper.inflatePaths(chains, delta, JoinType.Miter, end, 2) : ([] as Paths64);
+	const shape = largest(Clipper.union([body, ...grow(Math.ceil(stray))], FillRule.NonZero));
+	const clear = gapMm > 0 ? largest(Clipper.union([shape, ...grow(Math.ceil(stray + gapMm * unitsPerMm))], FillRule.NonZero)) : shape;
+	return { shape, clear };
+}
+
+/** How far the original chain's vertices lie from the flattened one. */
+function chainShortfall(original: Path64, simplified: Path64): number {
+	let worst = 0;
+	for (const p of original) {
+		let nearest = Infinity;
+		for (let i = 0; i + 1 < simplified.length; i++) nearest = Math.min(nearest, segmentDistance(p, simplified[i], simplified[i + 1]));
+		worst = Math.max(worst, nearest);
+	}
+	return worst;
 }
 
 function segmentDistance(p: Point, a: Point, b: Point): number {
