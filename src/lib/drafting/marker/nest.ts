@@ -15,7 +15,17 @@ import {
 	type Path64,
 	type Paths64
 } from './polygons';
-import { variantsFor, type MarkerItem, type Turn, type Variant } from './variants';
+import {
+	applyLinear,
+	compose,
+	invert,
+	variantsFor,
+	type BaseShapes,
+	type Linear,
+	type MarkerItem,
+	type Turn,
+	type Variant
+} from './variants';
 
 export type { MarkerItem, Turn };
 
@@ -87,6 +97,38 @@ interface Context {
 	yStep: number;
 	yLimit: number;
 	nfps: Map<Variant, Map<Variant, Paths64>>;
+	/** No-fit polygons between two items as drafted, one per relative turn or mirror. */
+	baseNfps: Map<BaseShapes, Map<BaseShapes, Map<string, Paths64>>>;
+}
+
+/**
+ * No-fit polygon of `moving` round `fixed` with both as drafted but `moving` under the relative map:
+ * overlap, or a curve of either within the cutting gap of the other (straight runs may share a cut line).
+ */
+function baseNoFit(context: Context, fixed: BaseShapes, moving: BaseShapes, relative: Linear): Paths64 {
+	let row = context.baseNfps.get(fixed);
+	if (!row) context.baseNfps.set(fixed, (row = new Map()));
+	let cell = row.get(moving);
+	if (!cell) row.set(moving, (cell = new Map()));
+	const key = relative.join(',');
+	let nfp = cell.get(key);
+	// B ⊕ −(R⁻¹A) = −R⁻¹·(A ⊕ −(R·B)): the polygon the other way round, if known, only needs mapping.
+	const back = invert(relative);
+	const known = nfp ? undefined : context.baseNfps.get(moving)?.get(fixed)?.get(back.join(','));
+	if (known) {
+		const negated: Linear = [-back[0], -back[1], -back[2], -back[3]];
+		nfp = known.map((p) => applyLinear(negated, p));
+		cell.set(key, nfp);
+	}
+	if (!nfp) {
+		const shape = applyLinear(relative, moving.shape);
+		nfp =
+			fixed.clear === fixed.shape && moving.clear === moving.shape
+				? noFitPolygon(fixed.shape, shape)
+				: union([...noFitPolygon(fixed.clear, shape), ...noFitPolygon(fixed.shape, applyLinear(relative, moving.clear))]);
+		cell.set(key, nfp);
+	}
+	return nfp;
 }
 
 function noFit(context: Context, fixed: Variant, moving: Variant): Paths64 {
@@ -94,11 +136,12 @@ function noFit(context: Context, fixed: Variant, moving: Variant): Paths64 {
 	if (!row) context.nfps.set(fixed, (row = new Map<Variant, Paths64>()));
 	let nfp = row.get(moving);
 	if (!nfp) {
-		// Overlap, or a curve of either within the cutting gap of the other (straight runs may share a cut line).
-		const plainOnly = fixed.clear === fixed.shape && moving.clear === moving.shape;
-		nfp = plainOnly
-			? noFitPolygon(fixed.shape, moving.shape)
-			: union([...noFitPolygon(fixed.clear, moving.shape), ...noFitPolygon(fixed.shape, moving.clear)]);
+		// fixed = F·A + f and moving = V·B + v, so fixed ⊕ −moving = F·(A ⊕ −(F⁻¹V)·B) + f − v: one polygon per
+		// relative map serves every pair of variants with that map.
+		const relative = compose(invert(fixed.linear), moving.linear);
+		const dx = fixed.offset.x - moving.offset.x;
+		const dy = fixed.offset.y - moving.offset.y;
+		nfp = baseNoFit(context, fixed.base, moving.base, relative).map((p) => applyLinear(fixed.linear, p, dx, dy));
 		row.set(moving, nfp);
 	}
 	return nfp;
@@ -266,7 +309,8 @@ export function nestMarker(items: readonly MarkerItem[], options: MarkerOptions)
 		width: Math.round(options.width * unitsPerMm),
 		yStep: Math.round((options.yStep ?? 0) * unitsPerMm),
 		yLimit: units.reduce((sum, u) => sum + Math.max(...u.variants.map((v) => Math.max(v.width, v.height))), 0) * 2,
-		nfps: new Map()
+		nfps: new Map(),
+		baseNfps: new Map()
 	};
 	const maxAttempts = options.orderings ?? defaultOrderings;
 	const budget = options.budgetMs ?? Infinity;

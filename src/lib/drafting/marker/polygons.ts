@@ -9,7 +9,6 @@ import {
 	EndType,
 	FillRule,
 	JoinType,
-	Minkowski,
 	PointInPolygonResult,
 	type Path64,
 	type Paths64
@@ -193,16 +192,25 @@ export function clipLeftOf(shape: Path64, x: number): Path64 {
 }
 
 /**
- * No-fit polygon of `moving` around `fixed`, both with their reference point at the origin:
- * the positions of `moving` at which it overlaps `fixed`, i.e. fixed ⊕ (−moving).
- * Clipper's Minkowski sum of a closed path is the ring swept along it; adding one translate of `fixed`
- * fills the inside (any position off the ring with `moving` touching `fixed` has it wholly inside).
+ * No-fit polygon of `moving` around `fixed`, both with their reference point at the origin: the positions of
+ * `moving` at which it overlaps `fixed`, i.e. fixed ⊕ (−moving).
+ * Every edge of the sum's boundary is an edge of one polygon moved by a vertex of the other, so the sum is the
+ * union of `fixed` moved by each vertex of −moving and −moving moved by each vertex of `fixed`, with the holes
+ * of that union filled (far fewer, larger polygons than Clipper's edge-by-edge quads: several times faster).
+ * Filling also fills the sum's own holes: a place a piece could only reach by being dropped into a pocket
+ * is given up. A hole Clipper joins to the outside by a zero-width channel is closed first by growing the
+ * union by 3 hundredths of a millimetre and shrinking it by 1: the polygon errs 0.02 mm on the blocked side.
  */
 export function noFitPolygon(fixed: Path64, moving: Path64): Paths64 {
 	const reflected = moving.map((p) => ({ x: -p.x, y: -p.y }));
-	const ring = Minkowski.sum(reflected, fixed, true);
-	const inside = Clipper.translatePath(fixed, reflected[0].x, reflected[0].y);
-	return Clipper.union([...ring, inside], FillRule.NonZero);
+	const copies = [
+		...fixed.map((a) => Clipper.translatePath(reflected, a.x, a.y)),
+		...reflected.map((b) => Clipper.translatePath(fixed, b.x, b.y))
+	];
+	const outer = (paths: Paths64) => paths.filter((p) => Clipper.isPositive(p));
+	const sum = outer(Clipper.union(copies, FillRule.NonZero));
+	const closed = outer(Clipper.inflatePaths(sum, 3, JoinType.Miter, EndType.Polygon, 2));
+	return outer(Clipper.inflatePaths(closed, -1, JoinType.Miter, EndType.Polygon, 2));
 }
 
 export function union(paths: Paths64): Paths64 {
