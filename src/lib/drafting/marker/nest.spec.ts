@@ -7,7 +7,7 @@ import { templates } from '../templates/index';
 import { draftIn, standardBodyCm } from '../templates/test-support';
 import { markerItems, nestFabricEstimate } from './fabric';
 import { nestMarker, type MarkerItem, type MarkerResult } from './nest';
-import { areaOutside, grownOutline, overlapArea } from './polygons';
+import { areaOutside, curvedRuns, overlapArea, reachOf } from './polygons';
 
 const item = (outline: Point[], extra: Partial<MarkerItem> = {}): MarkerItem => ({
 	id: 'piece',
@@ -49,10 +49,13 @@ function expectSound(result: MarkerResult, gapMm: number) {
 		}
 	}
 	if (gapMm > 0) {
-		// The cutting gap: every outline grown by just under half the gap still overlaps no other.
-		const grown = outlines.map((o) => grownOutline(o, gapMm / 2 - 0.05));
-		for (let i = 0; i < grown.length; i++) {
-			for (let j = i + 1; j < grown.length; j++) expect(overlapArea(grown[i], grown[j])).toBeLessThan(0.01);
+		// The cutting gap: whatever lies within just under the gap of a curve belongs to no other piece
+		// (straight runs may share a cutting line, so only the curves carry the gap).
+		for (let i = 0; i < outlines.length; i++) {
+			const reach = reachOf(curvedRuns(outlines[i]), gapMm - 0.05);
+			for (let j = 0; j < outlines.length; j++) {
+				if (i !== j) for (const r of reach) expect(overlapArea(r, outlines[j])).toBeLessThan(0.01);
+			}
 		}
 	}
 	expect(result.length).toBeGreaterThanOrEqual(result.areaBound - 1e-6);
@@ -79,11 +82,29 @@ describe('marker: hand-checked shapes', () => {
 		expectSound(result, 0);
 	});
 
-	it('leaves the cutting gap between pieces (common practice: room for the blade)', () => {
-		const tri = item(triangle(300, 800), { quantity: 2 });
-		const result = nestMarker([tri], { width: 400, gapMm: 3 })!;
+	it('leaves the cutting gap round curves (common practice: room for the blade)', () => {
+		// Two half-discs of radius 200 turned end for end: curve against curve, so they stand 3 mm apart.
+		const half = Array.from({ length: 33 }, (_, k) => pt(200 * Math.sin((Math.PI * k) / 32), 200 - 200 * Math.cos((Math.PI * k) / 32)));
+		const result = nestMarker([item(half, { quantity: 2 })], { width: 203, gapMm: 3 })!;
 		expectSound(result, 3);
-		expect(result.length).toBeGreaterThan(800);
+		const [a, b] = result.placements.map((p) => p.box);
+		expect(Math.max(a.x + a.width, b.x + b.width)).toBeLessThanOrEqual(203 + 1e-6);
+		// Side by side the flat sides would touch with no gap; the curves need 3 mm, so they cannot.
+		expect(result.length).toBeGreaterThan(400);
+	});
+
+	it('lets straight edges share one cutting line, with no gap (common practice: common cut line)', () => {
+		// Two right triangles turned end for end share their long edge: 300 × 800, even with a 3 mm gap.
+		const tri = item(triangle(300, 800), { quantity: 2 });
+		const result = nestMarker([tri], { width: 300, gapMm: 3 })!;
+		expect(result.length).toBeCloseTo(800, 1);
+		expectSound(result, 3);
+	});
+
+	it('needs no gap at the selvedges or the fold: the piece edge is the cut line there', () => {
+		const result = nestMarker([item([pt(0, 0), pt(300, 0), pt(300, 100), pt(0, 100)])], { width: 300, gapMm: 2 })!;
+		expect(result.length).toBeCloseTo(100, 6);
+		expect(result.placements[0].box.x).toBeCloseTo(0, 6);
 	});
 
 	it('lays a pair on open cloth as a piece and its mirror image', () => {
@@ -148,8 +169,11 @@ describe('marker: every garment', () => {
 				const placed = marker.placements.filter((p) => p.item === i);
 				expect(placed).toHaveLength(it.quantity);
 				if (it.onFold) expect(placed.every((p) => Math.abs(p.box.x) < 0.01)).toBe(true);
-				// Grain stays along the cloth: a nap allows no turn, plain cloth end for end only.
-				expect(placed.every((p) => (c.directional ? p.turn === 0 : p.turn === 0 || p.turn === 180))).toBe(true);
+				// Grain stays along the cloth: a nap allows no turn, plain cloth end for end only; a band that may
+				// be cut across may also take a quarter turn (one way only with a nap).
+				const turns = c.directional ? [0] : [0, 180];
+				if (it.crosswise) turns.push(...(c.directional ? [90] : [90, 270]));
+				expect(placed.every((p) => turns.includes(p.turn))).toBe(true);
 				for (const p of placed) expect(p.grainline[0].x).toBeCloseTo(p.grainline[1].x, 6);
 			}
 			const nested = nestFabricEstimate(boxes, pieces, spec, { budgetMs: Infinity, orderings: 2 });

@@ -240,10 +240,20 @@ export function bounds(path: Path64) {
 	return Clipper.getBounds(path);
 }
 
-/** The outline grown by `mm` all round, corners rounded (the cutting gap's reach). */
-export function grownOutline(outline: readonly Point[], mm: number): Point[] {
-	const grown = Clipper.inflatePaths([toPath(outline)], mm * unitsPerMm, JoinType.Round, EndType.Polygon);
-	return toPoints(largest(grown));
+/** The curved runs of an outline (everything but its straight runs), in mm; `closed` when it is all curve. */
+export function curvedRuns(outline: readonly Point[]): Array<{ points: Point[]; closed: boolean }> {
+	const { runs, closed } = splitOutline(toPath(outline));
+	return runs.filter((r) => !r.straight).map((r) => ({ points: toPoints(r.points), closed }));
+}
+
+/** The ground within `mm` of the lines: round joins, square-cut ends (a closed line's reach all round). */
+export function reachOf(lines: ReadonlyArray<{ points: Point[]; closed: boolean }>, mm: number): Point[][] {
+	return lines.flatMap(({ points, closed }) => {
+		const path = points.map((p) => ({ x: Math.round(p.x * unitsPerMm), y: Math.round(p.y * unitsPerMm) }));
+		const end = closed ? EndType.Polygon : EndType.Butt;
+		const reach = Clipper.inflatePaths([path], mm * unitsPerMm, JoinType.Round, end);
+		return (closed ? Clipper.union([...reach, path], FillRule.NonZero) : reach).map(toPoints);
+	});
 }
 
 /** Area of overlap of two outlines in mm² (zero when they only touch). */
