@@ -70,10 +70,10 @@ export interface MarkerResult {
 
 export const defaultGapMm = 2;
 export const flatteningToleranceMm = 1;
-/** Orderings tried at most: the fixed ones, then swaps of the best so far. */
-export const defaultOrderings = 60;
+/** Orderings tried at most: the fixed ones, then neighbours of the best so far. */
+export const defaultOrderings = 400;
 /** Swaps tried in a row without a shorter marker before the search stops. */
-const patience = 16;
+const patience = 120;
 
 interface Unit {
 	item: number;
@@ -83,6 +83,8 @@ interface Unit {
 	area: number;
 	/** A pair on open cloth: at most this many copies of the item in each hand (either may come first). */
 	perHand?: number;
+	/** Set when the search holds this copy to one variant: all it may take. */
+	free?: Variant[];
 }
 
 interface Placed {
@@ -218,7 +220,17 @@ function better(rule: Rule, c: Point, variant: Variant, best: Placed, reach: num
 	return key < bestKey || (key === bestKey && c.x < best.x);
 }
 
-function placeAll(context: Context, units: Unit[], rule: Rule, overdue: () => boolean): Placed[] | null {
+/**
+ * Lays the copies in order. Null when one cannot be laid, the budget runs out, or the shapes already reach
+ * `giveUpAt` (shape units): that ordering can no longer beat the best marker so far.
+ */
+function placeAll(
+	context: Context,
+	units: Unit[],
+	rule: Rule,
+	overdue: () => boolean,
+	giveUpAt = Infinity
+): Placed[] | null {
 	const placed: Placed[] = [];
 	// How far down the cloth the grown shapes placed so far reach.
 	let reach = 0;
@@ -238,6 +250,7 @@ function placeAll(context: Context, units: Unit[], rule: Rule, overdue: () => bo
 		}
 		if (!best) return null;
 		placed.push(best);
+		if (best.y + best.variant.height >= giveUpAt) return null;
 		const key = handKey(unit.item, best.variant.mirrored);
 		hands.set(key, (hands.get(key) ?? 0) + 1);
 		reach = Math.max(reach, best.y + best.variant.height);
@@ -276,14 +289,33 @@ const orders: Order[] = [
 ];
 
 /** A fixed pseudo-random sequence (a linear congruential generator), so results repeat run to run. */
-function* swaps(count: number): Generator<[number, number]> {
+function random(): (n: number) => number {
 	let seed = 0x2545f491;
-	for (;;) {
+	return (n) => {
 		seed = (Math.imul(seed, 1103515245) + 12345) >>> 0;
-		const i = seed % count;
-		seed = (Math.imul(seed, 1103515245) + 12345) >>> 0;
-		yield [i, (i + 1 + (seed % 3)) % count];
+		return (seed >>> 8) % n;
+	};
+}
+
+/**
+ * A neighbour of an ordering: two copies swap places (the fold pieces stay where the ordering put them), or one
+ * copy is held to one of its allowed turns and hands — bottom-left takes the first of equally low places, so
+ * the turn that would leave room for a later piece is otherwise never tried — or let free again.
+ */
+function neighbour(order: readonly Unit[], pick: (n: number) => number): Unit[] {
+	const next = [...order];
+	const i = pick(next.length);
+	if (pick(2) === 0) {
+		const j = (i + 1 + pick(3)) % next.length;
+		if (next[i].onFold === next[j].onFold) [next[i], next[j]] = [next[j], next[i]];
+		return next;
 	}
+	const unit = next[i];
+	const all = unit.free ?? unit.variants;
+	if (all.length < 2) return next;
+	const k = pick(all.length + 1);
+	next[i] = k === all.length ? { ...unit, variants: all, free: undefined } : { ...unit, variants: [all[k]], free: all };
+	return next;
 }
 
 /** Nests the items on the cloth. Null when a piece cannot fit the width or the budget ran out first. */
@@ -321,21 +353,19 @@ export function nestMarker(items: readonly MarkerItem[], options: MarkerOptions)
 	let tried = 0;
 	let sinceBetter = 0;
 	const fixed = orders.length * rules.length;
-	const perturb = swaps(units.length);
+	const pick = random();
 	while (tried < maxAttempts && (tried === 0 || !overdue()) && (tried < fixed || sinceBetter < patience)) {
 		let attempt: typeof bestAttempt;
 		if (tried < fixed) {
 			attempt = { order: [...units].sort(orders[Math.floor(tried / rules.length)]), rule: rules[tried % rules.length] };
 		} else {
-			const order = [...bestAttempt.order];
-			const [i, j] = perturb.next().value as [number, number];
-			// The fold pieces stay where the ordering put them; everything else may swap.
-			if (order[i].onFold === order[j].onFold) [order[i], order[j]] = [order[j], order[i]];
-			attempt = { order, rule: bestAttempt.rule };
+			attempt = { order: neighbour(bestAttempt.order, pick), rule: bestAttempt.rule };
 			sinceBetter++;
 		}
 		tried++;
-		const placed = placeAll(context, attempt.order, attempt.rule, overdue);
+		// A shape reaches at most a millimetre or so past its cutting line (the flattening's stray, rounding).
+		const giveUpAt = bestLength * unitsPerMm + 2 * unitsPerMm;
+		const placed = placeAll(context, attempt.order, attempt.rule, overdue, giveUpAt);
 		if (placed) {
 			const length = markerLength(placed);
 			if (length < bestLength - 1e-6) {
@@ -348,9 +378,13 @@ export function nestMarker(items: readonly MarkerItem[], options: MarkerOptions)
 	}
 	if (!best) return null;
 	const width = options.width;
+	// The shapes are held to a hundredth of a millimetre: a cutting line may start that much before the cut end.
+	const before = Math.max(0, ...best.map((p) => -boundingBox(placedOutline(p).outline).y));
 	const placements = best
 		.map((p): MarkerPlacement => {
-			const { outline, grainline } = placedOutline(p);
+			const laid = placedOutline(p);
+			const outline = shift(laid.outline, 0, before);
+			const grainline = shift(laid.grainline, 0, before) as [Point, Point];
 			return {
 				item: p.unit.item,
 				copy: p.unit.copy,
@@ -365,9 +399,9 @@ export function nestMarker(items: readonly MarkerItem[], options: MarkerOptions)
 	const area = units.reduce((sum, u) => sum + u.area, 0);
 	return {
 		width,
-		length: bestLength,
+		length: bestLength + before,
 		placements,
-		efficiency: area / (width * bestLength),
+		efficiency: area / (width * (bestLength + before)),
 		areaBound: area / width,
 		orderingsTried: tried
 	};
