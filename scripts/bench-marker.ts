@@ -60,7 +60,19 @@ const pct = (x: number) => `${(x * 100).toFixed(1)} %`;
 const cm = (mm: number) => `${(mm / 10).toFixed(1)}`;
 
 const rows: string[][] = [
-	['garment', 'cloth', 'rect cm', 'marker cm', 'area bound', 'longest', 'rect used', 'marker used', 'time', 'cpu', 'verdict']
+	[
+		'garment',
+		'cloth',
+		'rect cm',
+		'marker cm',
+		'area bound',
+		'longest',
+		'rect used',
+		'marker used',
+		'time',
+		'cpu',
+		'verdict'
+	]
 ];
 let failures = 0;
 

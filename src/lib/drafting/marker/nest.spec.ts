@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { defaultFabricSpec, estimateFabric, type FabricSpec } from '../fabric';
 import { boundingBox, distance, mirrorX, polygonArea, pt, type Point } from '../geometry';
@@ -84,7 +85,9 @@ describe('marker: hand-checked shapes', () => {
 
 	it('leaves the cutting gap round curves (common practice: room for the blade)', () => {
 		// Two half-discs of radius 200 turned end for end: curve against curve, so they stand 3 mm apart.
-		const half = Array.from({ length: 33 }, (_, k) => pt(200 * Math.sin((Math.PI * k) / 32), 200 - 200 * Math.cos((Math.PI * k) / 32)));
+		const half = Array.from({ length: 33 }, (_, k) =>
+			pt(200 * Math.sin((Math.PI * k) / 32), 200 - 200 * Math.cos((Math.PI * k) / 32))
+		);
 		const result = nestMarker([item(half, { quantity: 2 })], { width: 203, gapMm: 3 })!;
 		expectSound(result, 3);
 		const [a, b] = result.placements.map((p) => p.box);
@@ -111,7 +114,8 @@ describe('marker: hand-checked shapes', () => {
 		// An asymmetric quadrilateral: only a reflection, never a turn, makes its other half.
 		const shape = [pt(0, 0), pt(200, 0), pt(260, 500), pt(0, 420)];
 		const result = nestMarker([item(shape, { quantity: 2, mirrorPairs: true })], { width: 700 })!;
-		const [left, right] = result.placements;
+		// One of each hand, whichever was laid first.
+		const [left, right] = [...result.placements].sort((a, b) => Number(a.mirrored) - Number(b.mirrored));
 		expect([left.mirrored, right.mirrored]).toEqual([false, true]);
 		// A reflection reverses the outline's sense of travel; a turn keeps it.
 		expect(Math.sign(signedArea(left.outline))).toBe(-Math.sign(signedArea(right.outline)));
@@ -151,6 +155,36 @@ const clothSpec = (extra: Partial<FabricSpec> = {}): FabricSpec => ({ ...default
 const draftOf = (id: string): DraftPiece[] =>
 	draftIn(templates[id as keyof typeof templates], 'cm', standardBodyCm).pieces;
 
+describe('marker: properties', () => {
+	// Star-shaped polygons (every vertex seen from the middle): convex and concave, some with straight runs.
+	const polygon = fc
+		.array(fc.integer({ min: 40, max: 200 }), { minLength: 3, maxLength: 9 })
+		.map((radii) =>
+			radii.map((r, k) =>
+				pt(200 + r * Math.cos((2 * Math.PI * k) / radii.length), 200 + r * Math.sin((2 * Math.PI * k) / radii.length))
+			)
+		);
+	const pieceArb = fc.record({
+		outline: polygon,
+		quantity: fc.integer({ min: 1, max: 2 }),
+		rotation: fc.constantFrom<MarkerItem['rotation']>('none', '180', 'any'),
+		mirrorPairs: fc.boolean()
+	});
+
+	it('never overlaps, stays on the cloth, keeps the gap round curves and never beats the area bound', () => {
+		fc.assert(
+			fc.property(fc.array(pieceArb, { minLength: 1, maxLength: 3 }), fc.constantFrom(0, 2), (pieces, gap) => {
+				const items = pieces.map((p) => item(p.outline, p));
+				const result = nestMarker(items, { width: 900, gapMm: gap, orderings: 3 });
+				if (!result) return;
+				expectSound(result, gap);
+				expect(result.placements).toHaveLength(items.reduce((n, i) => n + i.quantity, 0));
+			}),
+			{ numRuns: 25, seed: 20261202 }
+		);
+	}, 30_000);
+});
+
 describe('marker: every garment', () => {
 	const cases = Object.keys(templates).flatMap((garment) =>
 		[true, false].flatMap((folded) => [true, false].map((directional) => ({ garment, folded, directional })))
@@ -163,7 +197,7 @@ describe('marker: every garment', () => {
 			const spec = clothSpec({ folded: c.folded, directional: c.directional });
 			const boxes = estimateFabric(pieces, spec, 'cm').estimate!;
 			const items = markerItems(boxes, pieces, spec)!.map((g) => g.item);
-			const marker = nestMarker(items, { width: boxes.layWidthMm, orderings: 2 })!;
+			const marker = nestMarker(items, { width: boxes.layWidthMm, orderings: 1 })!;
 			expectSound(marker, 2);
 			for (const [i, it] of items.entries()) {
 				const placed = marker.placements.filter((p) => p.item === i);
@@ -176,7 +210,7 @@ describe('marker: every garment', () => {
 				expect(placed.every((p) => turns.includes(p.turn))).toBe(true);
 				for (const p of placed) expect(p.grainline[0].x).toBeCloseTo(p.grainline[1].x, 6);
 			}
-			const nested = nestFabricEstimate(boxes, pieces, spec, { budgetMs: Infinity, orderings: 2 });
+			const nested = nestFabricEstimate(boxes, pieces, spec, { budgetMs: Infinity, orderings: 1 });
 			expect(nested.efficiency).toBeGreaterThanOrEqual(boxes.efficiency - 1e-12);
 			expect(nested.packedMm).toBeLessThanOrEqual(boxes.packedMm);
 			expect(nested.rounded.mm).toBeGreaterThanOrEqual(nested.lengthMm - 1e-6);
@@ -203,6 +237,24 @@ describe('marker: every garment', () => {
 		expect(boundingBox(pieces.find((p) => p.id === 'waistband')!.outline).height).toBeGreaterThan(box.height + 100);
 		// The grain arrow lies along the cloth.
 		expect(item.grainline[0].x).toBeCloseTo(item.grainline[1].x, 6);
+	});
+
+	it('lays the straight skirt’s band halves across the folded cloth below the skirt, and says so', () => {
+		const pieces = draftOf('straight-skirt');
+		const spec = clothSpec();
+		const boxes = estimateFabric(pieces, spec, 'cm').estimate!;
+		const nested = nestFabricEstimate(boxes, pieces, spec, { budgetMs: Infinity, orderings: 6 });
+		// Boxes: front and back side by side (66.7 cm), the band halves lengthwise below them (42 cm more).
+		expect(boxes.packedMm).toBeGreaterThan(1000);
+		// Marker: the halves turned across take 9.5 cm below the skirt instead (hand check: 667 + 95 + gap).
+		expect(nested.packedMm).toBeLessThan(780);
+		expect(nested.efficiency).toBeGreaterThan(boxes.efficiency);
+		const band = nested.placements.filter((p) => p.pieceId === 'waistband');
+		expect(band.every((p) => p.w > p.h)).toBe(true);
+		// The arrow still runs along the cloth, and the note tells the cutter the band is cut across.
+		for (const p of band) expect(p.grainline![0].x).toBeCloseTo(p.grainline![1].x, 6);
+		expect(nested.notes.some((n) => n.startsWith('Waistband: cut across the cloth (crosswise grain)'))).toBe(true);
+		expect(nested.notes.some((n) => n.startsWith('Waistband: cut in two pieces'))).toBe(true);
 	});
 
 	it('halves the cloth for four skirt gores that interlock end for end (hand check)', () => {

@@ -109,9 +109,9 @@ interface Context {
  */
 function baseNoFit(context: Context, fixed: BaseShapes, moving: BaseShapes, relative: Linear): Paths64 {
 	let row = context.baseNfps.get(fixed);
-	if (!row) context.baseNfps.set(fixed, (row = new Map()));
+	if (!row) context.baseNfps.set(fixed, (row = new Map<BaseShapes, Map<string, Paths64>>()));
 	let cell = row.get(moving);
-	if (!cell) row.set(moving, (cell = new Map()));
+	if (!cell) row.set(moving, (cell = new Map<string, Paths64>()));
 	const key = relative.join(',');
 	let nfp = cell.get(key);
 	// B ⊕ −(R⁻¹A) = −R⁻¹·(A ⊕ −(R·B)): the polygon the other way round, if known, only needs mapping.
@@ -127,7 +127,10 @@ function baseNoFit(context: Context, fixed: BaseShapes, moving: BaseShapes, rela
 		nfp =
 			fixed.clear === fixed.shape && moving.clear === moving.shape
 				? noFitPolygon(fixed.shape, shape)
-				: union([...noFitPolygon(fixed.clear, shape), ...noFitPolygon(fixed.shape, applyLinear(relative, moving.clear))]);
+				: union([
+						...noFitPolygon(fixed.clear, shape),
+						...noFitPolygon(fixed.shape, applyLinear(relative, moving.clear))
+					]);
 		cell.set(key, nfp);
 	}
 	return nfp;
@@ -241,7 +244,8 @@ function placeAll(
 		if (overdue()) return null;
 		let best: Placed | null = null;
 		for (const variant of unit.variants) {
-			if (unit.perHand !== undefined && (hands.get(handKey(unit.item, variant.mirrored)) ?? 0) >= unit.perHand) continue;
+			if (unit.perHand !== undefined && (hands.get(handKey(unit.item, variant.mirrored)) ?? 0) >= unit.perHand)
+				continue;
 			for (const c of candidates(context, placed, unit, variant, seen)) {
 				if (!best || better(rule, c, variant, best, reach)) {
 					best = { unit, variant, x: c.x, y: c.y };

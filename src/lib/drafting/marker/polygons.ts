@@ -51,13 +51,16 @@ export function splitOutline(path: Path64): { runs: Array<{ points: Path64; stra
 		const b = path[i];
 		const c = path[(i + 1) % n];
 		const turn = Math.abs(
-			Math.atan2((b.x - a.x) * (c.y - b.y) - (b.y - a.y) * (c.x - b.x), (b.x - a.x) * (c.x - b.x) + (b.y - a.y) * (c.y - b.y))
+			Math.atan2(
+				(b.x - a.x) * (c.y - b.y) - (b.y - a.y) * (c.x - b.x),
+				(b.x - a.x) * (c.x - b.x) + (b.y - a.y) * (c.y - b.y)
+			)
 		);
 		if (turn > sharpest) [sharpest, start] = [turn, i];
 	}
 	const ring = [...path.slice(start), ...path.slice(0, start), path[start]];
 	const straightEdge = new Array<boolean>(n).fill(false);
-	for (let i = 0; i < n; ) {
+	for (let i = 0; i < n;) {
 		let j = i + 1;
 		while (j + 1 <= n && collinear(ring, i, j + 1)) j++;
 		if (Math.hypot(ring[j].x - ring[i].x, ring[j].y - ring[i].y) >= minLength) {
@@ -136,7 +139,10 @@ export function nestingShapes(outline: readonly Point[], toleranceMm: number, ga
 	const grow = (delta: number) =>
 		delta > 0 ? Clipper.inflatePaths(chains, delta, JoinType.Miter, end, 2) : ([] as Paths64);
 	const shape = largest(Clipper.union([body, ...grow(Math.ceil(stray))], FillRule.NonZero));
-	const clear = gapMm > 0 ? largest(Clipper.union([shape, ...grow(Math.ceil(stray + gapMm * unitsPerMm))], FillRule.NonZero)) : shape;
+	const clear =
+		gapMm > 0
+			? largest(Clipper.union([shape, ...grow(Math.ceil(stray + gapMm * unitsPerMm))], FillRule.NonZero))
+			: shape;
 	return { shape, clear };
 }
 
@@ -145,7 +151,8 @@ function chainShortfall(original: Path64, simplified: Path64): number {
 	let worst = 0;
 	for (const p of original) {
 		let nearest = Infinity;
-		for (let i = 0; i + 1 < simplified.length; i++) nearest = Math.min(nearest, segmentDistance(p, simplified[i], simplified[i + 1]));
+		for (let i = 0; i + 1 < simplified.length; i++)
+			nearest = Math.min(nearest, segmentDistance(p, simplified[i], simplified[i + 1]));
 		worst = Math.max(worst, nearest);
 	}
 	return worst;

@@ -153,6 +153,10 @@ export function variantsFor(item: MarkerItem, toleranceMm: number, gapMm: number
 	const plain = turns.map((t) => makeVariant(item, base, t, false));
 	const hands = item.mirrorPairs || item.eitherHand;
 	const mirrored = hands ? turns.map((t) => makeVariant(item, base, t, true)) : plain;
-	if (item.eitherHand) return [[...plain, ...mirrored], [...plain, ...mirrored]];
+	if (item.eitherHand)
+		return [
+			[...plain, ...mirrored],
+			[...plain, ...mirrored]
+		];
 	return [plain, mirrored];
 }
