@@ -215,9 +215,13 @@ describe('marker: every garment', () => {
 			expect(nested.packedMm).toBeLessThanOrEqual(boxes.packedMm);
 			expect(nested.rounded.mm).toBeGreaterThanOrEqual(nested.lengthMm - 1e-6);
 			if (nested.nested) expect(nested.packedMm).toBeGreaterThanOrEqual(nested.nested.areaBoundMm - 1e-6);
-			// Every cut the boxes made, copies laid head to tail included, is cut from the marker too.
-			const cuts = (e: typeof boxes) => e.placements.reduce((sum, p) => sum + p.yields, 0);
+			// Every cut the boxes made, copies laid head to tail included, is cut from the marker too (a band the
+			// marker cuts in two, as the boxes may, counts twice).
+			const cuts = (e: typeof boxes) =>
+				e.placements.reduce((sum, p) => sum + (p.pieceId === 'waistband' ? 0 : p.yields), 0);
 			expect(cuts(nested)).toBe(cuts(boxes));
+			const bands = (e: typeof boxes) => e.placements.filter((p) => p.pieceId === 'waistband');
+			if (bands(boxes).length) expect(bands(nested).length).toBeGreaterThanOrEqual(bands(boxes).length);
 			// Nesting on a busy machine: the first ordering computes every no-fit polygon.
 		},
 		30_000
@@ -254,6 +258,22 @@ describe('marker: every garment', () => {
 		// The arrow still runs along the cloth, and the note tells the cutter the band is cut across.
 		for (const p of band) expect(p.grainline![0].x).toBeCloseTo(p.grainline![1].x, 6);
 		expect(nested.notes.some((n) => n.startsWith('Waistband: cut across the cloth (crosswise grain)'))).toBe(true);
+		expect(nested.notes.some((n) => n.startsWith('Waistband: cut in two pieces'))).toBe(true);
+	});
+
+	it('cuts the band in two when the halves make the marker shorter, as the boxes may (open straight skirt)', () => {
+		const pieces = draftOf('straight-skirt');
+		const spec = clothSpec({ folded: false });
+		const boxes = estimateFabric(pieces, spec, 'cm').estimate!;
+		// The boxes lay the band whole across the cloth below the skirt.
+		expect(boxes.placements.filter((p) => p.pieceId === 'waistband')).toHaveLength(1);
+		const nested = nestFabricEstimate(boxes, pieces, spec, { budgetMs: Infinity, orderings: 40 });
+		expect(nested.packedMm).toBeLessThan(boxes.packedMm);
+		const halves = nested.placements.filter((p) => p.pieceId === 'waistband');
+		expect(halves).toHaveLength(2);
+		// Half the band plus a 15.9 mm join each (5/8 in), by 95 mm.
+		const drafted = boundingBox(pieces.find((p) => p.id === 'waistband')!.outline);
+		for (const h of halves) expect(Math.max(h.w, h.h)).toBeCloseTo(drafted.height / 2 + 15.875, 3);
 		expect(nested.notes.some((n) => n.startsWith('Waistband: cut in two pieces'))).toBe(true);
 	});
 

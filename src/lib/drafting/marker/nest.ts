@@ -356,12 +356,21 @@ export function nestMarker(items: readonly MarkerItem[], options: MarkerOptions)
 	let bestAttempt: { order: Unit[]; rule: Rule } = { order: units, rule: 'far' };
 	let tried = 0;
 	let sinceBetter = 0;
-	const fixed = orders.length * rules.length;
+	// Each fixed ordering with each rule, first with every variant open, then with every piece that may turn
+	// held turned (end for end, or across for a band): turning one piece alone seldom gains, and the search
+	// below changes one piece at a time.
+	const fixed = 2 * orders.length * rules.length;
+	const turnedOnly = units.map((u) => {
+		const turned = u.variants.filter((v) => v.turn !== 0);
+		return turned.length ? { ...u, variants: turned, free: u.variants } : u;
+	});
 	const pick = random();
 	while (tried < maxAttempts && (tried === 0 || !overdue()) && (tried < fixed || sinceBetter < patience)) {
 		let attempt: typeof bestAttempt;
 		if (tried < fixed) {
-			attempt = { order: [...units].sort(orders[Math.floor(tried / rules.length)]), rule: rules[tried % rules.length] };
+			const start = tried < fixed / 2 ? units : turnedOnly;
+			const n = tried % (fixed / 2);
+			attempt = { order: [...start].sort(orders[Math.floor(n / rules.length)]), rule: rules[n % rules.length] };
 		} else {
 			attempt = { order: neighbour(bestAttempt.order, pick), rule: bestAttempt.rule };
 			sinceBetter++;
