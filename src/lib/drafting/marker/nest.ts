@@ -72,8 +72,8 @@ export const defaultGapMm = 2;
 export const flatteningToleranceMm = 1;
 /** Orderings tried at most: the fixed ones, then neighbours of the best so far. */
 export const defaultOrderings = 400;
-/** Swaps tried in a row without a shorter marker before the search stops. */
-const patience = 120;
+/** Neighbours tried in a row without a shorter marker before the search restarts from a shuffled ordering. */
+const patience = 60;
 
 interface Unit {
 	item: number;
@@ -365,28 +365,43 @@ export function nestMarker(items: readonly MarkerItem[], options: MarkerOptions)
 		return turned.length ? { ...u, variants: turned, free: u.variants } : u;
 	});
 	const pick = random();
-	while (tried < maxAttempts && (tried === 0 || !overdue()) && (tried < fixed || sinceBetter < patience)) {
+	// The local search's own best; after `patience` neighbours without a shorter marker it restarts from a
+	// shuffled ordering (a fixed seed, so results repeat), while the overall best is kept.
+	let current = { attempt: bestAttempt, length: Infinity };
+	while (tried < maxAttempts && (tried === 0 || !overdue())) {
 		let attempt: typeof bestAttempt;
+		let restart = false;
 		if (tried < fixed) {
 			const start = tried < fixed / 2 ? units : turnedOnly;
 			const n = tried % (fixed / 2);
 			attempt = { order: [...start].sort(orders[Math.floor(n / rules.length)]), rule: rules[n % rules.length] };
+		} else if (sinceBetter >= patience) {
+			const order = [...units];
+			for (let i = order.length - 1; i > 0; i--) {
+				const j = pick(i + 1);
+				[order[i], order[j]] = [order[j], order[i]];
+			}
+			attempt = { order, rule: rules[pick(rules.length)] };
+			restart = true;
+			sinceBetter = 0;
 		} else {
-			attempt = { order: neighbour(bestAttempt.order, pick), rule: bestAttempt.rule };
+			attempt = { order: neighbour(current.attempt.order, pick), rule: current.attempt.rule };
 			sinceBetter++;
 		}
 		tried++;
 		// A shape reaches at most a millimetre or so past its cutting line (the flattening's stray, rounding).
-		const giveUpAt = bestLength * unitsPerMm + 2 * unitsPerMm;
+		const giveUpAt = restart ? Infinity : Math.min(current.length, bestLength) * unitsPerMm + 2 * unitsPerMm;
 		const placed = placeAll(context, attempt.order, attempt.rule, overdue, giveUpAt);
-		if (placed) {
-			const length = markerLength(placed);
-			if (length < bestLength - 1e-6) {
-				best = placed;
-				bestLength = length;
-				bestAttempt = attempt;
-				sinceBetter = 0;
-			}
+		if (!placed) continue;
+		const length = markerLength(placed);
+		if (restart || length < current.length - 1e-6) {
+			current = { attempt, length };
+			if (!restart) sinceBetter = 0;
+		}
+		if (length < bestLength - 1e-6) {
+			best = placed;
+			bestLength = length;
+			bestAttempt = attempt;
 		}
 	}
 	if (!best) return null;
