@@ -86,7 +86,11 @@ function row(garment: string, cloth: string, boxes: FabricEstimate, nested: Fabr
 	const sound = nested.packedMm >= bound - 1e-6 && nested.packedMm >= tallest - 1e-6;
 	const fast = ms <= 2000;
 	const verdict = [
-		wins ? 'better' : optimal ? 'tied: rectangles at the longest piece' : 'NOT BETTER',
+		wins
+			? 'better'
+			: optimal
+				? `at the lower bound: ${cm(boxes.packedMm)} cm = longest piece ${cm(tallest)} cm`
+				: 'NOT BETTER',
 		sound ? '' : 'BELOW BOUND',
 		fast ? '' : 'SLOW'
 	]

@@ -104,6 +104,24 @@ describe('marker: hand-checked shapes', () => {
 		expectSound(result, 3);
 	});
 
+	it('stays sound when pieces take quarter turns in either order (no-fit polygons reused the other way round)', () => {
+		// A band that may be cut across and an L-shaped piece free to turn: every relative quarter turn is met
+		// both ways round, so each no-fit polygon is also derived from its mirror-image partner.
+		const band = item([pt(0, 0), pt(95, 0), pt(95, 420), pt(0, 420)], { id: 'band', crosswise: true });
+		const ell = item([pt(0, 0), pt(300, 0), pt(300, 80), pt(90, 80), pt(90, 260), pt(0, 260)], {
+			id: 'ell',
+			rotation: 'any',
+			quantity: 2
+		});
+		for (const order of [
+			[band, ell],
+			[ell, band]
+		]) {
+			const result = nestMarker(order, { width: 480, gapMm: 2, orderings: 60 })!;
+			expectSound(result, 2);
+		}
+	});
+
 	it('needs no gap at the selvedges or the fold: the piece edge is the cut line there', () => {
 		const result = nestMarker([item([pt(0, 0), pt(300, 0), pt(300, 100), pt(0, 100)])], { width: 300, gapMm: 2 })!;
 		expect(result.length).toBeCloseTo(100, 6);

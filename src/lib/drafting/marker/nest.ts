@@ -114,11 +114,11 @@ function baseNoFit(context: Context, fixed: BaseShapes, moving: BaseShapes, rela
 	if (!cell) row.set(moving, (cell = new Map<string, Paths64>()));
 	const key = relative.join(',');
 	let nfp = cell.get(key);
-	// B ⊕ −(R⁻¹A) = −R⁻¹·(A ⊕ −(R·B)): the polygon the other way round, if known, only needs mapping.
+	// A ⊕ −(R·B) = −R·(B ⊕ −(R⁻¹·A)): the polygon the other way round, if known, only needs mapping.
 	const back = invert(relative);
 	const known = nfp ? undefined : context.baseNfps.get(moving)?.get(fixed)?.get(back.join(','));
 	if (known) {
-		const negated: Linear = [-back[0], -back[1], -back[2], -back[3]];
+		const negated: Linear = [-relative[0], -relative[1], -relative[2], -relative[3]];
 		nfp = known.map((p) => applyLinear(negated, p));
 		cell.set(key, nfp);
 	}
