@@ -174,6 +174,14 @@ function nestCloth(
 ): FabricEstimate {
 	const laidGroups = markerItems(estimate, pieces, spec);
 	if (!laidGroups?.length) return estimate;
+	// No marker is shorter than its longest piece that cannot turn across: boxes already that short stand.
+	const longest = Math.max(
+		...laidGroups
+			.filter((g) => !g.item.crosswise && g.item.rotation !== 'any')
+			.map((g) => boundingBox(g.item.outline).height),
+		0
+	);
+	if (estimate.packedMm <= longest + 1e-6) return estimate;
 	const nest = (groups: readonly Group[], budgetMs: number) =>
 		nestMarker(
 			groups.map((g) => g.item),
