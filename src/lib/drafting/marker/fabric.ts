@@ -6,9 +6,9 @@ import {
 	type FabricPlacement,
 	type FabricSpec
 } from '../fabric';
-import { boundingBox, translate, type Point } from '../geometry';
+import { boundingBox, pt, translate, type Point } from '../geometry';
 import type { DraftPiece } from '../pieces';
-import { formatFabricLength, roundUpFabric } from '../units';
+import { formatFabricLength, formatLength, roundUpFabric, type Unit } from '../units';
 import { nestMarker, type MarkerItem } from './nest';
 import { toPath, toPoints, union } from './polygons';
 
@@ -30,6 +30,14 @@ function laidOutline(p: FabricPlacement): Point[] {
 }
 
 const near = (a: number, b: number) => Math.abs(a - b) < 1e-6;
+
+/** A band the boxes laid across the cloth: its laid length runs across where the drafted one runs along. */
+function crosswiseAsLaid(piece: DraftPiece, outline: readonly Point[]): boolean {
+	if (!piece.mayCut?.crosswise) return false;
+	const drafted = boundingBox(piece.outline);
+	const laid = boundingBox(outline);
+	return drafted.height >= drafted.width ? laid.width > laid.height : laid.height > laid.width;
+}
 
 /**
  * The grainline on the outline as laid: the piece's own when the piece lies as drafted (moved with it), else
@@ -56,7 +64,7 @@ function laidGrainline(piece: DraftPiece, p: FabricPlacement, outline: readonly 
  */
 export function markerItems(estimate: FabricEstimate, pieces: readonly DraftPiece[], spec: FabricSpec) {
 	const byId = new Map(pieces.map((p) => [p.id, p]));
-	const groups = new Map<string, { item: MarkerItem; yields: number; unfolded: boolean }>();
+	const groups = new Map<string, { item: MarkerItem; yields: number; unfolded: boolean; crosswiseLaid: boolean }>();
 	for (const p of estimate.placements) {
 		const key = `${p.pieceId}|${p.unfolded}`;
 		// A box laid head to tail holds two copies; an opened-out fold piece is one cut drawn in two halves.
@@ -80,8 +88,11 @@ export function markerItems(estimate: FabricEstimate, pieces: readonly DraftPiec
 				quantity: copies,
 				rotation: spec.directional ? 'none' : '180',
 				onFold: estimate.folded && piece.cut.onFold,
-				mirrorPairs: !estimate.folded && piece.cut.pair
-			}
+				mirrorPairs: !estimate.folded && piece.cut.pair,
+				eitherHand: estimate.folded && piece.cut.pair && !piece.cut.onFold,
+				crosswise: piece.mayCut?.crosswise ?? false
+			},
+			crosswiseLaid: p.unfolded ? false : crosswiseAsLaid(piece, outline)
 		});
 	}
 	return [...groups.values()];
@@ -118,25 +129,104 @@ export function nestFabricEstimate(
 	};
 }
 
+type Group = NonNullable<ReturnType<typeof markerItems>>[number];
+
+/**
+ * A band the boxes laid whole that may also be cut in two (each half plus its join): the marker's items with
+ * the halves instead, as the rectangle layout's own option; null when there is no such band.
+ */
+function bandInTwo(groups: readonly Group[], pieces: readonly DraftPiece[], unit: Unit) {
+	const byId = new Map(pieces.map((p) => [p.id, p]));
+	for (const [i, g] of groups.entries()) {
+		const piece = byId.get(g.item.id);
+		const join = piece?.mayCut?.inTwo?.joinMm;
+		if (!piece || join === undefined || g.unfolded) continue;
+		const drafted = boundingBox(piece.outline);
+		const laid = boundingBox(g.item.outline);
+		const whole = near(laid.width * laid.height, drafted.width * drafted.height);
+		if (!whole) continue;
+		const half = drafted.height / 2 + join;
+		const outline = [pt(0, 0), pt(drafted.width, 0), pt(drafted.width, half), pt(0, half)];
+		const x = drafted.width / 2;
+		const item = {
+			...g.item,
+			outline,
+			grainline: [pt(x, half * 0.2), pt(x, half * 0.8)] as [Point, Point],
+			quantity: 2 * g.item.quantity,
+			mirrorPairs: false,
+			eitherHand: false
+		};
+		const halves: Group = { item, yields: g.yields, unfolded: false, crosswiseLaid: false };
+		const note = `${piece.label}: cut in two pieces, each half the length plus ${formatLength(join, unit, { withUnit: true })} to join; seam them together before attaching. That saves cloth.`;
+		return { groups: groups.map((other, j) => (j === i ? halves : other)), label: piece.label, note };
+	}
+	return null;
+}
+
+/** Share of the budget the items as the boxes laid them get when a band may also be nested in two. */
+const asLaidShare = 0.6;
+
 function nestCloth(
 	estimate: FabricEstimate,
 	pieces: readonly DraftPiece[],
 	spec: FabricSpec,
 	budget: NestBudget
 ): FabricEstimate {
-	const groups = markerItems(estimate, pieces, spec);
-	if (!groups?.length) return estimate;
-	const marker = nestMarker(
-		groups.map((g) => g.item),
-		{
-			width: estimate.layWidthMm,
-			yStep: spec.repeatMm,
-			budgetMs: budget.budgetMs,
-			orderings: budget.orderings,
-			gapMm: budget.gapMm
-		}
+	const laidGroups = markerItems(estimate, pieces, spec);
+	if (!laidGroups?.length) return estimate;
+	// No marker is shorter than its longest piece that cannot turn across: boxes already that short stand.
+	const longest = Math.max(
+		...laidGroups
+			.filter((g) => !g.item.crosswise && g.item.rotation !== 'any')
+			.map((g) => boundingBox(g.item.outline).height),
+		0
 	);
+	if (estimate.packedMm <= longest + 1e-6) return estimate;
+	const nest = (groups: readonly Group[], budgetMs: number) =>
+		nestMarker(
+			groups.map((g) => g.item),
+			{
+				width: estimate.layWidthMm,
+				yStep: spec.repeatMm,
+				budgetMs,
+				orderings: budget.orderings,
+				gapMm: budget.gapMm
+			}
+		);
+	const unit: Unit = estimate.rounded.buyUnit === 'yd' ? 'in' : 'cm';
+	const inTwo = bandInTwo(laidGroups, pieces, unit);
+	const started = performance.now();
+	let groups = laidGroups;
+	let marker = nest(laidGroups, inTwo ? budget.budgetMs * asLaidShare : budget.budgetMs);
+	const notes = [...estimate.notes];
+	if (inTwo) {
+		const left = Math.max(budget.budgetMs - (performance.now() - started), budget.budgetMs * (1 - asLaidShare));
+		const halves = nest(inTwo.groups, left);
+		if (halves && (!marker || halves.length < marker.length - 1e-6)) {
+			marker = halves;
+			groups = inTwo.groups;
+			// The boxes' note on how the band is cut gives way to the halves'.
+			const at = notes.findIndex((n) => n.startsWith(`${inTwo.label}: cut`));
+			if (at >= 0) notes.splice(at, 1);
+			notes.unshift(inTwo.note);
+		}
+	}
 	if (!marker || marker.length >= estimate.packedMm - 1e-6) return estimate;
+	// A band the marker turned a quarter from how the boxes laid it: the note says which way it is cut now.
+	for (const [i, g] of groups.entries()) {
+		const turned = marker.placements.filter((m) => m.item === i && (m.turn === 90 || m.turn === 270)).length;
+		if (!turned) continue;
+		const all = marker.placements.filter((m) => m.item === i).length;
+		const across = `${g.item.label}: cut across the cloth (crosswise grain)`;
+		const at = notes.findIndex((n) => n.startsWith(across));
+		if (at >= 0) notes.splice(at, 1);
+		const some = turned < all ? `${turned} of the ${all} pieces` : all > 1 ? 'every piece' : 'it';
+		notes.push(
+			g.crosswiseLaid
+				? `${g.item.label}: cut along the grain (${some}), as the marker shows; that saves cloth.`
+				: `${g.item.label}: cut across the cloth (crosswise grain) — ${some} — where the marker shows it; that saves cloth.`
+		);
+	}
 	const shrink = estimate.shrinkagePercent / 100;
 	const lengthMm = marker.length / (1 - shrink);
 	const buyUnit = estimate.rounded.buyUnit;
@@ -166,6 +256,7 @@ function nestCloth(
 		// The same cuts on a shorter length: the cloth used rises in the ratio of the lengths.
 		efficiency: (estimate.efficiency * estimate.packedMm) / marker.length,
 		placements,
+		notes,
 		nested: { boxLengthMm: estimate.packedMm, areaBoundMm: marker.areaBound }
 	};
 }

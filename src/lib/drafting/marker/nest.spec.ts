@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { defaultFabricSpec, estimateFabric, type FabricSpec } from '../fabric';
 import { boundingBox, distance, mirrorX, polygonArea, pt, type Point } from '../geometry';
@@ -7,7 +8,7 @@ import { templates } from '../templates/index';
 import { draftIn, standardBodyCm } from '../templates/test-support';
 import { markerItems, nestFabricEstimate } from './fabric';
 import { nestMarker, type MarkerItem, type MarkerResult } from './nest';
-import { areaOutside, grownOutline, overlapArea } from './polygons';
+import { areaOutside, curvedRuns, overlapArea, reachOf } from './polygons';
 
 const item = (outline: Point[], extra: Partial<MarkerItem> = {}): MarkerItem => ({
 	id: 'piece',
@@ -49,10 +50,13 @@ function expectSound(result: MarkerResult, gapMm: number) {
 		}
 	}
 	if (gapMm > 0) {
-		// The cutting gap: every outline grown by just under half the gap still overlaps no other.
-		const grown = outlines.map((o) => grownOutline(o, gapMm / 2 - 0.05));
-		for (let i = 0; i < grown.length; i++) {
-			for (let j = i + 1; j < grown.length; j++) expect(overlapArea(grown[i], grown[j])).toBeLessThan(0.01);
+		// The cutting gap: whatever lies within just under the gap of a curve belongs to no other piece
+		// (straight runs may share a cutting line, so only the curves carry the gap).
+		for (let i = 0; i < outlines.length; i++) {
+			const reach = reachOf(curvedRuns(outlines[i]), gapMm - 0.05);
+			for (let j = 0; j < outlines.length; j++) {
+				if (i !== j) for (const r of reach) expect(overlapArea(r, outlines[j])).toBeLessThan(0.01);
+			}
 		}
 	}
 	expect(result.length).toBeGreaterThanOrEqual(result.areaBound - 1e-6);
@@ -79,18 +83,57 @@ describe('marker: hand-checked shapes', () => {
 		expectSound(result, 0);
 	});
 
-	it('leaves the cutting gap between pieces (common practice: room for the blade)', () => {
-		const tri = item(triangle(300, 800), { quantity: 2 });
-		const result = nestMarker([tri], { width: 400, gapMm: 3 })!;
+	it('leaves the cutting gap round curves (common practice: room for the blade)', () => {
+		// Two half-discs of radius 200 turned end for end: curve against curve, so they stand 3 mm apart.
+		const half = Array.from({ length: 33 }, (_, k) =>
+			pt(200 * Math.sin((Math.PI * k) / 32), 200 - 200 * Math.cos((Math.PI * k) / 32))
+		);
+		const result = nestMarker([item(half, { quantity: 2 })], { width: 203, gapMm: 3 })!;
 		expectSound(result, 3);
-		expect(result.length).toBeGreaterThan(800);
+		const [a, b] = result.placements.map((p) => p.box);
+		expect(Math.max(a.x + a.width, b.x + b.width)).toBeLessThanOrEqual(203 + 1e-6);
+		// Side by side the flat sides would touch with no gap; the curves need 3 mm, so they cannot.
+		expect(result.length).toBeGreaterThan(400);
+	});
+
+	it('lets straight edges share one cutting line, with no gap (common practice: common cut line)', () => {
+		// Two right triangles turned end for end share their long edge: 300 × 800, even with a 3 mm gap.
+		const tri = item(triangle(300, 800), { quantity: 2 });
+		const result = nestMarker([tri], { width: 300, gapMm: 3 })!;
+		expect(result.length).toBeCloseTo(800, 1);
+		expectSound(result, 3);
+	});
+
+	it('stays sound when pieces take quarter turns in either order (no-fit polygons reused the other way round)', () => {
+		// A band that may be cut across and an L-shaped piece free to turn: every relative quarter turn is met
+		// both ways round, so each no-fit polygon is also derived from its mirror-image partner.
+		const band = item([pt(0, 0), pt(95, 0), pt(95, 420), pt(0, 420)], { id: 'band', crosswise: true });
+		const ell = item([pt(0, 0), pt(300, 0), pt(300, 80), pt(90, 80), pt(90, 260), pt(0, 260)], {
+			id: 'ell',
+			rotation: 'any',
+			quantity: 2
+		});
+		for (const order of [
+			[band, ell],
+			[ell, band]
+		]) {
+			const result = nestMarker(order, { width: 480, gapMm: 2, orderings: 60 })!;
+			expectSound(result, 2);
+		}
+	});
+
+	it('needs no gap at the selvedges or the fold: the piece edge is the cut line there', () => {
+		const result = nestMarker([item([pt(0, 0), pt(300, 0), pt(300, 100), pt(0, 100)])], { width: 300, gapMm: 2 })!;
+		expect(result.length).toBeCloseTo(100, 6);
+		expect(result.placements[0].box.x).toBeCloseTo(0, 6);
 	});
 
 	it('lays a pair on open cloth as a piece and its mirror image', () => {
 		// An asymmetric quadrilateral: only a reflection, never a turn, makes its other half.
 		const shape = [pt(0, 0), pt(200, 0), pt(260, 500), pt(0, 420)];
 		const result = nestMarker([item(shape, { quantity: 2, mirrorPairs: true })], { width: 700 })!;
-		const [left, right] = result.placements;
+		// One of each hand, whichever was laid first.
+		const [left, right] = [...result.placements].sort((a, b) => Number(a.mirrored) - Number(b.mirrored));
 		expect([left.mirrored, right.mirrored]).toEqual([false, true]);
 		// A reflection reverses the outline's sense of travel; a turn keeps it.
 		expect(Math.sign(signedArea(left.outline))).toBe(-Math.sign(signedArea(right.outline)));
@@ -130,6 +173,36 @@ const clothSpec = (extra: Partial<FabricSpec> = {}): FabricSpec => ({ ...default
 const draftOf = (id: string): DraftPiece[] =>
 	draftIn(templates[id as keyof typeof templates], 'cm', standardBodyCm).pieces;
 
+describe('marker: properties', () => {
+	// Star-shaped polygons (every vertex seen from the middle): convex and concave, some with straight runs.
+	const polygon = fc
+		.array(fc.integer({ min: 40, max: 200 }), { minLength: 3, maxLength: 9 })
+		.map((radii) =>
+			radii.map((r, k) =>
+				pt(200 + r * Math.cos((2 * Math.PI * k) / radii.length), 200 + r * Math.sin((2 * Math.PI * k) / radii.length))
+			)
+		);
+	const pieceArb = fc.record({
+		outline: polygon,
+		quantity: fc.integer({ min: 1, max: 2 }),
+		rotation: fc.constantFrom<MarkerItem['rotation']>('none', '180', 'any'),
+		mirrorPairs: fc.boolean()
+	});
+
+	it('never overlaps, stays on the cloth, keeps the gap round curves and never beats the area bound', () => {
+		fc.assert(
+			fc.property(fc.array(pieceArb, { minLength: 1, maxLength: 3 }), fc.constantFrom(0, 2), (pieces, gap) => {
+				const items = pieces.map((p) => item(p.outline, p));
+				const result = nestMarker(items, { width: 900, gapMm: gap, orderings: 3 });
+				if (!result) return;
+				expectSound(result, gap);
+				expect(result.placements).toHaveLength(items.reduce((n, i) => n + i.quantity, 0));
+			}),
+			{ numRuns: 25, seed: 20261202 }
+		);
+	}, 30_000);
+});
+
 describe('marker: every garment', () => {
 	const cases = Object.keys(templates).flatMap((garment) =>
 		[true, false].flatMap((folded) => [true, false].map((directional) => ({ garment, folded, directional })))
@@ -142,24 +215,31 @@ describe('marker: every garment', () => {
 			const spec = clothSpec({ folded: c.folded, directional: c.directional });
 			const boxes = estimateFabric(pieces, spec, 'cm').estimate!;
 			const items = markerItems(boxes, pieces, spec)!.map((g) => g.item);
-			const marker = nestMarker(items, { width: boxes.layWidthMm, orderings: 2 })!;
+			const marker = nestMarker(items, { width: boxes.layWidthMm, orderings: 1 })!;
 			expectSound(marker, 2);
 			for (const [i, it] of items.entries()) {
 				const placed = marker.placements.filter((p) => p.item === i);
 				expect(placed).toHaveLength(it.quantity);
 				if (it.onFold) expect(placed.every((p) => Math.abs(p.box.x) < 0.01)).toBe(true);
-				// Grain stays along the cloth: a nap allows no turn, plain cloth end for end only.
-				expect(placed.every((p) => (c.directional ? p.turn === 0 : p.turn === 0 || p.turn === 180))).toBe(true);
+				// Grain stays along the cloth: a nap allows no turn, plain cloth end for end only; a band that may
+				// be cut across may also take a quarter turn (one way only with a nap).
+				const turns = c.directional ? [0] : [0, 180];
+				if (it.crosswise) turns.push(...(c.directional ? [90] : [90, 270]));
+				expect(placed.every((p) => turns.includes(p.turn))).toBe(true);
 				for (const p of placed) expect(p.grainline[0].x).toBeCloseTo(p.grainline[1].x, 6);
 			}
-			const nested = nestFabricEstimate(boxes, pieces, spec, { budgetMs: Infinity, orderings: 2 });
+			const nested = nestFabricEstimate(boxes, pieces, spec, { budgetMs: Infinity, orderings: 1 });
 			expect(nested.efficiency).toBeGreaterThanOrEqual(boxes.efficiency - 1e-12);
 			expect(nested.packedMm).toBeLessThanOrEqual(boxes.packedMm);
 			expect(nested.rounded.mm).toBeGreaterThanOrEqual(nested.lengthMm - 1e-6);
 			if (nested.nested) expect(nested.packedMm).toBeGreaterThanOrEqual(nested.nested.areaBoundMm - 1e-6);
-			// Every cut the boxes made, copies laid head to tail included, is cut from the marker too.
-			const cuts = (e: typeof boxes) => e.placements.reduce((sum, p) => sum + p.yields, 0);
+			// Every cut the boxes made, copies laid head to tail included, is cut from the marker too (a band the
+			// marker cuts in two, as the boxes may, counts twice).
+			const cuts = (e: typeof boxes) =>
+				e.placements.reduce((sum, p) => sum + (p.pieceId === 'waistband' ? 0 : p.yields), 0);
 			expect(cuts(nested)).toBe(cuts(boxes));
+			const bands = (e: typeof boxes) => e.placements.filter((p) => p.pieceId === 'waistband');
+			if (bands(boxes).length) expect(bands(nested).length).toBeGreaterThanOrEqual(bands(boxes).length);
 			// Nesting on a busy machine: the first ordering computes every no-fit polygon.
 		},
 		30_000
@@ -179,6 +259,40 @@ describe('marker: every garment', () => {
 		expect(boundingBox(pieces.find((p) => p.id === 'waistband')!.outline).height).toBeGreaterThan(box.height + 100);
 		// The grain arrow lies along the cloth.
 		expect(item.grainline[0].x).toBeCloseTo(item.grainline[1].x, 6);
+	});
+
+	it('lays the straight skirt’s band halves across the folded cloth below the skirt, and says so', () => {
+		const pieces = draftOf('straight-skirt');
+		const spec = clothSpec();
+		const boxes = estimateFabric(pieces, spec, 'cm').estimate!;
+		const nested = nestFabricEstimate(boxes, pieces, spec, { budgetMs: Infinity, orderings: 6 });
+		// Boxes: front and back side by side (66.7 cm), the band halves lengthwise below them (42 cm more).
+		expect(boxes.packedMm).toBeGreaterThan(1000);
+		// Marker: the halves turned across take 9.5 cm below the skirt instead (hand check: 667 + 95 + gap).
+		expect(nested.packedMm).toBeLessThan(780);
+		expect(nested.efficiency).toBeGreaterThan(boxes.efficiency);
+		const band = nested.placements.filter((p) => p.pieceId === 'waistband');
+		expect(band.every((p) => p.w > p.h)).toBe(true);
+		// The arrow still runs along the cloth, and the note tells the cutter the band is cut across.
+		for (const p of band) expect(p.grainline![0].x).toBeCloseTo(p.grainline![1].x, 6);
+		expect(nested.notes.some((n) => n.startsWith('Waistband: cut across the cloth (crosswise grain)'))).toBe(true);
+		expect(nested.notes.some((n) => n.startsWith('Waistband: cut in two pieces'))).toBe(true);
+	});
+
+	it('cuts the band in two when the halves make the marker shorter, as the boxes may (open straight skirt)', () => {
+		const pieces = draftOf('straight-skirt');
+		const spec = clothSpec({ folded: false });
+		const boxes = estimateFabric(pieces, spec, 'cm').estimate!;
+		// The boxes lay the band whole across the cloth below the skirt.
+		expect(boxes.placements.filter((p) => p.pieceId === 'waistband')).toHaveLength(1);
+		const nested = nestFabricEstimate(boxes, pieces, spec, { budgetMs: Infinity, orderings: 40 });
+		expect(nested.packedMm).toBeLessThan(boxes.packedMm);
+		const halves = nested.placements.filter((p) => p.pieceId === 'waistband');
+		expect(halves).toHaveLength(2);
+		// Half the band plus a 15.9 mm join each (5/8 in), by 95 mm.
+		const drafted = boundingBox(pieces.find((p) => p.id === 'waistband')!.outline);
+		for (const h of halves) expect(Math.max(h.w, h.h)).toBeCloseTo(drafted.height / 2 + 15.875, 3);
+		expect(nested.notes.some((n) => n.startsWith('Waistband: cut in two pieces'))).toBe(true);
 	});
 
 	it('halves the cloth for four skirt gores that interlock end for end (hand check)', () => {

@@ -15,7 +15,17 @@ import {
 	type Path64,
 	type Paths64
 } from './polygons';
-import { variantsFor, type MarkerItem, type Turn, type Variant } from './variants';
+import {
+	applyLinear,
+	compose,
+	invert,
+	variantsFor,
+	type BaseShapes,
+	type Linear,
+	type MarkerItem,
+	type Turn,
+	type Variant
+} from './variants';
 
 export type { MarkerItem, Turn };
 
@@ -60,10 +70,10 @@ export interface MarkerResult {
 
 export const defaultGapMm = 2;
 export const flatteningToleranceMm = 1;
-/** Orderings tried at most: the fixed ones, then swaps of the best so far. */
-export const defaultOrderings = 60;
-/** Swaps tried in a row without a shorter marker before the search stops. */
-const patience = 16;
+/** Orderings tried at most: the fixed ones, then neighbours of the best so far. */
+export const defaultOrderings = 400;
+/** Neighbours tried in a row without a shorter marker before the search restarts from a shuffled ordering. */
+const patience = 60;
 
 interface Unit {
 	item: number;
@@ -71,6 +81,10 @@ interface Unit {
 	variants: Variant[];
 	onFold: boolean;
 	area: number;
+	/** A pair on open cloth: at most this many copies of the item in each hand (either may come first). */
+	perHand?: number;
+	/** Set when the search holds this copy to one variant: all it may take. */
+	free?: Variant[];
 }
 
 interface Placed {
@@ -82,17 +96,59 @@ interface Placed {
 
 interface Context {
 	width: number;
-	margin: number;
 	yStep: number;
 	yLimit: number;
 	nfps: Map<Variant, Map<Variant, Paths64>>;
+	/** No-fit polygons between two items as drafted, one per relative turn or mirror. */
+	baseNfps: Map<BaseShapes, Map<BaseShapes, Map<string, Paths64>>>;
+}
+
+/**
+ * No-fit polygon of `moving` round `fixed` with both as drafted but `moving` under the relative map:
+ * overlap, or a curve of either within the cutting gap of the other (straight runs may share a cut line).
+ */
+function baseNoFit(context: Context, fixed: BaseShapes, moving: BaseShapes, relative: Linear): Paths64 {
+	let row = context.baseNfps.get(fixed);
+	if (!row) context.baseNfps.set(fixed, (row = new Map<BaseShapes, Map<string, Paths64>>()));
+	let cell = row.get(moving);
+	if (!cell) row.set(moving, (cell = new Map<string, Paths64>()));
+	const key = relative.join(',');
+	let nfp = cell.get(key);
+	// A ⊕ −(R·B) = −R·(B ⊕ −(R⁻¹·A)): the polygon the other way round, if known, only needs mapping.
+	const back = invert(relative);
+	const known = nfp ? undefined : context.baseNfps.get(moving)?.get(fixed)?.get(back.join(','));
+	if (known) {
+		const negated: Linear = [-relative[0], -relative[1], -relative[2], -relative[3]];
+		nfp = known.map((p) => applyLinear(negated, p));
+		cell.set(key, nfp);
+	}
+	if (!nfp) {
+		const shape = applyLinear(relative, moving.shape);
+		nfp =
+			fixed.clear === fixed.shape && moving.clear === moving.shape
+				? noFitPolygon(fixed.shape, shape)
+				: union([
+						...noFitPolygon(fixed.clear, shape),
+						...noFitPolygon(fixed.shape, applyLinear(relative, moving.clear))
+					]);
+		cell.set(key, nfp);
+	}
+	return nfp;
 }
 
 function noFit(context: Context, fixed: Variant, moving: Variant): Paths64 {
 	let row = context.nfps.get(fixed);
 	if (!row) context.nfps.set(fixed, (row = new Map<Variant, Paths64>()));
 	let nfp = row.get(moving);
-	if (!nfp) row.set(moving, (nfp = noFitPolygon(fixed.shape, moving.shape)));
+	if (!nfp) {
+		// fixed = F·A + f and moving = V·B + v, so fixed ⊕ −moving = F·(A ⊕ −(F⁻¹V)·B) + f − v: one polygon per
+		// relative map serves every pair of variants with that map.
+		const relative = compose(invert(fixed.linear), moving.linear);
+		const dx = fixed.offset.x - moving.offset.x;
+		const dy = fixed.offset.y - moving.offset.y;
+		nfp = baseNoFit(context, fixed.base, moving.base, relative).map((p) => applyLinear(fixed.linear, p, dx, dy));
+		row.set(moving, nfp);
+	}
 	return nfp;
 }
 
@@ -103,13 +159,14 @@ const stepUp = (y: number, step: number) => Math.ceil(y / step - 1e-9) * step;
 
 /** Lowest, then leftmost, free reference positions for one variant among the placed pieces. */
 function candidates(context: Context, placed: Placed[], unit: Unit, variant: Variant, seen: Blocked): Point[] {
-	const { width, margin, yStep, yLimit } = context;
+	const { width, yStep, yLimit } = context;
 	// Copies of one item share their variants, so the region they may not take grows by the pieces placed since.
 	const known = seen.get(variant);
 	const fresh = placed.slice(known?.upTo ?? 0).flatMap((p) => translate(noFit(context, p.variant, variant), p.x, p.y));
 	const blocked = known && !fresh.length ? known.blocked : union([...(known?.blocked ?? []), ...fresh]);
 	seen.set(variant, { upTo: placed.length, blocked });
-	const top = -margin;
+	// The fold, the selvedges and the cut end need no gap: the piece's own edge is the cut line there.
+	const top = 0;
 	if (unit.onFold) {
 		if (variant.width > width) return [];
 		return lineOutside({ x: 0, y: top }, { x: 0, y: yLimit }, blocked).flatMap((segment) => {
@@ -118,8 +175,8 @@ function candidates(context: Context, placed: Placed[], unit: Unit, variant: Var
 			return y <= b ? [{ x: 0, y }] : [];
 		});
 	}
-	const left = -margin;
-	const right = width + margin - variant.width;
+	const left = 0;
+	const right = width - variant.width;
 	if (right < left) return [];
 	if (yStep > 0) {
 		// The cutting line's top, not the grown shape's, lands on the repeat.
@@ -166,15 +223,29 @@ function better(rule: Rule, c: Point, variant: Variant, best: Placed, reach: num
 	return key < bestKey || (key === bestKey && c.x < best.x);
 }
 
-function placeAll(context: Context, units: Unit[], rule: Rule, overdue: () => boolean): Placed[] | null {
+/**
+ * Lays the copies in order. Null when one cannot be laid, the budget runs out, or the shapes already reach
+ * `giveUpAt` (shape units): that ordering can no longer beat the best marker so far.
+ */
+function placeAll(
+	context: Context,
+	units: Unit[],
+	rule: Rule,
+	overdue: () => boolean,
+	giveUpAt = Infinity
+): Placed[] | null {
 	const placed: Placed[] = [];
 	// How far down the cloth the grown shapes placed so far reach.
 	let reach = 0;
 	const seen: Blocked = new Map();
+	const hands = new Map<string, number>();
+	const handKey = (item: number, mirrored: boolean) => `${item}|${mirrored}`;
 	for (const unit of units) {
 		if (overdue()) return null;
 		let best: Placed | null = null;
 		for (const variant of unit.variants) {
+			if (unit.perHand !== undefined && (hands.get(handKey(unit.item, variant.mirrored)) ?? 0) >= unit.perHand)
+				continue;
 			for (const c of candidates(context, placed, unit, variant, seen)) {
 				if (!best || better(rule, c, variant, best, reach)) {
 					best = { unit, variant, x: c.x, y: c.y };
@@ -183,6 +254,9 @@ function placeAll(context: Context, units: Unit[], rule: Rule, overdue: () => bo
 		}
 		if (!best) return null;
 		placed.push(best);
+		if (best.y + best.variant.height >= giveUpAt) return null;
+		const key = handKey(unit.item, best.variant.mirrored);
+		hands.set(key, (hands.get(key) ?? 0) + 1);
 		reach = Math.max(reach, best.y + best.variant.height);
 	}
 	return placed;
@@ -219,14 +293,33 @@ const orders: Order[] = [
 ];
 
 /** A fixed pseudo-random sequence (a linear congruential generator), so results repeat run to run. */
-function* swaps(count: number): Generator<[number, number]> {
+function random(): (n: number) => number {
 	let seed = 0x2545f491;
-	for (;;) {
+	return (n) => {
 		seed = (Math.imul(seed, 1103515245) + 12345) >>> 0;
-		const i = seed % count;
-		seed = (Math.imul(seed, 1103515245) + 12345) >>> 0;
-		yield [i, (i + 1 + (seed % 3)) % count];
+		return (seed >>> 8) % n;
+	};
+}
+
+/**
+ * A neighbour of an ordering: two copies swap places (the fold pieces stay where the ordering put them), or one
+ * copy is held to one of its allowed turns and hands — bottom-left takes the first of equally low places, so
+ * the turn that would leave room for a later piece is otherwise never tried — or let free again.
+ */
+function neighbour(order: readonly Unit[], pick: (n: number) => number): Unit[] {
+	const next = [...order];
+	const i = pick(next.length);
+	if (pick(2) === 0) {
+		const j = (i + 1 + pick(3)) % next.length;
+		if (next[i].onFold === next[j].onFold) [next[i], next[j]] = [next[j], next[i]];
+		return next;
 	}
+	const unit = next[i];
+	const all = unit.free ?? unit.variants;
+	if (all.length < 2) return next;
+	const k = pick(all.length + 1);
+	next[i] = k === all.length ? { ...unit, variants: all, free: undefined } : { ...unit, variants: [all[k]], free: all };
+	return next;
 }
 
 /** Nests the items on the cloth. Null when a piece cannot fit the width or the budget ran out first. */
@@ -237,20 +330,23 @@ export function nestMarker(items: readonly MarkerItem[], options: MarkerOptions)
 	const tolerance = options.toleranceMm ?? flatteningToleranceMm;
 	const units: Unit[] = [];
 	items.forEach((item, index) => {
-		const [plain, mirrored] = variantsFor(item, tolerance, gap / 2);
+		const [plain, mirrored] = variantsFor(item, tolerance, gap);
 		const area = polygonArea(item.outline);
+		// A pair on open cloth: half the copies in each hand, whichever is laid first.
+		const paired = item.mirrorPairs && !item.eitherHand && item.quantity > 1;
 		for (let copy = 0; copy < item.quantity; copy++) {
-			const variants = copy % 2 && item.mirrorPairs ? mirrored : plain;
-			units.push({ item: index, copy, variants, onFold: item.onFold, area });
+			const variants = paired ? [...plain, ...mirrored] : copy % 2 && item.mirrorPairs ? mirrored : plain;
+			const perHand = paired ? Math.ceil(item.quantity / 2) : undefined;
+			units.push({ item: index, copy, variants, onFold: item.onFold, area, perHand });
 		}
 	});
 	if (!units.length) return null;
 	const context: Context = {
 		width: Math.round(options.width * unitsPerMm),
-		margin: Math.round((gap / 2) * unitsPerMm),
 		yStep: Math.round((options.yStep ?? 0) * unitsPerMm),
 		yLimit: units.reduce((sum, u) => sum + Math.max(...u.variants.map((v) => Math.max(v.width, v.height))), 0) * 2,
-		nfps: new Map()
+		nfps: new Map(),
+		baseNfps: new Map()
 	};
 	const maxAttempts = options.orderings ?? defaultOrderings;
 	const budget = options.budgetMs ?? Infinity;
@@ -260,37 +356,63 @@ export function nestMarker(items: readonly MarkerItem[], options: MarkerOptions)
 	let bestAttempt: { order: Unit[]; rule: Rule } = { order: units, rule: 'far' };
 	let tried = 0;
 	let sinceBetter = 0;
-	const fixed = orders.length * rules.length;
-	const perturb = swaps(units.length);
-	while (tried < maxAttempts && (tried === 0 || !overdue()) && (tried < fixed || sinceBetter < patience)) {
+	// Each fixed ordering with each rule, first with every variant open, then with every piece that may turn
+	// held turned (end for end, or across for a band): turning one piece alone seldom gains, and the search
+	// below changes one piece at a time.
+	const fixed = 2 * orders.length * rules.length;
+	const turnedOnly = units.map((u) => {
+		const turned = u.variants.filter((v) => v.turn !== 0);
+		return turned.length ? { ...u, variants: turned, free: u.variants } : u;
+	});
+	const pick = random();
+	// The local search's own best; after `patience` neighbours without a shorter marker it restarts from a
+	// shuffled ordering (a fixed seed, so results repeat), while the overall best is kept.
+	let current = { attempt: bestAttempt, length: Infinity };
+	while (tried < maxAttempts && (tried === 0 || !overdue())) {
 		let attempt: typeof bestAttempt;
+		let restart = false;
 		if (tried < fixed) {
-			attempt = { order: [...units].sort(orders[Math.floor(tried / rules.length)]), rule: rules[tried % rules.length] };
+			const start = tried < fixed / 2 ? units : turnedOnly;
+			const n = tried % (fixed / 2);
+			attempt = { order: [...start].sort(orders[Math.floor(n / rules.length)]), rule: rules[n % rules.length] };
+		} else if (sinceBetter >= patience) {
+			const order = [...units];
+			for (let i = order.length - 1; i > 0; i--) {
+				const j = pick(i + 1);
+				[order[i], order[j]] = [order[j], order[i]];
+			}
+			attempt = { order, rule: rules[pick(rules.length)] };
+			restart = true;
+			sinceBetter = 0;
 		} else {
-			const order = [...bestAttempt.order];
-			const [i, j] = perturb.next().value as [number, number];
-			// The fold pieces stay where the ordering put them; everything else may swap.
-			if (order[i].onFold === order[j].onFold) [order[i], order[j]] = [order[j], order[i]];
-			attempt = { order, rule: bestAttempt.rule };
+			attempt = { order: neighbour(current.attempt.order, pick), rule: current.attempt.rule };
 			sinceBetter++;
 		}
 		tried++;
-		const placed = placeAll(context, attempt.order, attempt.rule, overdue);
-		if (placed) {
-			const length = markerLength(placed);
-			if (length < bestLength - 1e-6) {
-				best = placed;
-				bestLength = length;
-				bestAttempt = attempt;
-				sinceBetter = 0;
-			}
+		// A shape reaches at most a millimetre or so past its cutting line (the flattening's stray, rounding).
+		const giveUpAt = restart ? Infinity : Math.min(current.length, bestLength) * unitsPerMm + 2 * unitsPerMm;
+		const placed = placeAll(context, attempt.order, attempt.rule, overdue, giveUpAt);
+		if (!placed) continue;
+		const length = markerLength(placed);
+		if (restart || length < current.length - 1e-6) {
+			current = { attempt, length };
+			if (!restart) sinceBetter = 0;
+		}
+		if (length < bestLength - 1e-6) {
+			best = placed;
+			bestLength = length;
+			bestAttempt = attempt;
 		}
 	}
 	if (!best) return null;
 	const width = options.width;
+	// The shapes are held to a hundredth of a millimetre: a cutting line may start that much before the cut end.
+	const before = Math.max(0, ...best.map((p) => -boundingBox(placedOutline(p).outline).y));
 	const placements = best
 		.map((p): MarkerPlacement => {
-			const { outline, grainline } = placedOutline(p);
+			const laid = placedOutline(p);
+			const outline = shift(laid.outline, 0, before);
+			const grainline = shift(laid.grainline, 0, before) as [Point, Point];
 			return {
 				item: p.unit.item,
 				copy: p.unit.copy,
@@ -305,9 +427,9 @@ export function nestMarker(items: readonly MarkerItem[], options: MarkerOptions)
 	const area = units.reduce((sum, u) => sum + u.area, 0);
 	return {
 		width,
-		length: bestLength,
+		length: bestLength + before,
 		placements,
-		efficiency: area / (width * bestLength),
+		efficiency: area / (width * (bestLength + before)),
 		areaBound: area / width,
 		orderingsTried: tried
 	};

@@ -1,6 +1,6 @@
 import { boundingBox, mirrorX, type Point } from '../geometry';
 import type { Rotation } from '../layout';
-import { bounds, clipLeftOf, nestingShape, unitsPerMm, type Path64 } from './polygons';
+import { bounds, clipLeftOf, nestingShapes, unitsPerMm, type Path64 } from './polygons';
 
 export type Turn = 0 | 90 | 180 | 270;
 
@@ -18,6 +18,13 @@ export interface MarkerItem {
 	onFold: boolean;
 	/** Every second copy is the mirror image (left and right of a pair on open cloth). */
 	mirrorPairs: boolean;
+	/**
+	 * Either mirror image will do for any copy: a pair cut through both layers of folded cloth gives a left and
+	 * a right whichever way up the pattern lies.
+	 */
+	eitherHand?: boolean;
+	/** The piece may also be cut across the cloth (a band): a quarter turn is allowed besides the grain rule. */
+	crosswise?: boolean;
 }
 
 /** One way to lay a copy: the turned/mirrored outline and the grown shape that keeps the cutting gap. */
@@ -28,6 +35,12 @@ export interface Variant {
 	grainline: [Point, Point];
 	/** Integer shape with its bounding box's top-left corner at the origin. */
 	shape: Path64;
+	/** The shape with the cutting gap round its curves, in the same frame (see polygons.ts `nestingShapes`). */
+	clear: Path64;
+	/** The item's shapes as drafted, and the map and shift that give this variant's: shape = linear·base + offset. */
+	base: BaseShapes;
+	linear: Linear;
+	offset: { x: number; y: number };
 	width: number;
 	height: number;
 	/** Add to the outline (mm) to bring it into the shape's frame. */
@@ -50,39 +63,100 @@ function turnPoints(points: readonly Point[], turn: Turn): Point[] {
 }
 
 function turnsFor(item: MarkerItem): Turn[] {
-	if (item.rotation === 'none') return [0];
 	// A piece on the fold keeps its fold edge on the fold, so it never takes a quarter turn.
-	if (item.rotation === '180' || item.onFold) return [0, 180];
+	if (item.onFold) return item.rotation === 'none' ? [0] : [0, 180];
+	// A band that may be cut across: with a nap one quarter turn (every crosswise copy the same way), else both.
+	if (item.rotation === 'none') return item.crosswise ? [0, 90] : [0];
+	if (item.rotation === '180' && !item.crosswise) return [0, 180];
 	return [0, 90, 180, 270];
 }
 
-function makeVariant(item: MarkerItem, turn: Turn, mirrored: boolean, toleranceMm: number, growMm: number): Variant {
+/** A linear map of the plane, p ↦ (a·x + b·y, c·x + d·y): the quarter turns and mirrors. */
+export type Linear = readonly [number, number, number, number];
+
+const turnMaps: Record<Turn, Linear> = { 0: [1, 0, 0, 1], 90: [0, -1, 1, 0], 180: [-1, 0, 0, -1], 270: [0, 1, -1, 0] };
+const mirrorMap: Linear = [-1, 0, 0, 1];
+
+export function compose(m: Linear, n: Linear): Linear {
+	return [m[0] * n[0] + m[1] * n[2], m[0] * n[1] + m[1] * n[3], m[2] * n[0] + m[3] * n[2], m[2] * n[1] + m[3] * n[3]];
+}
+
+/** The inverse of a turn or mirror is its transpose. */
+export const invert = (m: Linear): Linear => [m[0], m[2], m[1], m[3]];
+
+/** The path under the map, kept counter-clockwise (a mirror reverses the sense of travel). */
+export function applyLinear(m: Linear, path: Path64, dx = 0, dy = 0): Path64 {
+	const mapped = path.map((p) => ({ x: m[0] * p.x + m[1] * p.y + dx, y: m[2] * p.x + m[3] * p.y + dy }));
+	return m[0] * m[3] - m[1] * m[2] < 0 ? mapped.reverse() : mapped;
+}
+
+/** An item's nesting shapes as drafted (turn 0, not mirrored); every variant is a turn or mirror of them. */
+export interface BaseShapes {
+	shape: Path64;
+	clear: Path64;
+}
+
+function baseShapes(item: MarkerItem, toleranceMm: number, gapMm: number): BaseShapes {
+	let { shape, clear } = nestingShapes(item.outline, toleranceMm, gapMm);
+	if (item.onFold) {
+		const fold = Math.round(boundingBox(item.outline).x * unitsPerMm);
+		shape = clipLeftOf(shape, fold);
+		clear = clipLeftOf(clear, fold);
+	}
+	return { shape, clear: clear === shape ? shape : clear };
+}
+
+function makeVariant(item: MarkerItem, base: BaseShapes, turn: Turn, mirrored: boolean): Variant {
 	// End for end on the fold means flipping about the grain so the fold edge stays on the left.
 	const flipOnFold = item.onFold && turn === 180;
-	const base = mirrored !== flipOnFold ? mirrorX(item.outline) : item.outline;
-	const outline = turnPoints(base, turn);
-	const grainBase = mirrored !== flipOnFold ? mirrorX(item.grainline) : item.grainline;
-	const grain = turnPoints(grainBase, turn) as [Point, Point];
-	let shape = nestingShape(outline, toleranceMm, growMm);
-	if (item.onFold) shape = clipLeftOf(shape, Math.round(boundingBox(outline).x * unitsPerMm));
-	const box = bounds(shape);
+	const flip = mirrored !== flipOnFold;
+	const outline = turnPoints(flip ? mirrorX(item.outline) : item.outline, turn);
+	let grain = turnPoints(flip ? mirrorX(item.grainline) : item.grainline, turn) as [Point, Point];
+	const laid = boundingBox(outline);
+	if (turn === 90 || turn === 270) {
+		// Cut across: the arrow still shows the cloth's lengthwise grain, through the middle of the piece.
+		const x = laid.x + laid.width / 2;
+		grain = [
+			{ x, y: laid.y + laid.height * 0.2 },
+			{ x, y: laid.y + laid.height * 0.8 }
+		];
+	}
+	const linear = flip ? compose(turnMaps[turn], mirrorMap) : turnMaps[turn];
+	const turned = applyLinear(linear, base.shape);
+	const box = bounds(turned);
+	const offset = { x: -box.left, y: -box.top };
+	const shape = applyLinear(linear, base.shape, offset.x, offset.y);
 	return {
 		turn,
 		mirrored,
 		outline,
 		grainline: grain,
-		shape: shape.map((p) => ({ x: p.x - box.left, y: p.y - box.top })),
+		shape,
+		clear: base.clear === base.shape ? shape : applyLinear(linear, base.clear, offset.x, offset.y),
+		base,
+		linear,
+		offset,
 		width: box.right - box.left,
 		height: box.bottom - box.top,
 		shift: { x: -box.left / unitsPerMm, y: -box.top / unitsPerMm },
-		topInset: Math.round(boundingBox(outline).y * unitsPerMm) - box.top
+		topInset: Math.round(laid.y * unitsPerMm) - box.top
 	};
 }
 
-/** The allowed variants for each copy of an item: index 0 for plain copies, 1 for mirrored ones. */
-export function variantsFor(item: MarkerItem, toleranceMm: number, growMm: number): [Variant[], Variant[]] {
+/**
+ * The allowed variants for each copy of an item: index 0 for plain copies, 1 for mirrored ones. An item whose
+ * copies may take either hand gets every variant in both.
+ */
+export function variantsFor(item: MarkerItem, toleranceMm: number, gapMm: number): [Variant[], Variant[]] {
 	const turns = turnsFor(item);
-	const plain = turns.map((t) => makeVariant(item, t, false, toleranceMm, growMm));
-	const mirrored = item.mirrorPairs ? turns.map((t) => makeVariant(item, t, true, toleranceMm, growMm)) : plain;
+	const base = baseShapes(item, toleranceMm, gapMm);
+	const plain = turns.map((t) => makeVariant(item, base, t, false));
+	const hands = item.mirrorPairs || item.eitherHand;
+	const mirrored = hands ? turns.map((t) => makeVariant(item, base, t, true)) : plain;
+	if (item.eitherHand)
+		return [
+			[...plain, ...mirrored],
+			[...plain, ...mirrored]
+		];
 	return [plain, mirrored];
 }
