@@ -48,10 +48,22 @@ export async function computeResponse(task: AnswerableTask): Promise<Response> {
 			};
 		}
 	});
-	return new Response(answer.body, {
+	return new Response(bytesOf(answer), {
 		status: answer.status,
 		headers: { 'content-type': 'application/json', ...answer.headers }
 	});
+}
+
+/** Answers as UTF-8, encoded once: a kept answer sent again is not encoded again. */
+const encoded = new WeakMap<Answer, Uint8Array<ArrayBuffer>>();
+const encoder = new TextEncoder();
+function bytesOf(answer: Answer): Uint8Array<ArrayBuffer> {
+	let bytes = encoded.get(answer);
+	if (!bytes) {
+		bytes = encoder.encode(answer.body);
+		encoded.set(answer, bytes);
+	}
+	return bytes;
 }
 
 /** As computeResponse, with the route shaping the answer from the result (a file rather than JSON); nothing is kept. */
