@@ -18,7 +18,7 @@ async function spend(
 	key: string,
 	times: number
 ) {
-	const outcomes = await Promise.all(Array.from({ length: times }, () => gate(key)));
+	const outcomes = await Promise.all(Array.from({ length: times }, () => Promise.resolve(gate(key))));
 	return outcomes.filter((o) => o.allowed).length;
 }
 
