@@ -36,10 +36,7 @@ export interface DimensionLabel {
 }
 
 /** Distances from the line (in font sizes, negative on the piece's side), then ever further out. */
-function* offsets(): Generator<number> {
-	yield* [0.8, -0.8, 2, -2];
-	for (let k = 3.2; ; k += 1.2) yield k;
-}
+const firstOffsets = [0.8, -0.8, 2, -2];
 /** Places along the line to try, in order. */
 const along = [0.5, 0.35, 0.65, 0.2, 0.8];
 
@@ -55,6 +52,8 @@ export function placeDimensionLabels(
 	obstacles: readonly Rect[]
 ): DimensionLabel[] {
 	const placed: DimensionLabel[] = [];
+	// What a new label must stay clear of: the obstacles, then every label placed so far.
+	const taken: Rect[] = [...obstacles];
 	for (const { from, to, text } of dimensions) {
 		const dx = to.x - from.x;
 		const dy = to.y - from.y;
@@ -66,22 +65,28 @@ export function placeDimensionLabels(
 		let normal = { x: -dy / length, y: dx / length };
 		const away = vertical ? (mid.x > piece.x + piece.width / 2 ? 1 : -1) : mid.y > piece.y + piece.height ? 1 : -1;
 		if ((vertical ? normal.x : normal.y) * away < 0) normal = { x: -normal.x, y: -normal.y };
+		// The label's box is the same wherever it goes: its half sides once, as textRect works them out.
+		const size = textRect({ x: 0, y: 0 }, text, fontSize, rotate);
+		const halfW = size.x1;
+		const halfH = size.y1;
 		// Obstacles are finite, so some distance out is always clear.
 		let label: DimensionLabel | null = null;
-		for (const k of offsets()) {
+		let k = 0;
+		for (let step = 0; !label; step++) {
+			k = step < firstOffsets.length ? firstOffsets[step] : step === firstOffsets.length ? 3.2 : k + 1.2;
 			for (const t of along) {
 				const at = {
 					x: from.x + dx * t + normal.x * k * fontSize,
 					y: from.y + dy * t + normal.y * k * fontSize
 				};
-				const rect = textRect(at, text, fontSize, rotate);
-				if ([...obstacles, ...placed.map((p) => p.rect)].some((other) => rectsOverlap(rect, other))) continue;
+				const rect = { x0: at.x - halfW, y0: at.y - halfH, x1: at.x + halfW, y1: at.y + halfH };
+				if (taken.some((other) => rectsOverlap(rect, other))) continue;
 				label = { from, to, text, at, rotate, fontSize, rect };
 				break;
 			}
-			if (label) break;
 		}
-		placed.push(label!);
+		placed.push(label);
+		taken.push(label.rect);
 	}
 	return placed;
 }

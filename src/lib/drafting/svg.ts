@@ -10,15 +10,36 @@ const ink = '#242733';
 const madder = '#a93c25';
 const woad = '#24495a';
 
+const needsEscape = /[&<>"']/;
+
 export function escapeXml(text: string): string {
+	if (!needsEscape.test(text)) return text;
 	return text.replace(
 		/[&<>"']/g,
 		(c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&apos;' })[c]!
 	);
 }
 
-const n = (value: number) => (Math.round(value * 10) / 10).toString();
-const points = (list: readonly Point[]) => list.map((p) => `${n(p.x)},${n(p.y)}`).join(' ');
+/**
+ * A coordinate to a tenth, as `(Math.round(value * 10) / 10).toString()` writes it ("12.3", "-0.5", "7"),
+ * from whole numbers, which the engine turns into text much faster than fractions.
+ */
+export function n(value: number): string {
+	const tenths = Math.round(value * 10);
+	if (!(tenths > -1e15 && tenths < 1e15)) return (tenths / 10).toString(); // NaN, ±Infinity, huge
+	const negative = tenths < 0;
+	const abs = negative ? -tenths : tenths;
+	const whole = Math.floor(abs / 10);
+	const tenth = abs - whole * 10;
+	const text = tenth === 0 ? `${whole}` : `${whole}.${tenth}`;
+	return negative ? `-${text}` : text;
+}
+
+function points(list: readonly Point[]): string {
+	let out = '';
+	for (let i = 0; i < list.length; i++) out += `${i ? ' ' : ''}${n(list[i].x)},${n(list[i].y)}`;
+	return out;
+}
 
 /** SVG path data for a closed outline: L for straight edges, Q for curved ones. */
 export function pathData(path: CurvedPath): string {
@@ -186,31 +207,52 @@ export interface PieceDrawingLayout {
 /** Screen pixels per drawing unit when `view` is fitted into the phone's drawing box. */
 export const phoneScale = (view: Box) => Math.min(phoneDrawing.width / view.width, phoneDrawing.height / view.height);
 
-function layoutAt(piece: DraftPiece, unit: Unit, size: number): PieceDrawingLayout {
-	const outlineBox = boundingBox(piece.outline);
+/** What a piece's drawing layout needs that does not depend on the text size. */
+interface PieceFacts {
+	piece: DraftPiece;
+	outlineBox: Box;
+	dimensions: { from: Point; to: Point; text: string }[];
+	/** The bounds of the outline, the dimension lines and the marks. */
+	drawn: { minX: number; minY: number; maxX: number; maxY: number };
+}
+
+function pieceFacts(piece: DraftPiece, unit: Unit): PieceFacts {
+	const dimensions: PieceFacts['dimensions'] = [];
+	for (const l of piece.lines)
+		if (l.dimension) dimensions.push({ ...l.dimension, text: formatLength(l.mm, unit, { withUnit: true }) });
+	const drawn = { minX: Infinity, minY: Infinity, maxX: -Infinity, maxY: -Infinity };
+	const extend = ({ x, y }: Point) => {
+		drawn.minX = Math.min(drawn.minX, x);
+		drawn.minY = Math.min(drawn.minY, y);
+		drawn.maxX = Math.max(drawn.maxX, x);
+		drawn.maxY = Math.max(drawn.maxY, y);
+	};
+	piece.outline.forEach(extend);
+	for (const d of dimensions) {
+		extend(d.from);
+		extend(d.to);
+	}
+	for (const m of piece.marks) m.points.forEach(extend);
+	return { piece, outlineBox: boundingBox(piece.outline), dimensions, drawn };
+}
+
+function layoutAt({ piece, outlineBox, dimensions, drawn }: PieceFacts, size: number): PieceDrawingLayout {
 	const name = pieceLabel(piece, outlineBox, size);
 	const fold = piece.cut.onFold ? foldRect(outlineBox, size) : null;
-	const dimensions = piece.lines.flatMap((l) =>
-		l.dimension ? [{ ...l.dimension, text: formatLength(l.mm, unit, { withUnit: true }) }] : []
-	);
 	const labels = placeDimensionLabels(dimensions, size * 0.85, outlineBox, fold ? [name.rect, fold] : [name.rect]);
-	const corners = (r: Rect): Point[] => [
-		{ x: r.x0, y: r.y0 },
-		{ x: r.x1, y: r.y1 }
-	];
-	const content = boundingBox([
-		...piece.outline,
-		...dimensions.flatMap((d) => [d.from, d.to]),
-		...piece.marks.flatMap((m) => m.points),
-		...labels.flatMap((l) => corners(l.rect)),
-		...corners(name.rect)
-	]);
+	let { minX, minY, maxX, maxY } = drawn;
+	for (const r of [...labels.map((l) => l.rect), name.rect]) {
+		minX = Math.min(minX, r.x0, r.x1);
+		minY = Math.min(minY, r.y0, r.y1);
+		maxX = Math.max(maxX, r.x0, r.x1);
+		maxY = Math.max(maxY, r.y0, r.y1);
+	}
 	const margin = size * 1.2;
 	const view = {
-		x: content.x - margin,
-		y: content.y - margin,
-		width: content.width + 2 * margin,
-		height: content.height + 2 * margin
+		x: minX - margin,
+		y: minY - margin,
+		width: maxX - minX + 2 * margin,
+		height: maxY - minY + 2 * margin
 	};
 	return { size, view, outlineBox, name, fold, labels };
 }
@@ -221,17 +263,18 @@ function layoutAt(piece: DraftPiece, unit: Unit, size: number): PieceDrawingLayo
  * bracket and piece name.
  */
 export function pieceLayout(piece: DraftPiece, unit: Unit): PieceDrawingLayout {
+	const facts = pieceFacts(piece, unit);
 	const all = [
 		...piece.outline,
 		...piece.lines.flatMap((l) => (l.dimension ? [l.dimension.from, l.dimension.to] : []))
 	];
 	const box = boundingBox(all);
-	let layout = layoutAt(piece, unit, Math.max(Math.max(box.width, box.height) / 36, 6));
+	let layout = layoutAt(facts, Math.max(Math.max(box.width, box.height) / 36, 6));
 	for (let i = 0; i < 8 && layout.labels.length; i++) {
 		const px = layout.labels[0].fontSize * phoneScale(layout.view);
 		// 1 % in hand: the drawing writes sizes and its view box to a tenth of a unit.
 		if (px >= minLabelPx * 1.01) break;
-		layout = layoutAt(piece, unit, layout.size * (minLabelPx / px) * 1.02);
+		layout = layoutAt(facts, layout.size * (minLabelPx / px) * 1.02);
 	}
 	return layout;
 }

@@ -1,9 +1,10 @@
 import { json } from '@sveltejs/kit';
-import { implausibleCodes, type DraftResponse } from '../../drafting/draft';
+import type { DraftResponse } from '../../drafting/draft';
 import { apiError } from '../http/respond';
 import { answerCache, type Answer } from './answers';
 import { Busy, compute, OverBudget } from './index';
-import type { Task, TaskResult } from './tasks';
+import { implausibleRefusal } from './refusals';
+import type { AnswerableTask, Task, TaskResult } from './tasks';
 
 /** The answer when the task could not be worked out: over its budget (422) or no room in the pool (503). */
 function failure(error: unknown): Response {
@@ -26,18 +27,16 @@ function failure(error: unknown): Response {
 const answers = answerCache({ maxEntries: 500, maxBytes: 32 * 1024 * 1024 });
 
 /**
- * Runs the task off the request thread and answers its JSON, 422 when it ran over budget, 503 when busy.
- * `refuse` may turn a computed result into an error answer instead. What was computed (the answer or the
- * refusal) is kept for the same request; running over budget or finding the pool busy is not.
+ * Runs the task off the request thread and answers its JSON (a draft from implausible measurements: 422),
+ * 422 when it ran over budget, 503 when busy. The worker writes the JSON itself, so the answer crosses
+ * threads as one string. What was computed is kept for the same request; running over budget or finding
+ * the pool busy is not.
  */
-export async function computeResponse<K extends Task['kind']>(
-	task: Extract<Task, { kind: K }>,
-	refuse?: (result: TaskResult[K]) => Response | null
-): Promise<Response> {
+export async function computeResponse(task: AnswerableTask): Promise<Response> {
 	const answer = await answers.get(task, async (): Promise<Answer> => {
-		let result: TaskResult[K];
 		try {
-			result = await compute<K>(task);
+			const { status, body } = await compute({ kind: 'answer', task });
+			return { status, body, headers: {}, keep: true };
 		} catch (error) {
 			const response = failure(error);
 			const retryAfter = response.headers.get('retry-after');
@@ -48,13 +47,23 @@ export async function computeResponse<K extends Task['kind']>(
 				keep: false
 			};
 		}
-		const response = refuse?.(result) ?? json(result);
-		return { status: response.status, body: await response.text(), headers: {}, keep: true };
 	});
-	return new Response(answer.body, {
+	return new Response(bytesOf(answer), {
 		status: answer.status,
 		headers: { 'content-type': 'application/json', ...answer.headers }
 	});
+}
+
+/** Answers as UTF-8, encoded once: a kept answer sent again is not encoded again. */
+const encoded = new WeakMap<Answer, Uint8Array<ArrayBuffer>>();
+const encoder = new TextEncoder();
+function bytesOf(answer: Answer): Uint8Array<ArrayBuffer> {
+	let bytes = encoded.get(answer);
+	if (!bytes) {
+		bytes = encoder.encode(answer.body);
+		encoded.set(answer, bytes);
+	}
+	return bytes;
 }
 
 /** As computeResponse, with the route shaping the answer from the result (a file rather than JSON); nothing is kept. */
@@ -74,14 +83,6 @@ export type { TaskResult };
 
 /** A draft from values no body has, or from an unconfirmed unit mix-up, is refused rather than drawn. */
 export function refuseImplausible(draft: DraftResponse): Response | null {
-	const implausible = draft.errors.filter((e) => implausibleCodes.has(e.code));
-	if (!implausible.length) return null;
-	return apiError(
-		422,
-		'implausible_measurements',
-		implausible.some((e) => e.code === 'unit_mixup')
-			? 'Some measurements look like another unit. Correct them, change the unit, or send unitConfirmed: true if they are right.'
-			: 'Some measurements cannot be right. Please correct them.',
-		implausible.flatMap((e) => e.fields.map((field) => ({ path: `measurements.${field}`, message: e.message })))
-	);
+	const refusal = implausibleRefusal(draft);
+	return refusal && json(refusal, { status: 422 });
 }

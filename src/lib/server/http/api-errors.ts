@@ -1,6 +1,6 @@
 import { isHttpError, isRedirect, type Handle } from '@sveltejs/kit';
 import { describeForLog } from './redact';
-import { apiError } from './respond';
+import { apiError, isShapedError } from './respond';
 
 export const isApiPath = (pathname: string) => pathname === '/api' || pathname.startsWith('/api/');
 
@@ -27,7 +27,8 @@ const keptHeaders = ['allow', 'retry-after', 'cache-control', 'www-authenticate'
 
 /** Any error answer under /api — thrown errors, 405s, Kit's own text — becomes `{ error: { code, message, issues } }`. */
 export async function toApiError(response: Response): Promise<Response> {
-	if (response.status < 400) return response;
+	// Successes, and our own error answers, which are in the shape already (checked without reading them).
+	if (response.status < 400 || isShapedError(response)) return response;
 	const type = response.headers.get('content-type') ?? '';
 	let { code, message } = fallbackFor(response.status);
 	if (type.includes('application/json')) {

@@ -4,6 +4,12 @@ import { BodyError, hasControlCharacters, kilobytes, mediaType, readLimited } fr
 
 export type ApiIssue = { path: string; message: string };
 
+/** Answers made by `apiError`, so the error-shape hook knows them without reading their bodies again. */
+const shapedErrors = new WeakSet<Response>();
+
+/** True for a response `apiError` made (and that nobody has replaced since). */
+export const isShapedError = (response: Response) => shapedErrors.has(response);
+
 /** The one error body every JSON endpoint answers with. */
 export function apiError(
 	status: number,
@@ -12,7 +18,9 @@ export function apiError(
 	issues: ApiIssue[] = [],
 	headers: HeadersInit = {}
 ) {
-	return json({ error: { code, message, issues } }, { status, headers });
+	const response = json({ error: { code, message, issues } }, { status, headers });
+	shapedErrors.add(response);
+	return response;
 }
 
 export function zodIssues(error: z.ZodError): ApiIssue[] {

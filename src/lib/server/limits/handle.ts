@@ -1,6 +1,6 @@
 import type { Handle, RequestEvent } from '@sveltejs/kit';
 import { apiError } from '../http/respond';
-import { publicApi } from '.';
+import { publicApi, type Gate } from '.';
 
 /** The caller's address; 'unknown' when the configured address header is missing. */
 export function clientAddress(event: RequestEvent) {
@@ -17,10 +17,7 @@ export function clientAddress(event: RequestEvent) {
  */
 const unlimited = new Set(['/api/v1/webhooks/stripe']);
 
-/** A generous per-address limit on the public JSON API; over it, 429 with Retry-After. */
-export const limitPublicApi: Handle = async ({ event, resolve }) => {
-	if (!event.url.pathname.startsWith('/api/v1/') || unlimited.has(event.url.pathname)) return resolve(event);
-	const gate = await publicApi({ address: clientAddress(event) });
+function answer(gate: Gate, event: RequestEvent, resolve: Parameters<Handle>[0]['resolve']) {
 	if (gate.allowed) return resolve(event);
 	const response = apiError(
 		429,
@@ -29,4 +26,15 @@ export const limitPublicApi: Handle = async ({ event, resolve }) => {
 	);
 	response.headers.set('retry-after', String(gate.retryAfterSeconds));
 	return response;
+}
+
+/**
+ * A generous per-address limit on the public JSON API; over it, 429 with Retry-After. While the address's
+ * lease lasts (see `leasedLimit`), the request goes on without waiting for anything.
+ */
+export const limitPublicApi: Handle = ({ event, resolve }) => {
+	const { pathname } = event.url;
+	if (!pathname.startsWith('/api/v1/') || unlimited.has(pathname)) return resolve(event);
+	const gate = publicApi({ address: clientAddress(event) });
+	return gate instanceof Promise ? gate.then((g) => answer(g, event, resolve)) : answer(gate, event, resolve);
 };

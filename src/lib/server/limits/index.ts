@@ -66,7 +66,8 @@ const publicApiGate = leasedLimit(
 	{ limit: rules.PUBLIC_API_PER_ADDRESS.points, size: rules.PUBLIC_API_LEASE }
 );
 
-export function publicApi({ address }: { address: string }) {
+/** The public API's flood limit for `address`: a plain answer while its lease lasts, else a promise of one. */
+export function publicApi({ address }: { address: string }): Gate | Promise<Gate> {
 	return publicApiGate(address);
 }
 

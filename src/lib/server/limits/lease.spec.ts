@@ -13,8 +13,12 @@ function counter(points: number) {
 	return { store, take, calls };
 }
 
-async function spend(gate: (key: string) => Promise<{ allowed: boolean }>, key: string, times: number) {
-	const outcomes = await Promise.all(Array.from({ length: times }, () => gate(key)));
+async function spend(
+	gate: (key: string) => { allowed: boolean } | Promise<{ allowed: boolean }>,
+	key: string,
+	times: number
+) {
+	const outcomes = await Promise.all(Array.from({ length: times }, () => Promise.resolve(gate(key))));
 	return outcomes.filter((o) => o.allowed).length;
 }
 
@@ -29,6 +33,17 @@ describe('leasedLimit', () => {
 		expect(refused).toMatchObject({ allowed: false });
 		expect(refused.allowed === false && refused.retryAfterSeconds).toBeGreaterThan(0);
 		expect(calls.length).toBeLessThanOrEqual(4);
+	});
+
+	it('answers without waiting while a lease lasts, and with a promise when it must ask the counter', async () => {
+		const { take, calls } = counter(100);
+		const gate = leasedLimit(take, { limit: 100, size: 5 });
+		const first = gate('a');
+		expect(first).toBeInstanceOf(Promise);
+		expect(await first).toEqual({ allowed: true });
+		for (let i = 0; i < 4; i++) expect(gate('a')).toEqual({ allowed: true });
+		expect(calls).toEqual([5]);
+		expect(gate('a')).toBeInstanceOf(Promise);
 	});
 
 	it('keeps keys apart', async () => {

@@ -64,14 +64,19 @@ export function leasedLimit(take: Take, { limit, size }: { limit: number; size: 
 		return pending;
 	}
 
-	return async function gate(key: string): Promise<Gate> {
+	async function renewAndSpend(key: string): Promise<Gate> {
 		for (;;) {
-			const now = Date.now();
-			const held = leases.get(key);
-			if (usable(held, now)) return spend(held, now);
-			const lease = await renewal(key, now);
+			const lease = await renewal(key, Date.now());
 			// Others who waited on this renewal may have spent it already; then renew again.
 			if (usable(lease, Date.now())) return spend(lease, Date.now());
 		}
+	}
+
+	/** Answers at once (no promise) while the key's lease lasts; asks the shared counter when it runs out. */
+	return function gate(key: string): Gate | Promise<Gate> {
+		const now = Date.now();
+		const held = leases.get(key);
+		if (usable(held, now)) return spend(held, now);
+		return renewAndSpend(key);
 	};
 }
