@@ -20,6 +20,7 @@ const nodeAdapterWithOwnEntry = {
 		builder.copy('server/public-pages.js', 'build/public-pages.js');
 		builder.copy('server/shared-answers.js', 'build/shared-answers.js');
 		builder.copy('server/private-answers.js', 'build/private-answers.js');
+		builder.copy('server/capture.js', 'build/capture.js');
 		// Public pages go where only our entry serves them (to requests without a session); adapter-node
 		// finds its prerendered folder empty and hands a signed-in request to SvelteKit instead.
 		builder.copy('build/prerendered', 'build/public-pages');

@@ -11,6 +11,7 @@
 // days"). A request that asks for no cached answer (`Cache-Control: no-cache`, a reload) goes to the app.
 import pg from 'pg';
 import { brotliCompressSync, constants, gzipSync } from 'node:zlib';
+import { captureBody, headersOf } from './capture.js';
 
 /** Set by the app on a keepable answer; always removed here, so it never reaches the browser. */
 const markHeader = 'x-tackline-keep';
@@ -200,49 +201,20 @@ export function privateAnswers({ databaseUrl }) {
 			}
 		);
 		if (!key || req.method !== 'GET' || !pool) return;
-		/** @type {Buffer[]} */
-		const chunks = [];
-		let size = 0;
-		const collect = (/** @type {unknown} */ chunk) => {
-			if (!mark || size > maxBodyBytes || chunk == null || typeof chunk === 'function') return;
-			const buffer = typeof chunk === 'string' ? Buffer.from(chunk) : Buffer.from(/** @type {Uint8Array} */ (chunk));
-			size += buffer.length;
-			chunks.push(buffer);
-		};
-		const write = res.write;
-		const end = res.end;
-		res.write = /** @type {typeof res.write} */ (
-			function (/** @type {unknown} */ chunk, /** @type {any[]} */ ...rest) {
-				collect(chunk);
-				return write.call(res, /** @type {any} */ (chunk), ...rest);
-			}
-		);
-		res.end = /** @type {typeof res.end} */ (
-			function (/** @type {unknown} */ chunk, /** @type {any[]} */ ...rest) {
-				collect(chunk);
-				const found = /** @type {ReturnType<typeof readMark>} */ (mark);
-				if (found && res.statusCode === 200 && size <= maxBodyBytes && !res.getHeader('set-cookie')) {
-					/** @type {Record<string, string>} */
-					const headers = {};
-					for (const name of keptHeaders) {
-						const value = res.getHeader(name);
-						if (value !== undefined) headers[name] = String(value);
-					}
-					const identity = Buffer.concat(chunks);
-					keep(key, {
-						version: found.v,
-						sessionId: found.s,
-						userId: found.u,
-						endsAt: found.e,
-						until: Date.now() + maxAgeMs,
-						headers,
-						etag: `"k${found.v}-${identity.length.toString(36)}-${Date.now().toString(36)}"`,
-						identity
-					});
-				}
-				return end.call(res, /** @type {any} */ (chunk), ...rest);
-			}
-		);
+		captureBody(res, { maxBytes: maxBodyBytes, wanted: () => mark !== null }, (identity) => {
+			const found = /** @type {ReturnType<typeof readMark>} */ (mark);
+			if (!found || !identity || res.statusCode !== 200 || res.getHeader('set-cookie')) return;
+			keep(key, {
+				version: found.v,
+				sessionId: found.s,
+				userId: found.u,
+				endsAt: found.e,
+				until: Date.now() + maxAgeMs,
+				headers: headersOf(res, keptHeaders),
+				etag: `"k${found.v}-${identity.length.toString(36)}-${Date.now().toString(36)}"`,
+				identity
+			});
+		});
 	}
 
 	return { serve, watch, close: () => pool?.end() };

@@ -3,6 +3,7 @@
 // seconds and sent again from memory to GET and HEAD requests without a session cookie, without reaching
 // SvelteKit, its hooks or the database. Signed-in requests always reach the app, which re-checks the session.
 import { brotliCompressSync, constants, gzipSync } from 'node:zlib';
+import { captureBody, headersOf } from './capture.js';
 
 /** Answers kept at once, and the largest kept; anything else is simply not kept. */
 const maxEntries = 128;
@@ -77,59 +78,30 @@ export function sharedAnswers() {
 	function watch(req, res) {
 		if (req.method !== 'GET' || !mayShare(req)) return;
 		const key = req.url ?? '';
-		/** @type {Buffer[]} */
-		const chunks = [];
-		let size = 0;
-		let keepable = true;
-		const collect = (/** @type {unknown} */ chunk) => {
-			if (!keepable || chunk == null || typeof chunk === 'function') return;
-			const buffer = typeof chunk === 'string' ? Buffer.from(chunk) : Buffer.from(/** @type {Uint8Array} */ (chunk));
-			size += buffer.length;
-			if (size > maxBodyBytes) keepable = false;
-			else chunks.push(buffer);
-		};
-		const write = res.write;
-		const end = res.end;
-		res.write = /** @type {typeof res.write} */ (
-			function (/** @type {unknown} */ chunk, /** @type {any[]} */ ...rest) {
-				collect(chunk);
-				return write.call(res, /** @type {any} */ (chunk), ...rest);
+		captureBody(res, { maxBytes: maxBodyBytes }, (identity) => {
+			const maxAge = sharedMaxAge(res.getHeader('cache-control'));
+			const encoded = res.getHeader('content-encoding');
+			const vary = String(res.getHeader('vary') ?? '').toLowerCase();
+			if (
+				!identity ||
+				res.statusCode !== 200 ||
+				!maxAge ||
+				encoded ||
+				res.getHeader('set-cookie') ||
+				(vary && vary !== 'accept-encoding')
+			) {
+				return;
 			}
-		);
-		res.end = /** @type {typeof res.end} */ (
-			function (/** @type {unknown} */ chunk, /** @type {any[]} */ ...rest) {
-				collect(chunk);
-				const maxAge = sharedMaxAge(res.getHeader('cache-control'));
-				const encoded = res.getHeader('content-encoding');
-				const vary = String(res.getHeader('vary') ?? '').toLowerCase();
-				if (
-					keepable &&
-					res.statusCode === 200 &&
-					maxAge &&
-					!encoded &&
-					!res.getHeader('set-cookie') &&
-					(!vary || vary === 'accept-encoding')
-				) {
-					/** @type {Record<string, string>} */
-					const headers = {};
-					for (const name of keptHeaders) {
-						const value = res.getHeader(name);
-						if (value !== undefined) headers[name] = String(value);
-					}
-					const identity = Buffer.concat(chunks);
-					const compressible = identity.length > 1024;
-					if (kept.size >= maxEntries) kept.delete(/** @type {string} */ (kept.keys().next().value));
-					kept.set(key, {
-						headers,
-						identity,
-						gzip: compressible ? gzipSync(identity) : null,
-						br: compressible ? brotliCompressSync(identity, { params: { [constants.BROTLI_PARAM_QUALITY]: 9 } }) : null,
-						until: Date.now() + maxAge * 1000
-					});
-				}
-				return end.call(res, /** @type {any} */ (chunk), ...rest);
-			}
-		);
+			const compressible = identity.length > 1024;
+			if (kept.size >= maxEntries) kept.delete(/** @type {string} */ (kept.keys().next().value));
+			kept.set(key, {
+				headers: headersOf(res, keptHeaders),
+				identity,
+				gzip: compressible ? gzipSync(identity) : null,
+				br: compressible ? brotliCompressSync(identity, { params: { [constants.BROTLI_PARAM_QUALITY]: 9 } }) : null,
+				until: Date.now() + maxAge * 1000
+			});
+		});
 	}
 
 	return { serve, watch };
