@@ -14,7 +14,7 @@ describe('commission lists', () => {
 		const [customer] = await db.select({ id: user.id }).from(user).where(eq(user.email, 'customer@tackline.test'));
 		const mine = await listForCustomer(db, { customerId: customer.id });
 		expect(mine.length).toBeGreaterThan(0);
-		const trousers = mine.find((c) => c.garmentType === 'wide-leg-trousers');
+		const trousers = mine.find((c) => c.title === 'High-waisted wide-leg trousers in washed linen');
 		expect(trousers?.quoteCount).toBe(3);
 		expect(mine.filter((c) => c.status === 'draft').every((c) => c.quoteCount === 0)).toBe(true);
 	});
