@@ -146,16 +146,23 @@ async function main() {
 		['lint', 'lint:eslint'],
 		['architecture', 'check:architecture']
 	];
-	// The static checks are single-threaded: on two cores they run beside the unit tests and the build.
+	// The static checks are single-threaded: on two cores they run beside the unit tests and the build. The
+	// type check and lint read SvelteKit's generated types, which the build writes again as it starts: the
+	// build waits until they are done.
+	let typedChecksDone = () => {};
+	const typedChecks = new Promise<void>((resolve) => (typedChecksDone = resolve));
 	async function staticLane() {
 		for (const [suite, script] of only.length ? [] : staticChecks) {
 			const { code, output } = await runHeld('npm', ['run', '--silent', script]);
 			process.stdout.write(`[tackline] ${suite}:\n${output}`);
 			tallies.push({ suite, passed: code === 0 ? 1 : 0, failed: code === 0 ? 0 : 1 });
+			if (suite === 'lint') typedChecksDone();
 		}
+		typedChecksDone();
 	}
 	async function unitAndBuildLane() {
 		if (!only.length || vitestOnly.length) await vitestSuite('unit', 'unit', env);
+		await typedChecks;
 		await buildIfNeeded({ force: true, devTools: true });
 	}
 	await Promise.all([staticLane(), unitAndBuildLane()]);
