@@ -11,7 +11,8 @@
  * the keyset baseline always runs), --profile (the app runs under `node --cpu-prof`; a summary follows),
  * --search (`npm run bench:search`: adds 10 000 open commissions and 1 000 workrooms around Merrowgate,
  * waits for the index, then loads the near-me page and the search API beside a node:http + pg baseline
- * running the same near-me keyset query).
+ * running the same near-me keyset query), --fresh (app requests carry `Cache-Control: no-cache`, so signed-in
+ * pages and lists are rendered every time instead of sent again from memory while nothing has changed).
  */
 import { spawn } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
@@ -43,7 +44,8 @@ const { values: options } = parseArgs({
 		only: { type: 'string' },
 		'per-address': { type: 'string', default: '10' },
 		profile: { type: 'boolean', default: false },
-		search: { type: 'boolean', default: false }
+		search: { type: 'boolean', default: false },
+		fresh: { type: 'boolean', default: false }
 	}
 });
 const rounds = Number(options.rounds);
@@ -123,6 +125,8 @@ async function main(profileDir: string | null) {
 		const base = scenario.target === 'app' ? appUrl : `http://127.0.0.1:${ports[scenario.target]}`;
 		const headers: Record<string, string> = { origin: base, accept: 'text/html,application/json' };
 		if (scenario.as) headers.cookie = cookies[scenario.as];
+		// --fresh: every app request asks for a new answer, as after a change (no answer sent again from memory).
+		if (options.fresh && scenario.target === 'app') headers['cache-control'] = 'no-cache';
 		if (scenario.body !== undefined) headers['content-type'] = 'application/json';
 		const run: Run = { scenario, url: base + scenario.path, headers, slices: [] };
 		if (scenario.body !== undefined) run.body = JSON.stringify(scenario.body);
