@@ -21,6 +21,8 @@ const nodeAdapterWithOwnEntry = {
 		builder.copy('server/shared-answers.js', 'build/shared-answers.js');
 		builder.copy('server/private-answers.js', 'build/private-answers.js');
 		builder.copy('server/capture.js', 'build/capture.js');
+		builder.copy('server/front-door.js', 'build/front-door.js');
+		builder.copy('server/pure-answers.js', 'build/pure-answers.js');
 		// Public pages go where only our entry serves them (to requests without a session); adapter-node
 		// finds its prerendered folder empty and hands a signed-in request to SvelteKit instead.
 		builder.copy('build/prerendered', 'build/public-pages');

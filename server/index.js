@@ -7,6 +7,7 @@ import process from 'node:process';
 import { protectiveHeaders } from './protective-headers.js';
 import { loadPublicPages, servePublicPage } from './public-pages.js';
 import { privateAnswers } from './private-answers.js';
+import { pureAnswers } from './pure-answers.js';
 import { sharedAnswers } from './shared-answers.js';
 
 // The largest body any request may carry: one 15 MB photo upload with its multipart framing. Each route
@@ -16,6 +17,7 @@ const { handler } = await import('./handler.js');
 const publicPages = loadPublicPages(new URL('./public-pages', import.meta.url).pathname);
 const shared = sharedAnswers();
 const kept = privateAnswers({ databaseUrl: process.env.DATABASE_URL });
+const pure = pureAnswers();
 process.once('sveltekit:shutdown', () => void kept.close());
 
 const host = process.env.HOST ?? '0.0.0.0';
@@ -88,6 +90,13 @@ const server = http.createServer((req, res) => {
 	}
 	if (servePublicPage(publicPages, req, res)) return;
 	if (shared.serve(req, res)) return;
+	if (pure.wants(req)) {
+		pure.serve(req, res).then(
+			(replayed) => replayed && toApp(replayed, res),
+			() => res.destroy()
+		);
+		return;
+	}
 	kept.serve(req, res).then(
 		(sent) => sent || toApp(req, res),
 		() => toApp(req, res)
@@ -98,6 +107,7 @@ const server = http.createServer((req, res) => {
 function toApp(req, res) {
 	shared.watch(req, res);
 	kept.watch(req, res);
+	pure.watch(req, res);
 	handler(req, res, () => {
 		res.writeHead(404, { 'content-type': 'text/plain' }).end('Not found');
 	});

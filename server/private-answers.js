@@ -12,6 +12,7 @@
 import pg from 'pg';
 import { brotliCompressSync, constants, gzipSync } from 'node:zlib';
 import { captureBody, headersOf } from './capture.js';
+import { withinApiLimit } from './front-door.js';
 
 /** Set by the app on a keepable answer; always removed here, so it never reaches the browser. */
 const markHeader = 'x-tackline-keep';
@@ -29,31 +30,6 @@ const keptHeaders = [
 	'x-robots-tag',
 	'x-search-source'
 ];
-/** Set by the app once it runs (src/lib/server/freshness/front-door.ts). */
-const frontDoorKey = Symbol.for('tackline.front-door');
-
-// The caller's address as adapter-node works it out (ADDRESS_HEADER, XFF_DEPTH), for the API's limit.
-const addressHeader = (process.env.ADDRESS_HEADER ?? '').toLowerCase();
-const forwardedDepth = Number.parseInt(process.env.XFF_DEPTH ?? '1', 10);
-
-/** @param {import('node:http').IncomingMessage} req */
-function clientAddress(req) {
-	if (!addressHeader) return req.socket.remoteAddress ?? 'unknown';
-	const value = String(req.headers[addressHeader] ?? '');
-	if (!value) return 'unknown';
-	if (addressHeader !== 'x-forwarded-for') return value;
-	const addresses = value.split(',');
-	return addresses[addresses.length - forwardedDepth]?.trim() || 'unknown';
-}
-
-/** Whether the public API's limit lets this request through; false also before the app has started. */
-async function withinApiLimit(/** @type {import('node:http').IncomingMessage} */ req) {
-	const door = /** @type {{ allowApi?: (address: string) => Promise<boolean> } | undefined} */ (
-		/** @type {Record<symbol, unknown>} */ (globalThis)[frontDoorKey]
-	);
-	return door?.allowApi ? door.allowApi(clientAddress(req)) : false;
-}
-
 const versionOnly = {
 	name: 'tackline-kept-answer-version',
 	text: 'select value::text as version from data_version where id = 1'

@@ -48,9 +48,11 @@ export async function computeResponse(task: AnswerableTask): Promise<Response> {
 			};
 		}
 	});
+	// The same request always gets this answer, whoever sends it: server/pure-answers.js may send it again.
+	const pure: Record<string, string> = answer.keep && answer.status === 200 ? { 'x-tackline-pure': '1' } : {};
 	return new Response(bytesOf(answer), {
 		status: answer.status,
-		headers: { 'content-type': 'application/json', ...answer.headers }
+		headers: { 'content-type': 'application/json', ...answer.headers, ...pure }
 	});
 }
 
