@@ -71,7 +71,7 @@ export interface MarkerResult {
 export const defaultGapMm = 2;
 export const flatteningToleranceMm = 1;
 /** Orderings tried at most: the fixed ones, then neighbours of the best so far. */
-export const defaultOrderings = 400;
+export const defaultOrderings = 3000;
 /** Neighbours tried in a row without a shorter marker before the search restarts from a shuffled ordering. */
 const patience = 60;
 
@@ -232,15 +232,20 @@ function placeAll(
 	units: Unit[],
 	rule: Rule,
 	overdue: () => boolean,
-	giveUpAt = Infinity
+	giveUpAt = Infinity,
+	prefix: readonly Placed[] = []
 ): Placed[] | null {
-	const placed: Placed[] = [];
-	// How far down the cloth the grown shapes placed so far reach.
-	let reach = 0;
+	const placed: Placed[] = [...prefix];
 	const seen: Blocked = new Map();
 	const hands = new Map<string, number>();
 	const handKey = (item: number, mirrored: boolean) => `${item}|${mirrored}`;
-	for (const unit of units) {
+	for (const p of prefix) {
+		const key = handKey(p.unit.item, p.variant.mirrored);
+		hands.set(key, (hands.get(key) ?? 0) + 1);
+	}
+	// How far down the cloth the grown shapes placed so far reach.
+	let reach = prefix.reduce((max, p) => Math.max(max, p.y + p.variant.height), 0);
+	for (const unit of units.slice(prefix.length)) {
 		if (overdue()) return null;
 		let best: Placed | null = null;
 		for (const variant of unit.variants) {
@@ -306,20 +311,27 @@ function random(): (n: number) => number {
  * copy is held to one of its allowed turns and hands — bottom-left takes the first of equally low places, so
  * the turn that would leave room for a later piece is otherwise never tried — or let free again.
  */
-function neighbour(order: readonly Unit[], pick: (n: number) => number): Unit[] {
+function neighbour(order: readonly Unit[], pick: (n: number) => number): { order: Unit[]; same: number } {
 	const next = [...order];
 	const i = pick(next.length);
-	if (pick(2) === 0) {
+	const move = pick(3);
+	if (move === 2) {
+		const [unit] = next.splice(i, 1);
+		const k = pick(next.length + 1);
+		next.splice(k, 0, unit);
+		return { order: next, same: Math.min(i, k) };
+	}
+	if (move === 0) {
 		const j = (i + 1 + pick(3)) % next.length;
 		if (next[i].onFold === next[j].onFold) [next[i], next[j]] = [next[j], next[i]];
-		return next;
+		return { order: next, same: Math.min(i, j) };
 	}
 	const unit = next[i];
 	const all = unit.free ?? unit.variants;
-	if (all.length < 2) return next;
+	if (all.length < 2) return { order: next, same: next.length };
 	const k = pick(all.length + 1);
 	next[i] = k === all.length ? { ...unit, variants: all, free: undefined } : { ...unit, variants: [all[k]], free: all };
-	return next;
+	return { order: next, same: i };
 }
 
 /** Nests the items on the cloth. Null when a piece cannot fit the width or the budget ran out first. */
@@ -367,10 +379,16 @@ export function nestMarker(items: readonly MarkerItem[], options: MarkerOptions)
 	const pick = random();
 	// The local search's own best; after `patience` neighbours without a shorter marker it restarts from a
 	// shuffled ordering (a fixed seed, so results repeat), while the overall best is kept.
-	let current = { attempt: bestAttempt, length: Infinity };
+	let current: { attempt: typeof bestAttempt; length: number; placed: Placed[] } = {
+		attempt: bestAttempt,
+		length: Infinity,
+		placed: []
+	};
 	while (tried < maxAttempts && (tried === 0 || !overdue())) {
 		let attempt: typeof bestAttempt;
 		let restart = false;
+		// Copies the attempt lays exactly as the current one did: the same units in the same order, so the same places.
+		let prefix: Placed[] = [];
 		if (tried < fixed) {
 			const start = tried < fixed / 2 ? units : turnedOnly;
 			const n = tried % (fixed / 2);
@@ -385,17 +403,19 @@ export function nestMarker(items: readonly MarkerItem[], options: MarkerOptions)
 			restart = true;
 			sinceBetter = 0;
 		} else {
-			attempt = { order: neighbour(current.attempt.order, pick), rule: current.attempt.rule };
+			const next = neighbour(current.attempt.order, pick);
+			attempt = { order: next.order, rule: current.attempt.rule };
+			prefix = current.placed.slice(0, next.same);
 			sinceBetter++;
 		}
 		tried++;
 		// A shape reaches at most a millimetre or so past its cutting line (the flattening's stray, rounding).
 		const giveUpAt = restart ? Infinity : Math.min(current.length, bestLength) * unitsPerMm + 2 * unitsPerMm;
-		const placed = placeAll(context, attempt.order, attempt.rule, overdue, giveUpAt);
+		const placed = placeAll(context, attempt.order, attempt.rule, overdue, giveUpAt, prefix);
 		if (!placed) continue;
 		const length = markerLength(placed);
 		if (restart || length < current.length - 1e-6) {
-			current = { attempt, length };
+			current = { attempt, length, placed };
 			if (!restart) sinceBetter = 0;
 		}
 		if (length < bestLength - 1e-6) {

@@ -1,8 +1,12 @@
 import { garmentIds, type DraftRequest, type DraftResponse, type GarmentId, type Unit } from '$lib/drafting';
 import { Busy, compute, OverBudget } from '$lib/server/compute';
+import { answerCache, type Answer } from '$lib/server/compute/answers';
 
 export type AwardedDraft =
 	{ ok: true; result: DraftResponse } | { ok: false; reason: 'no_template' | 'unavailable' | 'no_measurements' };
+
+/** Drafts for frozen measurements never change: each is nested once (up to a couple of seconds), then kept. */
+const drafts = answerCache({ maxEntries: 200, maxBytes: 32 * 1024 * 1024 });
 
 /**
  * The cutting draft and fabric layout for the awarded tailor, from the frozen measurements in the unit they
@@ -24,10 +28,17 @@ export async function draftForAwarded(
 		// The cutting sheet is what the tailor buys cloth by: the real outlines, nested.
 		nest: true
 	};
-	try {
-		return { ok: true, result: await compute({ kind: 'draft', request }) };
-	} catch (error) {
-		if (error instanceof OverBudget || error instanceof Busy) return { ok: false, reason: 'unavailable' };
-		throw error;
-	}
+	const answer = await drafts.get(request, async (): Promise<Answer> => {
+		try {
+			const result = await compute({ kind: 'draft', request });
+			return { status: 200, body: JSON.stringify(result), headers: {}, keep: true };
+		} catch (error) {
+			if (error instanceof OverBudget || error instanceof Busy)
+				return { status: 503, body: '', headers: {}, keep: false };
+			throw error;
+		}
+	});
+	return answer.status === 200
+		? { ok: true, result: JSON.parse(answer.body) as DraftResponse }
+		: { ok: false, reason: 'unavailable' };
 }
