@@ -70,7 +70,10 @@ export interface MarkerResult {
 
 export const defaultGapMm = 2;
 export const flatteningToleranceMm = 1;
-/** Orderings tried at most: the fixed ones, then neighbours of the best so far. */
+/**
+ * Orderings tried at most: the fixed ones, then neighbours of the best so far. With the draft's budget the clock
+ * usually ends the search first; a small garment stops here.
+ */
 export const defaultOrderings = 3000;
 /** Neighbours tried in a row without a shorter marker before the search restarts from a shuffled ordering. */
 const patience = 60;
@@ -225,7 +228,8 @@ function better(rule: Rule, c: Point, variant: Variant, best: Placed, reach: num
 
 /**
  * Lays the copies in order. Null when one cannot be laid, the budget runs out, or the shapes already reach
- * `giveUpAt` (shape units): that ordering can no longer beat the best marker so far.
+ * `giveUpAt` (shape units): that ordering can no longer beat the best marker so far. The first copies may come
+ * already laid (`prefix`): bottom-left lays the same copies in the same order in the same places.
  */
 function placeAll(
 	context: Context,
@@ -307,9 +311,11 @@ function random(): (n: number) => number {
 }
 
 /**
- * A neighbour of an ordering: two copies swap places (the fold pieces stay where the ordering put them), or one
- * copy is held to one of its allowed turns and hands — bottom-left takes the first of equally low places, so
- * the turn that would leave room for a later piece is otherwise never tried — or let free again.
+ * A neighbour of an ordering, and how many copies at its head it keeps as they were: one copy moves to any other
+ * place in the order (a facing laid just before its own piece can nest into it), two near copies swap places
+ * (the fold pieces stay where the ordering put them), or one copy is held to one of its allowed turns and
+ * hands — bottom-left takes the first of equally low places, so the turn that would leave room for a later
+ * piece is otherwise never tried — or let free again.
  */
 function neighbour(order: readonly Unit[], pick: (n: number) => number): { order: Unit[]; same: number } {
 	const next = [...order];
