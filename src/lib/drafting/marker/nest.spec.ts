@@ -245,6 +245,46 @@ describe('marker: every garment', () => {
 		30_000
 	);
 
+	it.each(cases)(
+		'$garment, folded $folded, nap $directional: every fixed ordering from either end, sound with the grain as given',
+		(c) => {
+			const pieces = draftOf(c.garment);
+			const spec = clothSpec({ folded: c.folded, directional: c.directional });
+			const boxes = estimateFabric(pieces, spec, 'cm').estimate!;
+			const items = markerItems(boxes, pieces, spec)!.map((g) => g.item);
+			// 4 starts (as given, turned; each from the cut end and from the far end) × 6 orders × 3 rules.
+			const marker = nestMarker(items, { width: boxes.layWidthMm, orderings: 72 })!;
+			expectSound(marker, 2);
+			for (const [i, it] of items.entries()) {
+				const placed = marker.placements.filter((p) => p.item === i);
+				expect(placed).toHaveLength(it.quantity);
+				if (it.onFold) expect(placed.every((p) => Math.abs(p.box.x) < 0.01)).toBe(true);
+				// Reflected back whole, a piece laid from the far end lies as its own variant: the nap's way.
+				const turns = c.directional ? [0] : [0, 180];
+				if (it.crosswise) turns.push(...(c.directional ? [90] : [90, 270]));
+				expect(placed.every((p) => turns.includes(p.turn))).toBe(true);
+				const drafted = boundingBox(it.outline);
+				for (const p of placed) {
+					expect(p.grainline[0].x).toBeCloseTo(p.grainline[1].x, 6);
+					if (p.turn === 0) expect(p.box.height).toBeCloseTo(drafted.height, 6);
+				}
+			}
+		},
+		30_000
+	);
+
+	it('lays the shift dress on open cloth with a nap from the far end: each facing tucks into its own piece', () => {
+		const pieces = draftOf('shift-dress');
+		const spec = clothSpec({ folded: false, directional: true });
+		const boxes = estimateFabric(pieces, spec, 'cm').estimate!;
+		const items = markerItems(boxes, pieces, spec)!.map((g) => g.item);
+		const marker = nestMarker(items, { width: boxes.layWidthMm, orderings: 72 })!;
+		expect(marker.fromFarEnd).toBe(true);
+		// The boxes put every facing below the bodies: 102.9 + 29.0 cm.
+		expect(marker.length).toBeLessThan(boxes.packedMm - 20);
+		expectSound(marker, 2);
+	});
+
 	it('nests a band in the shape the boxes cut it (in two, each half plus its join), not as drafted', () => {
 		const pieces = draftOf('straight-skirt');
 		const spec = clothSpec();

@@ -22,6 +22,7 @@ import {
 	variantsFor,
 	type BaseShapes,
 	type Linear,
+	reflectAlong,
 	type MarkerItem,
 	type Turn,
 	type Variant
@@ -66,6 +67,8 @@ export interface MarkerResult {
 	/** Σ outline area ÷ width: no marker can be shorter. */
 	areaBound: number;
 	orderingsTried: number;
+	/** The marker was laid from the far end (and reflected back). */
+	fromFarEnd: boolean;
 }
 
 export const defaultGapMm = 2;
@@ -340,6 +343,38 @@ function neighbour(order: readonly Unit[], pick: (n: number) => number): { order
 	return { order: next, same: i };
 }
 
+interface Attempt {
+	order: Unit[];
+	rule: Rule;
+	/** Laid with every piece reflected end to end; reflected back as a whole when kept. */
+	fromFarEnd: boolean;
+}
+
+/** The units with their variants reflected end to end, and the way back to the variants as given. */
+function reflectedUnits(sets: readonly Unit[][]) {
+	const original = new Map<Variant, Variant>();
+	const reflected = new Map<Variant, Variant>();
+	const reflect = (v: Variant) => {
+		let r = reflected.get(v);
+		if (!r) {
+			r = reflectAlong(v);
+			reflected.set(v, r);
+			original.set(r, v);
+		}
+		return r;
+	};
+	const units = sets.map((set) =>
+		set.map((u) => ({ ...u, variants: u.variants.map(reflect), free: u.free?.map(reflect) }))
+	);
+	return { units, original };
+}
+
+/** A layout of reflected variants, reflected back end to end: the same marker, every piece as given. */
+function reflectBack(placed: readonly Placed[], original: ReadonlyMap<Variant, Variant>): Placed[] {
+	const end = Math.max(...placed.map((p) => p.y + p.variant.height));
+	return placed.map((p) => ({ ...p, variant: original.get(p.variant)!, y: end - p.y - p.variant.height }));
+}
+
 /** Nests the items on the cloth. Null when a piece cannot fit the width or the budget ran out first. */
 export function nestMarker(items: readonly MarkerItem[], options: MarkerOptions): MarkerResult | null {
 	const now = options.now ?? (() => performance.now());
@@ -371,46 +406,60 @@ export function nestMarker(items: readonly MarkerItem[], options: MarkerOptions)
 	const overdue = () => now() - started > budget;
 	let best: Placed[] | null = null;
 	let bestLength = Infinity;
-	let bestAttempt: { order: Unit[]; rule: Rule } = { order: units, rule: 'far' };
+	let bestAttempt: Attempt = { order: units, rule: 'far', fromFarEnd: false };
 	let tried = 0;
 	let sinceBetter = 0;
 	// Each fixed ordering with each rule, first with every variant open, then with every piece that may turn
 	// held turned (end for end, or across for a band): turning one piece alone seldom gains, and the search
 	// below changes one piece at a time.
-	const fixed = 2 * orders.length * rules.length;
 	const turnedOnly = units.map((u) => {
 		const turned = u.variants.filter((v) => v.turn !== 0);
 		return turned.length ? { ...u, variants: turned, free: u.variants } : u;
 	});
+	// The same again laid from the far end (pieces reflected end to end, the layout reflected back), which
+	// puts small pieces first into the hollows at the other end of the big ones; not with a pattern repeat,
+	// whose steps count from the cut end.
+	const fromFarEnd = !context.yStep ? reflectedUnits([units, turnedOnly]) : null;
+	const starts: Array<{ units: Unit[]; fromFarEnd: boolean }> = [
+		{ units, fromFarEnd: false },
+		{ units: turnedOnly, fromFarEnd: false },
+		...(fromFarEnd ? fromFarEnd.units.map((u) => ({ units: u, fromFarEnd: true })) : [])
+	];
+	const fixed = starts.length * orders.length * rules.length;
 	const pick = random();
 	// The local search's own best; after `patience` neighbours without a shorter marker it restarts from a
 	// shuffled ordering (a fixed seed, so results repeat), while the overall best is kept.
-	let current: { attempt: typeof bestAttempt; length: number; placed: Placed[] } = {
+	let current: { attempt: Attempt; length: number; placed: Placed[] } = {
 		attempt: bestAttempt,
 		length: Infinity,
 		placed: []
 	};
 	while (tried < maxAttempts && (tried === 0 || !overdue())) {
-		let attempt: typeof bestAttempt;
+		let attempt: Attempt;
 		let restart = false;
 		// Copies the attempt lays exactly as the current one did: the same units in the same order, so the same places.
 		let prefix: Placed[] = [];
 		if (tried < fixed) {
-			const start = tried < fixed / 2 ? units : turnedOnly;
-			const n = tried % (fixed / 2);
-			attempt = { order: [...start].sort(orders[Math.floor(n / rules.length)]), rule: rules[n % rules.length] };
+			const start = starts[Math.floor(tried / (orders.length * rules.length))];
+			const n = tried % (orders.length * rules.length);
+			attempt = {
+				order: [...start.units].sort(orders[Math.floor(n / rules.length)]),
+				rule: rules[n % rules.length],
+				fromFarEnd: start.fromFarEnd
+			};
 		} else if (sinceBetter >= patience) {
-			const order = [...units];
+			const farEnd = fromFarEnd !== null && pick(2) === 1;
+			const order = [...(farEnd ? fromFarEnd.units[0] : units)];
 			for (let i = order.length - 1; i > 0; i--) {
 				const j = pick(i + 1);
 				[order[i], order[j]] = [order[j], order[i]];
 			}
-			attempt = { order, rule: rules[pick(rules.length)] };
+			attempt = { order, rule: rules[pick(rules.length)], fromFarEnd: farEnd };
 			restart = true;
 			sinceBetter = 0;
 		} else {
 			const next = neighbour(current.attempt.order, pick);
-			attempt = { order: next.order, rule: current.attempt.rule };
+			attempt = { ...current.attempt, order: next.order };
 			prefix = current.placed.slice(0, next.same);
 			sinceBetter++;
 		}
@@ -431,6 +480,7 @@ export function nestMarker(items: readonly MarkerItem[], options: MarkerOptions)
 		}
 	}
 	if (!best) return null;
+	if (bestAttempt.fromFarEnd && fromFarEnd) best = reflectBack(best, fromFarEnd.original);
 	const width = options.width;
 	// The shapes are held to a hundredth of a millimetre: a cutting line may start that much before the cut end.
 	const before = Math.max(0, ...best.map((p) => -boundingBox(placedOutline(p).outline).y));
@@ -451,12 +501,15 @@ export function nestMarker(items: readonly MarkerItem[], options: MarkerOptions)
 		})
 		.sort((a, b) => a.item - b.item || a.copy - b.copy);
 	const area = units.reduce((sum, u) => sum + u.area, 0);
+	// Read off the cutting lines as laid (a marker laid from the far end was reflected back on the shapes' grid).
+	const length = Math.max(...placements.map((p) => p.box.y + p.box.height));
 	return {
 		width,
-		length: bestLength + before,
+		length,
 		placements,
-		efficiency: area / (width * (bestLength + before)),
+		efficiency: area / (width * length),
 		areaBound: area / width,
-		orderingsTried: tried
+		orderingsTried: tried,
+		fromFarEnd: bestAttempt.fromFarEnd
 	};
 }

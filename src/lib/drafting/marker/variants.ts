@@ -160,3 +160,28 @@ export function variantsFor(item: MarkerItem, toleranceMm: number, gapMm: number
 		];
 	return [plain, mirrored];
 }
+
+const alongMap: Linear = [1, 0, 0, -1];
+
+/**
+ * The variant reflected end to end (y ↦ −y), for laying a marker from the far end: a layout of reflected
+ * variants, reflected back as a whole, is a layout of the variants themselves.
+ */
+export function reflectAlong(v: Variant): Variant {
+	const linear = compose(alongMap, v.linear);
+	const box = bounds(applyLinear(linear, v.base.shape));
+	const offset = { x: -box.left, y: -box.top };
+	const shape = applyLinear(linear, v.base.shape, offset.x, offset.y);
+	const outline = v.outline.map((p) => ({ x: p.x, y: -p.y }));
+	return {
+		...v,
+		outline,
+		grainline: v.grainline.map((p) => ({ x: p.x, y: -p.y })) as [Point, Point],
+		shape,
+		clear: v.base.clear === v.base.shape ? shape : applyLinear(linear, v.base.clear, offset.x, offset.y),
+		linear,
+		offset,
+		shift: { x: -box.left / unitsPerMm, y: -box.top / unitsPerMm },
+		topInset: Math.round(boundingBox(outline).y * unitsPerMm) - box.top
+	};
+}
