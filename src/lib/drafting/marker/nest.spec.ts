@@ -252,8 +252,9 @@ describe('marker: every garment', () => {
 			const spec = clothSpec({ folded: c.folded, directional: c.directional });
 			const boxes = estimateFabric(pieces, spec, 'cm').estimate!;
 			const items = markerItems(boxes, pieces, spec)!.map((g) => g.item);
-			// 4 starts (as given, turned; each from the cut end and from the far end) × 6 orders × 3 rules.
-			const marker = nestMarker(items, { width: boxes.layWidthMm, orderings: 72 })!;
+			// 6 starts (as given, turned, other hand first; each from the cut end and from the far end)
+			// × 6 orders × 3 rules.
+			const marker = nestMarker(items, { width: boxes.layWidthMm, orderings: 108 })!;
 			expectSound(marker, 2);
 			for (const [i, it] of items.entries()) {
 				const placed = marker.placements.filter((p) => p.item === i);
@@ -278,7 +279,7 @@ describe('marker: every garment', () => {
 		const spec = clothSpec({ folded: false, directional: true });
 		const boxes = estimateFabric(pieces, spec, 'cm').estimate!;
 		const items = markerItems(boxes, pieces, spec)!.map((g) => g.item);
-		const marker = nestMarker(items, { width: boxes.layWidthMm, orderings: 72 })!;
+		const marker = nestMarker(items, { width: boxes.layWidthMm, orderings: 108 })!;
 		expect(marker.fromFarEnd).toBe(true);
 		// The boxes put every facing below the bodies: 102.9 + 29.0 cm.
 		expect(marker.length).toBeLessThan(boxes.packedMm - 20);
@@ -333,6 +334,29 @@ describe('marker: every garment', () => {
 		const drafted = boundingBox(pieces.find((p) => p.id === 'waistband')!.outline);
 		for (const h of halves) expect(Math.max(h.w, h.h)).toBeCloseTo(drafted.height / 2 + 15.875, 3);
 		expect(nested.notes.some((n) => n.startsWith('Waistband: cut in two pieces'))).toBe(true);
+	});
+
+	it('lifts the straight skirt’s band halves into the waist’s dips on open cloth with a nap, from the far end', () => {
+		const pieces = draftOf('straight-skirt');
+		const spec = clothSpec({ folded: false, directional: true });
+		const boxes = estimateFabric(pieces, spec, 'cm').estimate!;
+		// Boxes: front and backs side by side (66.7 cm, 5.9 mm to spare), the band whole below them (9.5 cm).
+		expect(boxes.packedMm).toBeCloseTo(761.9, 1);
+		const nested = nestFabricEstimate(boxes, pieces, spec, { budgetMs: Infinity, orderings: 108 });
+		expect(nested.packedMm).toBeLessThan(boxes.packedMm);
+		// Each half lies across the middle of a waist seam that dips below its ends (the front's centre, the
+		// backs' centre back), so the skirt pieces sit less than a band's width down the cloth.
+		const halves = nested.placements.filter((p) => p.pieceId === 'waistband');
+		expect(halves).toHaveLength(2);
+		for (const h of halves) expect(h.y).toBeLessThan(2);
+		for (const p of nested.placements.filter((p) => p.pieceId !== 'waistband')) {
+			expect(p.y).toBeGreaterThan(80);
+			expect(p.y).toBeLessThan(95);
+		}
+		const outlines = nested.placements.map((p) => p.outline!);
+		for (let i = 0; i < outlines.length; i++)
+			for (let j = i + 1; j < outlines.length; j++) expect(overlapArea(outlines[i], outlines[j])).toBeLessThan(0.01);
+		for (const outline of outlines) expect(areaOutside(outline, 1150, nested.packedMm)).toBeLessThan(0.01);
 	});
 
 	it('halves the cloth for four skirt gores that interlock end for end (hand check)', () => {
