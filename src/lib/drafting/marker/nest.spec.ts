@@ -9,18 +9,9 @@ import { draftIn, standardBodyCm } from '../templates/test-support';
 import { markerItems, nestFabricEstimate } from './fabric';
 import { nestMarker, type MarkerItem, type MarkerResult } from './nest';
 import { areaOutside, curvedRuns, overlapArea, reachOf } from './polygons';
+import { markerItem } from './test-support';
 
-const item = (outline: Point[], extra: Partial<MarkerItem> = {}): MarkerItem => ({
-	id: 'piece',
-	label: 'Piece',
-	outline,
-	grainline: [pt(10, 10), pt(10, 50)],
-	quantity: 1,
-	rotation: '180',
-	onFold: false,
-	mirrorPairs: false,
-	...extra
-});
+const item = markerItem;
 
 /** A right triangle with legs `a` across and `b` along the cloth. */
 const triangle = (a: number, b: number) => [pt(0, 0), pt(a, 0), pt(0, b)];
@@ -203,6 +194,26 @@ describe('marker: properties', () => {
 	}, 30_000);
 });
 
+/** Sound, every copy laid, fold pieces on the fold, and the grain as the cloth allows. */
+function expectLaidAsAllowed(marker: MarkerResult, items: readonly MarkerItem[], directional: boolean) {
+	expectSound(marker, 2);
+	for (const [i, it] of items.entries()) {
+		const placed = marker.placements.filter((p) => p.item === i);
+		expect(placed).toHaveLength(it.quantity);
+		if (it.onFold) expect(placed.every((p) => Math.abs(p.box.x) < 0.01)).toBe(true);
+		// Grain stays along the cloth: a nap allows no turn, plain cloth end for end only; a band that may
+		// be cut across may also take a quarter turn (one way only with a nap).
+		const turns = directional ? [0] : [0, 180];
+		if (it.crosswise) turns.push(...(directional ? [90] : [90, 270]));
+		expect(placed.every((p) => turns.includes(p.turn))).toBe(true);
+		const drafted = boundingBox(it.outline);
+		for (const p of placed) {
+			expect(p.grainline[0].x).toBeCloseTo(p.grainline[1].x, 6);
+			if (p.turn === 0) expect(p.box.height).toBeCloseTo(drafted.height, 6);
+		}
+	}
+}
+
 describe('marker: every garment', () => {
 	const cases = Object.keys(templates).flatMap((garment) =>
 		[true, false].flatMap((folded) => [true, false].map((directional) => ({ garment, folded, directional })))
@@ -215,19 +226,7 @@ describe('marker: every garment', () => {
 			const spec = clothSpec({ folded: c.folded, directional: c.directional });
 			const boxes = estimateFabric(pieces, spec, 'cm').estimate!;
 			const items = markerItems(boxes, pieces, spec)!.map((g) => g.item);
-			const marker = nestMarker(items, { width: boxes.layWidthMm, orderings: 1 })!;
-			expectSound(marker, 2);
-			for (const [i, it] of items.entries()) {
-				const placed = marker.placements.filter((p) => p.item === i);
-				expect(placed).toHaveLength(it.quantity);
-				if (it.onFold) expect(placed.every((p) => Math.abs(p.box.x) < 0.01)).toBe(true);
-				// Grain stays along the cloth: a nap allows no turn, plain cloth end for end only; a band that may
-				// be cut across may also take a quarter turn (one way only with a nap).
-				const turns = c.directional ? [0] : [0, 180];
-				if (it.crosswise) turns.push(...(c.directional ? [90] : [90, 270]));
-				expect(placed.every((p) => turns.includes(p.turn))).toBe(true);
-				for (const p of placed) expect(p.grainline[0].x).toBeCloseTo(p.grainline[1].x, 6);
-			}
+			expectLaidAsAllowed(nestMarker(items, { width: boxes.layWidthMm, orderings: 1 })!, items, c.directional);
 			const nested = nestFabricEstimate(boxes, pieces, spec, { budgetMs: Infinity, orderings: 1 });
 			expect(nested.efficiency).toBeGreaterThanOrEqual(boxes.efficiency - 1e-12);
 			expect(nested.packedMm).toBeLessThanOrEqual(boxes.packedMm);
@@ -253,23 +252,8 @@ describe('marker: every garment', () => {
 			const boxes = estimateFabric(pieces, spec, 'cm').estimate!;
 			const items = markerItems(boxes, pieces, spec)!.map((g) => g.item);
 			// 6 starts (as given, turned, other hand first; each from the cut end and from the far end)
-			// × 6 orders × 3 rules.
-			const marker = nestMarker(items, { width: boxes.layWidthMm, orderings: 108 })!;
-			expectSound(marker, 2);
-			for (const [i, it] of items.entries()) {
-				const placed = marker.placements.filter((p) => p.item === i);
-				expect(placed).toHaveLength(it.quantity);
-				if (it.onFold) expect(placed.every((p) => Math.abs(p.box.x) < 0.01)).toBe(true);
-				// Reflected back whole, a piece laid from the far end lies as its own variant: the nap's way.
-				const turns = c.directional ? [0] : [0, 180];
-				if (it.crosswise) turns.push(...(c.directional ? [90] : [90, 270]));
-				expect(placed.every((p) => turns.includes(p.turn))).toBe(true);
-				const drafted = boundingBox(it.outline);
-				for (const p of placed) {
-					expect(p.grainline[0].x).toBeCloseTo(p.grainline[1].x, 6);
-					if (p.turn === 0) expect(p.box.height).toBeCloseTo(drafted.height, 6);
-				}
-			}
+			// × 6 orders × 3 rules. Reflected back whole, a piece laid from the far end lies as its own variant.
+			expectLaidAsAllowed(nestMarker(items, { width: boxes.layWidthMm, orderings: 108 })!, items, c.directional);
 		},
 		30_000
 	);
@@ -284,7 +268,7 @@ describe('marker: every garment', () => {
 		// The boxes put every facing below the bodies: 102.9 + 29.0 cm.
 		expect(marker.length).toBeLessThan(boxes.packedMm - 20);
 		expectSound(marker, 2);
-	});
+	}, 30_000);
 
 	it('nests a band in the shape the boxes cut it (in two, each half plus its join), not as drafted', () => {
 		const pieces = draftOf('straight-skirt');
@@ -357,7 +341,7 @@ describe('marker: every garment', () => {
 		for (let i = 0; i < outlines.length; i++)
 			for (let j = i + 1; j < outlines.length; j++) expect(overlapArea(outlines[i], outlines[j])).toBeLessThan(0.01);
 		for (const outline of outlines) expect(areaOutside(outline, 1150, nested.packedMm)).toBeLessThan(0.01);
-	});
+	}, 30_000);
 
 	it('halves the cloth for four skirt gores that interlock end for end (hand check)', () => {
 		// Gores 150 wide at the waist, 350 at the hem, 700 long. Boxes: three across 1150 cm cloth, one below: 1400.
