@@ -35,6 +35,8 @@ declare global {
 			dataVersion: string | null;
 			/** When the session's token ends, in ms since the epoch. */
 			sessionEndsAt: number | null;
+			/** The answer shows work still running (a draft being nested): the kept-answers layer leaves it. */
+			unkept?: boolean;
 		}
 	}
 }

@@ -168,10 +168,23 @@ describe('accepting a quote', () => {
 	});
 
 	it('shows the awarded tailor the measurements, the cutting draft and the fabric layout', async () => {
-		const page = await (await signedIn(world.tailors[0])).get(`/commissions/${world.commissionId}`);
-		expect(page.status).toBe(200);
-		const html = await page.text();
-		expect(html).toContain('Full measurements');
+		const tailor = await signedIn(world.tailors[0]);
+		const first = await tailor.get(`/commissions/${world.commissionId}`);
+		expect(first.status).toBe(200);
+		const firstHtml = await first.text();
+		expect(firstHtml).toContain('Full measurements');
+		// The first view does not wait for the nesting: the page says it is working (and, with JavaScript, asks
+		// again); it is not stored, so the next view, once the draft is worked out, has the draft in the page.
+		expect(firstHtml).toContain('data-testid="draft-pending"');
+		expect(first.headers.get('cache-control')).toContain('no-store');
+		let html = firstHtml;
+		for (let tries = 0; tries < 60 && html.includes('data-testid="draft-pending"'); tries++) {
+			await new Promise((resolve) => setTimeout(resolve, 250));
+			const again = await tailor.get(`/commissions/${world.commissionId}`);
+			expect(again.status).toBe(200);
+			html = await again.text();
+		}
+		expect(html).not.toContain('data-testid="draft-pending"');
 		expect(html).toContain('Cutting draft');
 		expect(html).toContain('Fabric to buy');
 		// Pieces with their lines to mark, and the fabric length to buy.

@@ -28,10 +28,16 @@ export function answerCache({ maxEntries, maxBytes }: { maxEntries: number; maxB
 		}
 	}
 
+	const keyOf = (request: unknown) => createHash('sha256').update(JSON.stringify(request)).digest('base64url');
+
 	return {
+		/** The kept answer for `request`, if there is one, without working anything out. */
+		peek(request: unknown): Answer | undefined {
+			return kept.get(keyOf(request));
+		},
 		/** The kept answer for `request`, or the one `work()` gives (kept when it says so). */
 		get(request: unknown, work: () => Promise<Answer>): Promise<Answer> {
-			const key = createHash('sha256').update(JSON.stringify(request)).digest('base64url');
+			const key = keyOf(request);
 			const hit = kept.get(key);
 			if (hit) {
 				kept.delete(key); // the most recently used go to the end

@@ -42,7 +42,7 @@ export function markKeepableAnswers({ enabled, sessionCookie }: { enabled: boole
 		const anonymous = !event.request.headers.get('cookie')?.includes(sessionCookie);
 		const anonymousVersion = anonymous ? await currentVersion(event.locals.db) : null;
 		const response = await resolve(event);
-		if (response.status !== 200 || response.headers.has('set-cookie')) return response;
+		if (response.status !== 200 || response.headers.has('set-cookie') || event.locals.unkept) return response;
 		const { user, sessionId, dataVersion, sessionEndsAt } = event.locals;
 		const mark = anonymous
 			? { v: anonymousVersion, s: '', u: '', e: 0 }

@@ -7,21 +7,25 @@ import * as messages from '$lib/server/messages';
 import * as orders from '$lib/server/orders';
 import * as quotes from '$lib/server/quotes';
 import { comparisonSorts, type AcceptPreview } from '$lib/types/quote-comparison';
-import { draftForAwarded } from './draft.server';
+import { awardedDraftDependency, awardedDraftForPage } from './draft.server';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 const sortSchema = z.enum(comparisonSorts).catch('fit');
 
-export const load: PageServerLoad = async ({ locals, params, url }) => {
+export const load: PageServerLoad = async ({ locals, params, url, depends, isDataRequest, setHeaders }) => {
 	const user = requireUser();
 	const view = await commissions.getForViewer(locals.db, { id: params.id, viewer: user, unit: user.units });
 	if (!view) error(404, { message: 'There is no such commission.', code: 'not_found' });
 	const isParty = view.viewer === 'owner' || view.viewer === 'awarded';
 	const isTailor = view.viewer === 'tailor' || view.viewer === 'awarded';
-	const [comparison, order, draft, myQuote, threadId] = await Promise.all([
+	depends(awardedDraftDependency);
+	const draft =
+		view.viewer === 'awarded'
+			? awardedDraftForPage({ isDataRequest, setHeaders, locals }, view.garment, view.measurements)
+			: null;
+	const [comparison, order, myQuote, threadId] = await Promise.all([
 		view.viewer === 'owner' ? quotes.compare(locals.db, { commissionId: params.id, ownerId: user.id }) : null,
 		isParty ? orders.getForParty(locals.db, { viewerId: user.id, commissionId: params.id }) : null,
-		view.viewer === 'awarded' ? draftForAwarded(view.garment, view.measurements) : null,
 		isTailor ? quotes.latestQuoteOf(locals.db, { commissionId: view.id, tailorId: user.id }) : null,
 		isTailor ? messages.threadIdFor(locals.db, { commissionId: view.id, tailorId: user.id }) : null
 	]);

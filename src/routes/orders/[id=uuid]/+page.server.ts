@@ -8,6 +8,7 @@ import { orderForViewer } from '$lib/server/orders/page';
 import { storeUpload } from '$lib/server/photos';
 import { photoErrorMessage, uploadBodyLimit } from '$lib/server/photos/api';
 import type { SessionUser } from '$lib/types/user';
+import { awardedDraftDependency } from '../../commissions/[id=uuid]/draft.server';
 import { orderPageData } from './order.server';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
@@ -30,9 +31,14 @@ const doneSchema = z
 
 const notFound = { message: 'There is no such order.', code: 'not_found' };
 
-export const load: PageServerLoad = async ({ locals, params, url }) => {
+export const load: PageServerLoad = async ({ locals, params, url, depends, isDataRequest, setHeaders }) => {
 	const user = requireUser();
-	const data = await orderPageData(locals.db, { orderId: params.id, user });
+	depends(awardedDraftDependency);
+	const data = await orderPageData(locals.db, {
+		orderId: params.id,
+		user,
+		page: { isDataRequest, setHeaders, locals }
+	});
 	if (!data) error(404, notFound);
 	return {
 		...data,

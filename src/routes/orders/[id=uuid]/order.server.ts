@@ -1,3 +1,4 @@
+import type { RequestEvent } from '@sveltejs/kit';
 import * as accounts from '$lib/server/accounts';
 import * as commissions from '$lib/server/commissions';
 import * as fittings from '$lib/server/fittings';
@@ -8,7 +9,7 @@ import * as payments from '$lib/server/payments';
 import { labelsOf } from '$lib/server/workrooms/names';
 import { statusLine } from '$lib/orders/status';
 import type { SessionUser } from '$lib/types/user';
-import { draftForAwarded } from '../../commissions/[id=uuid]/draft.server';
+import { awardedDraftForPage } from '../../commissions/[id=uuid]/draft.server';
 
 type Db = App.Locals['db'];
 
@@ -17,7 +18,14 @@ type Db = App.Locals['db'];
  * for a missing order). Each area answers for its own part: the order and its progress, the money and the
  * payments, the history, the workroom, the conversation, and — for the tailor — the measurements and draft.
  */
-export async function orderPageData(db: Db, { orderId, user }: { orderId: string; user: SessionUser }) {
+export async function orderPageData(
+	db: Db,
+	{
+		orderId,
+		user,
+		page
+	}: { orderId: string; user: SessionUser; page: Pick<RequestEvent, 'isDataRequest' | 'setHeaders' | 'locals'> }
+) {
 	const found = await orderPage.orderForViewer(db, { orderId, viewer: user });
 	if (!found) return null;
 	const { detail: order, audience } = found;
@@ -34,7 +42,7 @@ export async function orderPageData(db: Db, { orderId, user }: { orderId: string
 			order.status === 'funded' ? orders.openCancellationRequest(db, orderId) : null
 		]);
 	const awarded = audience === 'tailor' && view?.viewer === 'awarded' ? view : null;
-	const draft = awarded ? await draftForAwarded(awarded.garment, awarded.measurements) : null;
+	const draft = awarded ? awardedDraftForPage(page, awarded.garment, awarded.measurements) : null;
 	const workroom = workrooms.get(order.tailorId) ?? null;
 	const customerName = audience === 'customer' ? 'You' : (view?.customer.name ?? 'The customer');
 	// Who did what, as this viewer may read it; anyone else (an admin, a job) is Tackline.
