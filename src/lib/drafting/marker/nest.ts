@@ -416,15 +416,15 @@ export function nestMarker(items: readonly MarkerItem[], options: MarkerOptions)
 		const turned = u.variants.filter((v) => v.turn !== 0);
 		return turned.length ? { ...u, variants: turned, free: u.variants } : u;
 	});
-	// The same again laid from the far end (pieces reflected end to end, the layout reflected back), which
-	// puts small pieces first into the hollows at the other end of the big ones; not with a pattern repeat,
-	// whose steps count from the cut end.
-	// And with each pair's other hand first: of two equally low places, bottom-left takes the first hand's.
+	// With each pair's other hand first: of two equally low places, bottom-left takes the first hand's.
 	const otherHandFirst = units.map((u) =>
 		u.perHand === undefined
 			? u
 			: { ...u, variants: [...u.variants.filter((v) => v.mirrored), ...u.variants.filter((v) => !v.mirrored)] }
 	);
+	// The same again laid from the far end (pieces reflected end to end, the layout reflected back), which
+	// puts small pieces first into the hollows at the other end of the big ones; not with a pattern repeat,
+	// whose steps count from the cut end.
 	const fromFarEnd = !context.yStep ? reflectedUnits([units, turnedOnly, otherHandFirst]) : null;
 	const starts: Array<{ units: Unit[]; fromFarEnd: boolean }> = [
 		{ units, fromFarEnd: false },

@@ -122,15 +122,18 @@ function makeVariant(item: MarkerItem, base: BaseShapes, turn: Turn, mirrored: b
 		];
 	}
 	const linear = flip ? compose(turnMaps[turn], mirrorMap) : turnMaps[turn];
-	const turned = applyLinear(linear, base.shape);
-	const box = bounds(turned);
+	return { turn, mirrored, outline, grainline: grain, ...shapesUnder(base, linear, outline) };
+}
+
+/**
+ * The item's shapes under the map, moved so their bounding box's top-left corner is at the origin, and how the
+ * mapped outline (mm) sits in that frame.
+ */
+function shapesUnder(base: BaseShapes, linear: Linear, outline: readonly Point[]) {
+	const box = bounds(applyLinear(linear, base.shape));
 	const offset = { x: -box.left, y: -box.top };
 	const shape = applyLinear(linear, base.shape, offset.x, offset.y);
 	return {
-		turn,
-		mirrored,
-		outline,
-		grainline: grain,
 		shape,
 		clear: base.clear === base.shape ? shape : applyLinear(linear, base.clear, offset.x, offset.y),
 		base,
@@ -139,7 +142,7 @@ function makeVariant(item: MarkerItem, base: BaseShapes, turn: Turn, mirrored: b
 		width: box.right - box.left,
 		height: box.bottom - box.top,
 		shift: { x: -box.left / unitsPerMm, y: -box.top / unitsPerMm },
-		topInset: Math.round(laid.y * unitsPerMm) - box.top
+		topInset: Math.round(boundingBox(outline).y * unitsPerMm) - box.top
 	};
 }
 
@@ -168,20 +171,11 @@ const alongMap: Linear = [1, 0, 0, -1];
  * variants, reflected back as a whole, is a layout of the variants themselves.
  */
 export function reflectAlong(v: Variant): Variant {
-	const linear = compose(alongMap, v.linear);
-	const box = bounds(applyLinear(linear, v.base.shape));
-	const offset = { x: -box.left, y: -box.top };
-	const shape = applyLinear(linear, v.base.shape, offset.x, offset.y);
 	const outline = v.outline.map((p) => ({ x: p.x, y: -p.y }));
 	return {
 		...v,
 		outline,
 		grainline: v.grainline.map((p) => ({ x: p.x, y: -p.y })) as [Point, Point],
-		shape,
-		clear: v.base.clear === v.base.shape ? shape : applyLinear(linear, v.base.clear, offset.x, offset.y),
-		linear,
-		offset,
-		shift: { x: -box.left / unitsPerMm, y: -box.top / unitsPerMm },
-		topInset: Math.round(boundingBox(outline).y * unitsPerMm) - box.top
+		...shapesUnder(v.base, compose(alongMap, v.linear), outline)
 	};
 }

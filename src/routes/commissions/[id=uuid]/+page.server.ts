@@ -7,7 +7,7 @@ import * as messages from '$lib/server/messages';
 import * as orders from '$lib/server/orders';
 import * as quotes from '$lib/server/quotes';
 import { comparisonSorts, type AcceptPreview } from '$lib/types/quote-comparison';
-import { awardedDraftDependency, awardedDraftForPage } from './draft.server';
+import { awardedDraftForPage } from './draft.server';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 const sortSchema = z.enum(comparisonSorts).catch('fit');
@@ -18,10 +18,9 @@ export const load: PageServerLoad = async ({ locals, params, url, depends, isDat
 	if (!view) error(404, { message: 'There is no such commission.', code: 'not_found' });
 	const isParty = view.viewer === 'owner' || view.viewer === 'awarded';
 	const isTailor = view.viewer === 'tailor' || view.viewer === 'awarded';
-	depends(awardedDraftDependency);
 	const draft =
 		view.viewer === 'awarded'
-			? awardedDraftForPage({ isDataRequest, setHeaders, locals }, view.garment, view.measurements)
+			? awardedDraftForPage({ isDataRequest, setHeaders, locals, depends }, view.garment, view.measurements)
 			: null;
 	const [comparison, order, myQuote, threadId] = await Promise.all([
 		view.viewer === 'owner' ? quotes.compare(locals.db, { commissionId: params.id, ownerId: user.id }) : null,

@@ -1,10 +1,8 @@
-import type { RequestEvent } from '@sveltejs/kit';
+import type { ServerLoadEvent } from '@sveltejs/kit';
 import { garmentIds, type DraftRequest, type DraftResponse, type GarmentId, type Unit } from '$lib/drafting';
 import { Busy, compute, OverBudget } from '$lib/server/compute';
 import { answerCache, type Answer } from '$lib/server/compute/answers';
-import type { AwardedDraft } from './awarded-draft';
-
-export { awardedDraftDependency } from './awarded-draft';
+import { awardedDraftDependency, type AwardedDraft } from './awarded-draft';
 
 /** Drafts for frozen measurements never change: each is nested once (up to a couple of seconds), then kept. */
 const drafts = answerCache({ maxEntries: 200, maxBytes: 32 * 1024 * 1024 });
@@ -20,7 +18,7 @@ const fromAnswer = (answer: Answer): AwardedDraft =>
  * (`other`) has none. A draft worked out before comes at once; otherwise a promise, which the page streams
  * in after the rest of it (nesting takes up to a couple of seconds).
  */
-export function draftForAwarded(
+function draftForAwarded(
 	garment: string,
 	measurements: { unit: Unit; values: Record<string, number> } | null
 ): AwardedDraft | Promise<AwardedDraft> {
@@ -51,13 +49,16 @@ export function draftForAwarded(
 		.then(fromAnswer);
 }
 
+/** What of a page's load the draft needs: whether it is a data request, where to say "do not keep", how to ask again. */
+export type DraftPage = Pick<ServerLoadEvent, 'isDataRequest' | 'setHeaders' | 'locals' | 'depends'>;
+
 /**
  * The draft as a page's load gives it. A draft still being nested does not hold up the page: a data request
  * (the browser's own, after the page has loaded) gets it as a promise, streamed; a first page load, whose inline
  * scripts the content security policy fixes in advance, gets `working`, and the page asks again.
  */
 export function awardedDraftForPage(
-	page: Pick<RequestEvent, 'isDataRequest' | 'setHeaders' | 'locals'>,
+	page: DraftPage,
 	garment: string,
 	measurements: { unit: Unit; values: Record<string, number> } | null
 ): AwardedDraft | Promise<AwardedDraft> {
@@ -67,5 +68,6 @@ export function awardedDraftForPage(
 	draft.catch(() => {});
 	page.setHeaders({ 'cache-control': 'no-store' });
 	page.locals.unkept = true;
+	page.depends(awardedDraftDependency);
 	return { ok: false, reason: 'working' };
 }

@@ -8,7 +8,6 @@ import { orderForViewer } from '$lib/server/orders/page';
 import { storeUpload } from '$lib/server/photos';
 import { photoErrorMessage, uploadBodyLimit } from '$lib/server/photos/api';
 import type { SessionUser } from '$lib/types/user';
-import { awardedDraftDependency } from '../../commissions/[id=uuid]/draft.server';
 import { orderPageData } from './order.server';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
@@ -33,11 +32,10 @@ const notFound = { message: 'There is no such order.', code: 'not_found' };
 
 export const load: PageServerLoad = async ({ locals, params, url, depends, isDataRequest, setHeaders }) => {
 	const user = requireUser();
-	depends(awardedDraftDependency);
 	const data = await orderPageData(locals.db, {
 		orderId: params.id,
 		user,
-		page: { isDataRequest, setHeaders, locals }
+		page: { isDataRequest, setHeaders, locals, depends }
 	});
 	if (!data) error(404, notFound);
 	return {

@@ -1,4 +1,3 @@
-import type { RequestEvent } from '@sveltejs/kit';
 import * as accounts from '$lib/server/accounts';
 import * as commissions from '$lib/server/commissions';
 import * as fittings from '$lib/server/fittings';
@@ -9,7 +8,7 @@ import * as payments from '$lib/server/payments';
 import { labelsOf } from '$lib/server/workrooms/names';
 import { statusLine } from '$lib/orders/status';
 import type { SessionUser } from '$lib/types/user';
-import { awardedDraftForPage } from '../../commissions/[id=uuid]/draft.server';
+import { awardedDraftForPage, type DraftPage } from '../../commissions/[id=uuid]/draft.server';
 
 type Db = App.Locals['db'];
 
@@ -20,11 +19,7 @@ type Db = App.Locals['db'];
  */
 export async function orderPageData(
 	db: Db,
-	{
-		orderId,
-		user,
-		page
-	}: { orderId: string; user: SessionUser; page: Pick<RequestEvent, 'isDataRequest' | 'setHeaders' | 'locals'> }
+	{ orderId, user, page }: { orderId: string; user: SessionUser; page: DraftPage }
 ) {
 	const found = await orderPage.orderForViewer(db, { orderId, viewer: user });
 	if (!found) return null;
