@@ -20,6 +20,21 @@ describe('answer cache', () => {
 		expect(runs).toBe(2);
 	});
 
+	it('peeks at a kept answer without working anything out, and counts the peek as a use', async () => {
+		const cache = answerCache({ maxEntries: 2, maxBytes: 1e6 });
+		let runs = 0;
+		const work = () => Promise.resolve(answer(String(++runs)));
+		expect(cache.peek('a')).toBeUndefined();
+		expect(runs).toBe(0);
+		await cache.get('a', work);
+		await cache.get('b', work);
+		expect(cache.peek('a')?.body).toBe('1'); // a is now the most recent
+		await cache.get('c', work); // b goes
+		expect(cache.peek('a')?.body).toBe('1');
+		expect(cache.peek('b')).toBeUndefined();
+		expect(runs).toBe(3);
+	});
+
 	it('does not keep what was not worked out (over budget, busy)', async () => {
 		const cache = answerCache({ maxEntries: 10, maxBytes: 1e6 });
 		let runs = 0;

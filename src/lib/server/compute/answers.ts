@@ -30,20 +30,26 @@ export function answerCache({ maxEntries, maxBytes }: { maxEntries: number; maxB
 
 	const keyOf = (request: unknown) => createHash('sha256').update(JSON.stringify(request)).digest('base64url');
 
+	/** The kept answer under `key`, now the most recently used (they go to the end). */
+	function use(key: string): Answer | undefined {
+		const hit = kept.get(key);
+		if (hit) {
+			kept.delete(key);
+			kept.set(key, hit);
+		}
+		return hit;
+	}
+
 	return {
 		/** The kept answer for `request`, if there is one, without working anything out. */
 		peek(request: unknown): Answer | undefined {
-			return kept.get(keyOf(request));
+			return use(keyOf(request));
 		},
 		/** The kept answer for `request`, or the one `work()` gives (kept when it says so). */
 		get(request: unknown, work: () => Promise<Answer>): Promise<Answer> {
 			const key = keyOf(request);
-			const hit = kept.get(key);
-			if (hit) {
-				kept.delete(key); // the most recently used go to the end
-				kept.set(key, hit);
-				return Promise.resolve(hit);
-			}
+			const hit = use(key);
+			if (hit) return Promise.resolve(hit);
 			let running = pending.get(key);
 			if (!running) {
 				running = work().then((answer) => {
